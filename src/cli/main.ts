@@ -1,1 +1,27 @@
-export {};
+#!/usr/bin/env node
+// Command-line entry: registers one subcommand per file in src/cli/ and maps errors to exit codes.
+import { Command, CommanderError } from 'commander';
+import { UserError, EXIT } from '../errors.js';
+import { commands } from './commands.js';
+
+const program = new Command('concordat')
+  .description('Publish a validated linked-data concordance of artworks from image-match evidence across partner photo archives.')
+  .version('0.1.0')
+  .exitOverride()
+  .showHelpAfterError('(add --help for usage)');
+
+for (const register of commands) register(program);
+
+try {
+  await program.parseAsync(process.argv);
+} catch (err) {
+  if (err instanceof UserError) {
+    process.stderr.write(err.message + '\n');
+    process.exitCode = err.exitCode;
+  } else if (err instanceof CommanderError) {
+    // help and version exit 0; usage errors were already printed by commander
+    process.exitCode = err.exitCode === 0 ? EXIT.ok : EXIT.badInput;
+  } else {
+    throw err;
+  }
+}
