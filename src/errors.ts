@@ -1,4 +1,5 @@
 // User-facing problems (bad input, bad usage) as data: file, 1-based line, field, message, hint.
+import path from 'node:path';
 
 /** One problem found in the user's input, printed as `file:line: field: message (hint)`. */
 export interface Problem {
@@ -13,9 +14,17 @@ export interface Problem {
   column?: number;
 }
 
+/** A path as the user would type it: relative to the working folder when inside it. */
+export function displayPath(file: string): string {
+  if (!path.isAbsolute(file)) return file;
+  const rel = path.relative(process.cwd(), file);
+  return rel && !rel.startsWith('..') && !path.isAbsolute(rel) ? rel : file;
+}
+
 /** Formats a problem the way every command prints it. */
 export function formatProblem(p: Problem): string {
-  const where = p.line > 0 ? `${p.file}:${p.line}${p.column ? `:${p.column}` : ''}` : p.file;
+  const file = displayPath(p.file);
+  const where = p.line > 0 ? `${file}:${p.line}${p.column ? `:${p.column}` : ''}` : file;
   const field = p.field ? ` ${p.field}:` : '';
   const hint = p.hint ? ` (${p.hint})` : '';
   return `${where}:${field} ${p.message}${hint}`;

@@ -1,6 +1,7 @@
 // The table of subcommands: one `register` function per file in src/cli/. Adding a command is one row.
 import type { Command } from 'commander';
+import { register as check } from './check.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [];
+export const commands: Register[] = [check];

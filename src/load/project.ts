@@ -1,0 +1,188 @@
+// concordance.json → ProjectConfig: JSON syntax, zod schema, did-you-mean hints, paths resolved.
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { z } from 'zod';
+import { ProblemList, UserError, type Problem } from '../errors.js';
+import type { ProjectConfig } from '../model.js';
+import { checkTemplate } from './template.js';
+import { didYouMean } from './did-you-mean.js';
+
+const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
+const iri = (what: string) =>
+  z.string().regex(absoluteIri, { message: `${what} must be an absolute IRI such as https://example.org/` });
+const unit = z.number().min(0).max(1);
+const nonEmpty = z.string().trim().min(1, { message: 'must not be empty' });
+const partnerKey = z
+  .string()
+  .regex(/^[a-z][a-z0-9_-]{0,31}$/, { message: 'partner key: lower-case letter, then letters, digits, - or _ (at most 32)' });
+
+const ColumnsSchema = z.strictObject({
+  work: nonEmpty,
+  image: nonEmpty,
+  title: nonEmpty.optional(),
+  date: nonEmpty.optional(),
+  width: nonEmpty.optional(),
+  height: nonEmpty.optional(),
+});
+
+const PartnerSchema = z.strictObject({
+  key: partnerKey,
+  name: nonEmpty,
+  homepage: iri('homepage').optional(),
+  workIri: z.string(),
+  imageIri: z.string(),
+  recordPage: z.string().optional(),
+  centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
+  catalogue: z.strictObject({
+    file: nonEmpty,
+    delimiter: z.string().length(1, { message: 'delimiter must be one character, e.g. "," ";" or "\\t"' }).default(','),
+    columns: ColumnsSchema,
+  }),
+});
+
+const RunSchema = z.strictObject({
+  id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, { message: 'run id: letters, digits, . _ - only' }),
+  software: nonEmpty,
+  version: nonEmpty,
+  started: z.iso.datetime({ offset: true, message: 'started must be an ISO 8601 date-time with zone, e.g. 2026-10-04T09:00:00Z' }),
+  parameters: z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])).default({}),
+});
+
+const PolicySchema = z
+  .strictObject({
+    proposeAt: unit.default(0.5),
+    autoConfirmAt: unit.nullable().default(null),
+    partOverlapBelow: z.number().gt(0).max(1).default(0.7),
+    minOverlap: unit.default(0.3),
+  })
+  .refine((p) => p.autoConfirmAt === null || p.autoConfirmAt >= p.proposeAt, {
+    message: 'autoConfirmAt must be at least proposeAt (or null)',
+    path: ['autoConfirmAt'],
+  });
+
+export const ProjectSchema = z.strictObject({
+  title: nonEmpty,
+  description: z.string().optional(),
+  base: iri('base'),
+  license: iri('license'),
+  publisher: z.strictObject({ name: nonEmpty, homepage: iri('homepage').optional() }),
+  partners: z.array(PartnerSchema).min(1, { message: 'at least one partner is needed' }),
+  evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
+  decisions: z.array(nonEmpty).default([]),
+  gold: nonEmpty.optional(),
+  policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 }),
+  previous: nonEmpty.optional(),
+  vocabMap: nonEmpty.optional(),
+  release: z
+    .strictObject({ version: nonEmpty, issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional() })
+    .default({ version: '0' }),
+});
+
+/** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */
+function keysAt(pathParts: PropertyKey[]): string[] {
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  let s: any = ProjectSchema;
+  const unwrap = () => {
+    while (s && typeof s.unwrap === 'function' && !s.shape) s = s.unwrap();
+    if (s?.def?.type === 'pipe') s = s.def.in;
+  };
+  for (const p of pathParts) {
+    unwrap();
+    if (s?.def?.type === 'array') s = s.element;
+    else if (s?.shape) s = s.shape[p as string];
+    else return [];
+  }
+  unwrap();
+  return s?.shape ? Object.keys(s.shape) : [];
+}
+
+const jsonPath = (p: PropertyKey[]) =>
+  p.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
+
+/** Line and column (1-based) of a character offset. */
+function lineCol(text: string, pos: number): { line: number; column: number } {
+  const before = text.slice(0, pos);
+  const line = before.split('\n').length;
+  return { line, column: pos - before.lastIndexOf('\n') };
+}
+
+/** Finds the line where a JSON path's value starts, by a light scan for its last key; 1 when unknown. */
+function lineOfPath(text: string, p: PropertyKey[]): number {
+  const lastKey = [...p].reverse().find((k) => typeof k === 'string');
+  if (lastKey === undefined) return 1;
+  const idx = text.indexOf(JSON.stringify(lastKey));
+  return idx < 0 ? 1 : lineCol(text, idx).line;
+}
+
+/** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
+export function loadProjectFile(file: string): ProjectConfig {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new UserError({ file, line: 0, field: '', message: `cannot read project file: ${(e as NodeJS.ErrnoException).code ?? e}`, hint: 'give the path to concordance.json' });
+  }
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    const msg = (e as Error).message;
+    const m = /position (\d+)/.exec(msg);
+    const pos = m ? Number(m[1]) : text.length;
+    const { line, column } = lineCol(text, pos);
+    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${msg.replace(/ in JSON at position \d+.*$/, '')}`, hint: 'check commas, quotes and brackets near here' });
+  }
+  const problems = new ProblemList();
+  const parsed = ProjectSchema.safeParse(raw);
+  if (!parsed.success) {
+    for (const issue of parsed.error.issues) {
+      if (issue.code === 'unrecognized_keys') {
+        for (const key of issue.keys) {
+          const near = didYouMean(key, keysAt(issue.path));
+          problems.add({ file, line: lineOfPath(text, [...issue.path, key]), field: jsonPath([...issue.path, key]), message: 'unknown field', hint: near ? `did you mean "${near}"?` : `known fields: ${keysAt(issue.path).join(', ')}` });
+        }
+      } else {
+        problems.add({ file, line: lineOfPath(text, issue.path), field: jsonPath(issue.path), message: issue.message });
+      }
+    }
+    problems.throwIfAny();
+  }
+  const p = parsed.data!;
+  const seen = new Set<string>();
+  p.partners.forEach((partner, i) => {
+    const at = (f: string): Problem => ({ file, line: lineOfPath(text, ['partners', i, f]), field: `partners[${i}].${f}`, message: '' });
+    if (seen.has(partner.key)) problems.add({ ...at('key'), message: `duplicate partner key "${partner.key}"`, hint: 'each partner needs its own key' });
+    seen.add(partner.key);
+    const templates: [string, string | undefined, string, string[]][] = [
+      ['workIri', partner.workIri, 'work', ['work']],
+      ['imageIri', partner.imageIri, 'image', ['image', 'work']],
+      ['recordPage', partner.recordPage, 'work', ['work']],
+    ];
+    for (const [field, tpl, req, allowed] of templates) {
+      if (tpl === undefined) continue;
+      for (const msg of checkTemplate(tpl, req, allowed)) problems.add({ ...at(field), message: `template ${msg}`, hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"` });
+      if (!absoluteIri.test(tpl.replace(/\{[^{}]*\}/g, 'x'))) problems.add({ ...at(field), message: 'template does not give an absolute IRI', hint: 'start it with https://' });
+    }
+  });
+  const runIds = new Set<string>();
+  p.evidence.forEach((ev, i) => {
+    if (ev.run && runIds.has(ev.run.id) && JSON.stringify(ev.run) !== JSON.stringify(p.evidence.find((e) => e.run?.id === ev.run!.id)!.run))
+      problems.add({ file, line: lineOfPath(text, ['evidence', i, 'run']), field: `evidence[${i}].run.id`, message: `run "${ev.run.id}" is declared twice with different details`, hint: 'give each run its own id' });
+    if (ev.run) runIds.add(ev.run.id);
+  });
+  if (!/[/#]$/.test(p.base)) problems.add({ file, line: lineOfPath(text, ['base']), field: 'base', message: 'base must end with "/" or "#"', hint: `e.g. "${p.base}/"` });
+  problems.throwIfAny();
+
+  const dir = path.dirname(path.resolve(file));
+  const abs = (f: string) => path.resolve(dir, f);
+  return {
+    ...p,
+    partners: p.partners.map((x) => ({ ...x, catalogue: { ...x.catalogue, file: abs(x.catalogue.file) } })),
+    evidence: p.evidence.map((e) => ({ ...e, file: abs(e.file) })),
+    decisions: p.decisions.map(abs),
+    gold: p.gold === undefined ? undefined : abs(p.gold),
+    previous: p.previous === undefined ? undefined : abs(p.previous),
+    vocabMap: p.vocabMap === undefined ? undefined : abs(p.vocabMap),
+  };
+}

@@ -1,0 +1,45 @@
+// Loaded model → the summary `concordat check` prints (per partner works and images, evidence, decisions, warnings).
+import type { Model } from '../model.js';
+import type { LoadStats } from './index.js';
+import { displayPath, formatProblem } from '../errors.js';
+
+export interface CheckSummary {
+  project: string;
+  title: string;
+  partners: { key: string; name: string; works: number; images: number }[];
+  evidence: { rows: number; matches: number; sameRecordSetAside: number; files: number; runs: string[] };
+  decisions: number;
+  goldPairs: number;
+  warnings: { file: string; line: number; field: string; message: string; hint?: string }[];
+}
+
+/** Counts what was loaded. */
+export function summarise(model: Model, stats: LoadStats): CheckSummary {
+  const partners = model.project.partners.map((p) => ({ key: p.key, name: p.name, works: 0, images: 0 }));
+  for (const w of model.works) {
+    partners[w.partner].works++;
+    partners[w.partner].images += w.imageCount;
+  }
+  return {
+    project: displayPath(model.projectFile),
+    title: model.project.title,
+    partners,
+    evidence: { rows: stats.evidenceRows, matches: model.matches.count, sameRecordSetAside: stats.sameRecordMatches, files: model.evidenceFiles.length, runs: model.runs.map((r) => r.id) },
+    decisions: model.decisions.length,
+    goldPairs: model.gold.length,
+    warnings: model.warnings.map((w) => ({ ...w, file: displayPath(w.file) })),
+  };
+}
+
+/** The summary as aligned text for a terminal. */
+export function summaryText(s: CheckSummary): string {
+  const lines = [`${s.title}  (${s.project})`, '', 'partner'.padEnd(14) + 'works'.padStart(8) + 'images'.padStart(9) + '  name'];
+  for (const p of s.partners) lines.push(p.key.padEnd(14) + String(p.works).padStart(8) + String(p.images).padStart(9) + '  ' + p.name);
+  lines.push(
+    '',
+    `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${s.evidence.runs.join(', ') || 'none'}; ${s.evidence.matches} cross-record image matches`,
+    `decisions: ${s.decisions}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
+  );
+  for (const w of s.warnings) lines.push('  warning: ' + formatProblem(w));
+  return lines.join('\n') + '\n';
+}

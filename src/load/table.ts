@@ -1,0 +1,56 @@
+// CSV rows → header-checked records: finds the named columns, reports ragged rows and header-only files.
+import type { ProblemList } from '../errors.js';
+import { readCsv } from './csv.js';
+import { didYouMean } from './did-you-mean.js';
+
+export interface TableRow {
+  line: number;
+  /** value of a named column ('' when the column is optional and absent) */
+  get(column: string): string;
+}
+
+/**
+ * Streams records of a delimited file with a header row. `required` columns must be in the header (problem
+ * naming the missing column with a did-you-mean hint); rows whose field count differs from the header's are
+ * reported and skipped. A file with a header and no records is a problem too.
+ */
+export async function* readTable(
+  file: string,
+  delimiter: string,
+  required: string[],
+  optional: string[],
+  problems: ProblemList,
+  context: string,
+): AsyncGenerator<TableRow> {
+  let header: string[] | undefined;
+  let index = new Map<string, number>();
+  let records = 0;
+  for await (const { fields, line } of readCsv(file, delimiter)) {
+    if (!header) {
+      header = fields.map((h) => h.trim());
+      index = new Map(header.map((h, i) => [h, i]));
+      const missing = required.filter((c) => !index.has(c));
+      for (const c of missing) {
+        const near = didYouMean(c, header);
+        problems.add({ file, line, field: c, message: `column "${c}" (${context}) is not in the header`, hint: near ? `did you mean "${near}"? the header has: ${header.join(', ')}` : `the header has: ${header.join(', ')}${delimiter === ',' && header.length === 1 && header[0].includes('\t') ? '; the file looks tab-separated: set "delimiter": "\\t"' : ''}` });
+      }
+      if (missing.length) return;
+      for (const c of optional) if (!index.has(c)) index.set(c, -1);
+      continue;
+    }
+    records++;
+    if (fields.length !== header.length) {
+      problems.add({ file, line, field: '', message: `row has ${fields.length} fields, the header has ${header.length}`, hint: fields.length < header.length ? 'a field is missing or a delimiter is lost' : `a value holds the delimiter ${JSON.stringify(delimiter)} unquoted: quote it` });
+      continue;
+    }
+    yield {
+      line,
+      get(column: string) {
+        const i = index.get(column);
+        return i === undefined || i < 0 ? '' : fields[i];
+      },
+    };
+  }
+  if (!header) problems.add({ file, line: 0, field: '', message: 'file is empty', hint: `expected a header row with: ${required.join(', ')}` });
+  else if (records === 0) problems.add({ file, line: 1, field: '', message: 'file has a header but no rows', hint: 'export the records too, or remove the file from concordance.json' });
+}

@@ -1,0 +1,129 @@
+// The typed model the load stage produces and every later stage reads: partners, works, images, matches, decisions.
+import type { Problem } from './errors.js';
+
+export type CenturyConvention = 'ordinal' | 'iso' | 'unknown';
+export type Verdict = 'same' | 'part' | 'related' | 'distinct';
+
+export interface ColumnMap {
+  work: string;
+  image: string;
+  title?: string;
+  date?: string;
+  width?: string;
+  height?: string;
+}
+
+export interface PartnerConfig {
+  key: string;
+  name: string;
+  homepage?: string;
+  workIri: string;
+  imageIri: string;
+  recordPage?: string;
+  centuryConvention: CenturyConvention;
+  catalogue: { file: string; delimiter: string; columns: ColumnMap };
+}
+
+export interface RunConfig {
+  id: string;
+  software: string;
+  version: string;
+  started: string;
+  parameters: Record<string, string | number | boolean | null>;
+}
+
+export interface Policy {
+  proposeAt: number;
+  autoConfirmAt: number | null;
+  partOverlapBelow: number;
+  minOverlap: number;
+}
+
+/** The project file after validation, with every path resolved against the project file's folder. */
+export interface ProjectConfig {
+  title: string;
+  base: string;
+  license: string;
+  publisher: { name: string; homepage?: string };
+  partners: PartnerConfig[];
+  evidence: { file: string; run?: RunConfig }[];
+  decisions: string[];
+  gold?: string;
+  policy: Policy;
+  previous?: string;
+  vocabMap?: string;
+  release: { version: string; issued?: string };
+  description?: string;
+}
+
+/** One catalogue record (a work) of one partner. `title`/`date` as catalogued (first row wins). */
+export interface Work {
+  partner: number;
+  id: string;
+  title: string;
+  date: string;
+  /** 1-based line of the first catalogue row naming this work. */
+  line: number;
+  imageCount: number;
+}
+
+/** Columnar image table: index = image number. */
+export interface Images {
+  count: number;
+  work: Int32Array;
+  id: string[];
+  line: Int32Array;
+}
+
+/** Columnar match table: one entry per evidence row (image pair), in input order. */
+export interface Matches {
+  count: number;
+  a: Int32Array;
+  b: Int32Array;
+  score: Float64Array;
+  overlap: Float64Array;
+  run: Int32Array;
+  /** index into Model.evidenceFiles */
+  file: Int32Array;
+  line: Int32Array;
+}
+
+export interface Decision {
+  a: number;
+  b: number;
+  verdict: Verdict;
+  curator: string;
+  date: string;
+  note: string;
+  file: string;
+  line: number;
+}
+
+export interface GoldPair {
+  a: number;
+  b: number;
+  line: number;
+}
+
+export interface Model {
+  projectFile: string;
+  project: ProjectConfig;
+  works: Work[];
+  /** per partner: catalogue work ID → work number */
+  workIndex: Map<string, number>[];
+  images: Images;
+  /** per partner: image ID → image number */
+  imageIndex: Map<string, number>[];
+  matches: Matches;
+  runs: RunConfig[];
+  evidenceFiles: string[];
+  decisions: Decision[];
+  gold: GoldPair[];
+  warnings: Problem[];
+}
+
+/** `partnerKey:workId` of a work: the reference form used in decisions, gold and review files. */
+export function workRef(model: Pick<Model, 'project' | 'works'>, w: number): string {
+  const work = model.works[w];
+  return `${model.project.partners[work.partner].key}:${work.id}`;
+}
