@@ -16,6 +16,7 @@ export const NS = {
   mf: 'http://www.w3.org/2001/sw/DataAccess/tests/test-manifest#',
   sht: 'http://www.w3.org/ns/shacl-test#',
   rdft: 'http://www.w3.org/ns/rdftest#',
+  iana: 'https://www.iana.org/assignments/media-types/',
 } as const;
 
 export type Prefix = keyof typeof NS;
