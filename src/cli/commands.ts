@@ -1,7 +1,8 @@
 // The table of subcommands: one `register` function per file in src/cli/. Adding a command is one row.
 import type { Command } from 'commander';
 import { register as check } from './check.js';
+import { register as validate } from './validate.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check];
+export const commands: Register[] = [check, validate];

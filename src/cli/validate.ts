@@ -1,0 +1,36 @@
+// `concordat validate <files...>`: options → SHACL validation of RDF files, printed summary and exit code.
+import type { Command } from 'commander';
+import { EXIT } from '../errors.js';
+import { defaultShapesDir, loadDataFiles, loadShapesFolder } from '../validate/files.js';
+import { validate } from '../validate/shacl.js';
+import { writeValidationReport } from '../validate/report.js';
+import { summaryJson, summaryText } from '../validate/summary.js';
+
+const EXAMPLE = `
+Exit status: 0 when no result has severity sh:Violation (warnings and infos are listed but pass),
+1 when any does, 2 when a file or the shapes folder cannot be read or parsed.
+
+Example:
+  $ concordat validate release/concordance.nq release/dataset.ttl --report release/validation.ttl
+`;
+
+/** Registers `validate` (SHACL §3 validation of Turtle, N-Triples, N-Quads, TriG or JSON-LD files). */
+export function register(program: Command): void {
+  program
+    .command('validate')
+    .description('check RDF files (.ttl .nt .nq .trig .jsonld) against the SHACL shapes')
+    .argument('<files...>', 'RDF files to check; all are merged into one data graph')
+    .option('--shapes <folder>', 'folder whose .ttl files hold the SHACL shapes (default: the shapes/ folder shipped with concordat)')
+    .option('--report <file>', 'also write the SHACL validation report as Turtle to this file')
+    .option('--json', 'print the outcome as JSON instead of text')
+    .addHelpText('after', EXAMPLE)
+    .action(async (files: string[], opts: { shapes?: string; report?: string; json?: boolean }) => {
+      const shapes = await loadShapesFolder(opts.shapes ?? defaultShapesDir());
+      const data = await loadDataFiles(files);
+      const outcome = await validate(data, shapes.quads, { shapesLabel: opts.shapes ?? 'shapes' });
+      if (opts.report) await writeValidationReport(opts.report, outcome);
+      const context = { files: files.length, quads: data.size, shapesFiles: shapes.files.length };
+      process.stdout.write(opts.json ? JSON.stringify(summaryJson(outcome, context), null, 2) + '\n' : summaryText(outcome, context));
+      process.exitCode = outcome.conforms ? EXIT.ok : EXIT.failure;
+    });
+}
