@@ -32,7 +32,7 @@ export const SUB_YEAR: Readonly<Record<number, readonly [number, number]>> = {
  * Expressions finer than a year (month, season, day) get ±1 year.
  */
 export function tolerance(spanYears: number): number {
-  return spanYears < 10 ? 10 : Math.max(10, Math.floor(spanYears / 4));
+  return Math.max(10, Math.floor(spanYears / 4));
 }
 export const SUB_YEAR_TOLERANCE = 1;
 
