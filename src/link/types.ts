@@ -1,0 +1,45 @@
+// Work-to-work links: the output of the link stage, read by cluster, analyse, rdf and publish.
+
+export type LinkKind = 'same' | 'part' | 'related';
+/** `candidate`: evidence below the proposal threshold (or only unreliable partial matches); never published as a claim. */
+export type LinkStatus = 'confirmed' | 'proposed' | 'rejected' | 'candidate';
+
+export interface Link {
+  /** Work numbers, ordered so that ref(a) < ref(b) (`partnerKey:workId`, code-point order): stable across releases. */
+  a: number;
+  b: number;
+  kind: LinkKind;
+  status: LinkStatus;
+  /** For kind `part`: the work that is the detail (part of the other). */
+  part?: number;
+  /** Image pairs behind the link (all of them, reliable or not). */
+  support: number;
+  /** Image pairs whose overlap reaches `minOverlap`: only these can propose. */
+  reliableSupport: number;
+  /** Best and mean score over reliable matches (0 when none). */
+  best: number;
+  mean: number;
+  /** Largest overlap among reliable matches (decides same vs part). */
+  maxOverlap: number;
+  /** Share of each work's images that appear in the link's matches. */
+  coverageA: number;
+  coverageB: number;
+  /** Run numbers (Model.runs) with at least one match behind the link, ascending. */
+  runs: number[];
+  /** Index into Model.decisions of the deciding row (the latest for the pair), when a curator decided. */
+  decision?: number;
+  /** Row numbers in Model.matches behind the link, in input order. */
+  matches: Int32Array;
+}
+
+export interface LinkSet {
+  /** Every work pair with evidence or a decision, sorted by (ref a, ref b). */
+  links: Link[];
+  /** `a,b` (work numbers, either order) → index in `links`. */
+  byPair: Map<number, number>;
+}
+
+/** Key of an unordered work pair for maps; exact while work numbers stay below 2^26. */
+export function pairKey(a: number, b: number): number {
+  return a < b ? a * 67108864 + b : b * 67108864 + a;
+}

@@ -1,0 +1,262 @@
+// RDF stage: the release view → units of quads (provenance, one per cluster, one per stray link), streamed in a fixed order.
+import type { Quad, NamedNode } from '@rdfjs/types';
+import type { Model } from '../model.js';
+import { workRef } from '../model.js';
+import type { Link } from '../link/types.js';
+import { compileTemplate } from '../load/template.js';
+import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
+import type { ReleaseView } from './view.js';
+
+export type GraphName = 'claims' | 'evidence' | 'provenance' | 'dataset';
+export const GRAPHS: GraphName[] = ['claims', 'evidence', 'provenance', 'dataset'];
+
+/** A self-contained slice of the release: validated together, written together, filed under the partners it touches. */
+export interface Unit {
+  kind: 'provenance' | 'cluster' | 'link' | 'dataset';
+  id: string;
+  quads: Quad[];
+  /** Partner numbers whose records the unit touches; 'all' for shared provenance and the dataset description. */
+  partners: Set<number> | 'all';
+}
+
+/** Claim-triple counts per (subject partner, object partner, predicate), for the VoID linksets. */
+export type LinksetCounts = Map<string, number>;
+
+const a = term('rdf', 'type');
+const T = {
+  Link: term('cx', 'Link'), Entity: term('prov', 'Entity'), ImageMatch: term('cx', 'ImageMatch'), Activity: term('prov', 'Activity'),
+  MatchRun: term('cx', 'MatchRun'), SoftwareAgent: term('prov', 'SoftwareAgent'), Plan: term('prov', 'Plan'), Association: term('prov', 'Association'),
+  Review: term('cx', 'CuratorReview'), Person: term('prov', 'Person'), Cluster: term('cx', 'Cluster'), Implied: term('cx', 'ImpliedPair'), Conflict: term('cx', 'DateConflict'),
+};
+const STATUS = { confirmed: term('cx', 'Confirmed'), proposed: term('cx', 'Proposed'), rejected: term('cx', 'Rejected'), candidate: term('cx', 'Proposed') };
+const KIND = { same: term('cx', 'Same'), part: term('cx', 'Part'), related: term('cx', 'Related') };
+
+/** IRIs of everything the release names, built once from the project and the vocab map patterns. */
+export class Namer {
+  private work: ((w: number) => string)[];
+  private image: ((id: string, work: string) => string)[];
+  private page: (((w: string) => string) | undefined)[];
+  readonly base: string;
+  constructor(private readonly model: Model, readonly patterns: Record<string, string>) {
+    this.base = model.project.base;
+    const ps = model.project.partners;
+    this.work = ps.map((p) => { const f = compileTemplate(p.workIri, 'work'); return (w: number) => f(model.works[w].id); });
+    this.image = ps.map((p) => (id: string, work: string) => compileTemplate(compileTemplate(p.imageIri, 'image')(id), 'work')(work));
+    this.page = ps.map((p) => (p.recordPage ? compileTemplate(p.recordPage, 'work') : undefined));
+  }
+  iri(pattern: string, vars: Record<string, string> = {}): string {
+    return fill(this.patterns[pattern], { base: this.base, ...vars });
+  }
+  workIri = (w: number) => this.work[this.model.works[w].partner](w);
+  imageIri = (img: number) => {
+    const w = this.model.images.work[img];
+    return this.image[this.model.works[w].partner](this.model.images.id[img], this.model.works[w].id);
+  };
+  recordPage = (w: number) => this.page[this.model.works[w].partner]?.(this.model.works[w].id);
+  graph = (g: GraphName) => nn(this.iri('graph', { graph: g }));
+  linkIri = (l: Link) => this.iri('link', { hash: hash(workRef(this.model, l.a), workRef(this.model, l.b)) });
+  runIri = (r: number) => this.iri('run', { run: this.model.runs[r].id });
+  agentIri = (r: number) => this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
+  curatorIri = (c: string) => (/^https?:\/\//.test(c) ? c : this.iri('curator', { name: c.toLowerCase().normalize('NFKD').replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '') }));
+  partnerDataset = (p: number) => this.iri('partnerDataset', { partner: this.model.project.partners[p].key });
+  reviewIri = (d: number) => {
+    const x = this.model.decisions[d];
+    return this.iri('review', { hash: hash(workRef(this.model, x.a), workRef(this.model, x.b), x.curator, x.date, x.verdict) });
+  };
+}
+
+/** Subject and object of a link's claim: the detail is part of the larger work; otherwise the ordered pair. */
+export function claimEnds(l: Link): [number, number] {
+  if (l.kind === 'part' && l.part !== undefined) return l.part === l.a ? [l.a, l.b] : [l.b, l.a];
+  return [l.a, l.b];
+}
+
+/** Links that appear in the release: every status except `candidate`. */
+export const isPublished = (l: Link) => l.status !== 'candidate';
+
+/** Generates the release's units in a fixed order: shared provenance, clusters by ID, then links outside clusters. */
+export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts): Generator<Unit> {
+  const { model, links } = view;
+  const described = new Uint8Array(model.works.length);
+  const matchDone = new Set<string>();
+
+  yield provenanceUnit(view, namer);
+
+  const inCluster = new Uint8Array(links.links.length);
+  for (const c of view.clusters) {
+    const quads: Quad[] = [];
+    const partners = new Set<number>();
+    const claims = inGraph(namer.graph('claims'), quads);
+    const prov = inGraph(namer.graph('provenance'), quads);
+    const cl = nn(namer.iri('cluster', { cluster: c.id }));
+    prov(cl, a, T.Cluster);
+    for (const w of c.members) {
+      prov(cl, term('cx', 'member'), nn(namer.workIri(w)));
+      partners.add(model.works[w].partner);
+      describeWork(w, described, claims, namer, model);
+    }
+    prov(cl, term('cx', 'memberCount'), int(c.members.length));
+    prov(cl, term('cx', 'partnerCount'), int(partners.size));
+    if (c.oversized) prov(cl, term('cx', 'oversized'), bool(true));
+    for (const li of c.bridges) prov(cl, term('cx', 'bridge'), nn(namer.linkIri(links.links[li])));
+    for (const p of c.implied) {
+      const ip = nn(namer.iri('implied', { cluster: c.id, hash: hash(workRef(model, p.a), workRef(model, p.b)) }));
+      prov(cl, term('cx', 'impliedPair'), ip);
+      prov(ip, a, T.Implied);
+      prov(ip, term('cx', 'workA'), nn(namer.workIri(p.a)));
+      prov(ip, term('cx', 'workB'), nn(namer.workIri(p.b)));
+      prov(ip, term('cx', 'throughThirdArchive'), bool(p.throughThirdArchive));
+    }
+    for (const x of c.conflicts) {
+      const dc = nn(namer.iri('conflict', { cluster: c.id, hash: hash(workRef(model, x.a), workRef(model, x.b)) }));
+      prov(cl, term('cx', 'hasDateConflict'), dc);
+      prov(dc, a, T.Conflict);
+      prov(dc, term('cx', 'workA'), nn(namer.workIri(x.a)));
+      prov(dc, term('cx', 'workB'), nn(namer.workIri(x.b)));
+      prov(dc, term('cx', 'severity'), str(x.severity));
+    }
+    for (const li of c.links) {
+      inCluster[li] = 1;
+      const l = links.links[li];
+      if (isPublished(l)) linkQuads(l, view, namer, quads, described, matchDone, counts);
+    }
+    yield { kind: 'cluster', id: c.id, quads, partners };
+  }
+  for (let li = 0; li < links.links.length; li++) {
+    const l = links.links[li];
+    if (inCluster[li] || !isPublished(l)) continue;
+    const quads: Quad[] = [];
+    linkQuads(l, view, namer, quads, described, matchDone, counts);
+    yield { kind: 'link', id: namer.linkIri(l), quads, partners: new Set([model.works[l.a].partner, model.works[l.b].partner]) };
+  }
+}
+
+function describeWork(w: number, described: Uint8Array, emit: ReturnType<typeof inGraph>, namer: Namer, model: Model): void {
+  if (described[w]) return;
+  described[w] = 1;
+  const work = model.works[w];
+  const s = nn(namer.workIri(w));
+  if (work.title) emit(s, term('dcterms', 'title'), str(work.title));
+  if (work.date) emit(s, term('cx', 'dateAsCatalogued'), str(work.date));
+  const page = namer.recordPage(w);
+  if (page) emit(s, term('foaf', 'page'), nn(page));
+  emit(s, term('void', 'inDataset'), nn(namer.partnerDataset(work.partner)));
+  emit(s, term('cx', 'partner'), str(model.project.partners[work.partner].key));
+}
+
+function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string>, counts: LinksetCounts): void {
+  const { model } = view;
+  const claims = inGraph(namer.graph('claims'), quads);
+  const prov = inGraph(namer.graph('provenance'), quads);
+  const ev = inGraph(namer.graph('evidence'), quads);
+  const [s, o] = claimEnds(l);
+  describeWork(s, described, claims, namer, model);
+  describeWork(o, described, claims, namer, model);
+  const predicate = view.vocab.predicate(l.kind, l.status);
+  const S = nn(namer.workIri(s)), O = nn(namer.workIri(o));
+  if (predicate) {
+    claims(S, nn(predicate), O);
+    const key = `${model.works[s].partner}|${model.works[o].partner}|${predicate}`;
+    counts.set(key, (counts.get(key) ?? 0) + 1);
+  }
+  const L = nn(namer.linkIri(l));
+  prov(L, a, T.Link);
+  prov(L, a, T.Entity);
+  prov(L, term('cx', 'subjectWork'), S);
+  prov(L, term('cx', 'objectWork'), O);
+  if (predicate) prov(L, term('cx', 'relation'), nn(predicate));
+  prov(L, term('cx', 'kind'), KIND[l.kind]);
+  prov(L, term('cx', 'status'), STATUS[l.status]);
+  prov(L, term('cx', 'support'), int(l.support));
+  if (l.reliableSupport > 0) {
+    prov(L, term('cx', 'score'), dec(l.best));
+    prov(L, term('cx', 'meanScore'), dec(l.mean));
+  }
+  if (l.support > 0) {
+    prov(L, term('cx', 'coverageSubject'), dec(s === l.a ? l.coverageA : l.coverageB));
+    prov(L, term('cx', 'coverageObject'), dec(s === l.a ? l.coverageB : l.coverageA));
+  }
+  const { matches } = model;
+  for (const r of l.matches) {
+    const ia = matches.a[r], ib = matches.b[r];
+    const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
+    const id = namer.iri('match', { hash: hash(ra, rb, model.runs[matches.run[r]].id) });
+    prov(L, term('prov', 'wasDerivedFrom'), nn(id));
+    if (matchDone.has(id)) continue; // the same image pair reported twice by one run
+    matchDone.add(id);
+    const M = nn(id);
+    ev(M, a, T.ImageMatch);
+    ev(M, a, T.Entity);
+    ev(M, term('cx', 'sourceImage'), nn(ra));
+    ev(M, term('cx', 'targetImage'), nn(rb));
+    ev(M, term('cx', 'score'), dec(matches.score[r]));
+    ev(M, term('cx', 'overlap'), dec(matches.overlap[r]));
+    ev(M, term('prov', 'wasGeneratedBy'), nn(namer.runIri(matches.run[r])));
+  }
+  if (l.decision !== undefined) {
+    prov(L, term('prov', 'wasGeneratedBy'), nn(namer.reviewIri(l.decision)));
+    prov(L, term('prov', 'wasAttributedTo'), nn(namer.curatorIri(model.decisions[l.decision].curator)));
+  } else {
+    for (const r of l.runs) prov(L, term('prov', 'wasGeneratedBy'), nn(namer.runIri(r)));
+    for (const agent of new Set(l.runs.map(namer.agentIri))) prov(L, term('prov', 'wasAttributedTo'), nn(agent));
+  }
+}
+
+/** Runs, software agents, plans, curator reviews and curators: shared by every cluster. */
+function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
+  const { model } = view;
+  const quads: Quad[] = [];
+  const prov = inGraph(namer.graph('provenance'), quads);
+  const agents = new Set<string>();
+  model.runs.forEach((run, r) => {
+    const R = nn(namer.runIri(r));
+    const agent = namer.agentIri(r);
+    const plan = nn(namer.iri('plan', { run: run.id }));
+    const assoc = nn(namer.iri('association', { run: run.id }));
+    prov(R, a, T.Activity);
+    prov(R, a, T.MatchRun);
+    prov(R, term('rdfs', 'label'), str(`${run.software} ${run.version}, run ${run.id}`));
+    prov(R, term('prov', 'startedAtTime'), typed(run.started, 'dateTime'));
+    prov(R, term('prov', 'wasAssociatedWith'), nn(agent));
+    prov(R, term('prov', 'qualifiedAssociation'), assoc);
+    prov(assoc, a, T.Association);
+    prov(assoc, term('prov', 'agent'), nn(agent));
+    prov(assoc, term('prov', 'hadPlan'), plan);
+    prov(plan, a, T.Plan);
+    prov(plan, a, T.Entity);
+    for (const name of Object.keys(run.parameters).sort()) {
+      const P = nn(namer.iri('parameter', { run: run.id, name }));
+      const v = run.parameters[name];
+      prov(plan, term('cx', 'parameter'), P);
+      prov(P, term('cx', 'parameterName'), str(name));
+      prov(P, term('cx', 'parameterValue'), typeof v === 'number' ? (Number.isInteger(v) ? int(v) : dec(v)) : typeof v === 'boolean' ? bool(v) : str(String(v)));
+    }
+    if (!agents.has(agent)) {
+      agents.add(agent);
+      prov(nn(agent), a, T.SoftwareAgent);
+      prov(nn(agent), term('rdfs', 'label'), str(run.software));
+      prov(nn(agent), term('owl', 'versionInfo'), str(run.version));
+    }
+  });
+  const people = new Set<string>();
+  const deciding = new Set(view.links.links.filter(isPublished).map((l) => l.decision).filter((d): d is number => d !== undefined));
+  for (const d of [...deciding].sort((x, y) => x - y)) {
+    const x = model.decisions[d];
+    const R = nn(namer.reviewIri(d));
+    const person = namer.curatorIri(x.curator);
+    prov(R, a, T.Activity);
+    prov(R, a, T.Review);
+    prov(R, term('prov', 'wasAssociatedWith'), nn(person));
+    prov(R, x.date.includes('T') ? term('prov', 'endedAtTime') : term('dcterms', 'date'), when(x.date));
+    prov(R, term('cx', 'verdict'), str(x.verdict));
+    if (x.note) prov(R, term('cx', 'note'), str(x.note));
+    if (!people.has(person)) {
+      people.add(person);
+      prov(nn(person), a, T.Person);
+      if (person !== x.curator) prov(nn(person), term('rdfs', 'label'), str(x.curator));
+    }
+  }
+  return { kind: 'provenance', id: 'provenance', quads, partners: 'all' };
+}
+
+export type { NamedNode };

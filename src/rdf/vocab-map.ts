@@ -1,0 +1,73 @@
+// vocab-map/*.json → the table from claim kind + status to predicate IRI, and the project's IRI patterns.
+import { readFileSync } from 'node:fs';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { z } from 'zod';
+import { UserError } from '../errors.js';
+import type { LinkKind, LinkStatus } from '../link/types.js';
+
+/** The vocab-map folder shipped with the package (repo root / vocab-map). */
+export const DEFAULT_VOCAB_MAP = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'vocab-map', 'claims.json');
+
+const Row = z.strictObject({ kind: z.string(), status: z.string(), predicate: z.string().nullable() });
+const FileSchema = z.strictObject({
+  $comment: z.string().optional(),
+  extends: z.string().optional(),
+  prefixes: z.record(z.string(), z.string()).optional(),
+  claims: z.array(Row),
+  iris: z.record(z.string(), z.string()).optional(),
+});
+
+export interface VocabMap {
+  /** Predicate IRI of the claim triple, or null for none. */
+  predicate(kind: LinkKind, status: LinkStatus): string | null;
+  /** IRI pattern by name, e.g. `link` → `{base}link/{hash}`. */
+  iris: Record<string, string>;
+  /** Every predicate the map can produce (for SHACL sh:in and VoID). */
+  predicates: string[];
+}
+
+function readMapFile(file: string, seen: Set<string>): { prefixes: Record<string, string>; claims: z.infer<typeof Row>[]; iris: Record<string, string> } {
+  if (seen.has(file)) throw new UserError({ file, line: 0, field: 'extends', message: 'vocab map extends itself', hint: 'remove the cycle' });
+  seen.add(file);
+  let raw: unknown;
+  try {
+    raw = JSON.parse(readFileSync(file, 'utf8'));
+  } catch (e) {
+    throw new UserError({ file, line: 0, field: '', message: `cannot read vocab map: ${(e as Error).message}`, hint: 'check the "vocabMap" path in concordance.json' });
+  }
+  const parsed = FileSchema.safeParse(raw);
+  if (!parsed.success) {
+    const i = parsed.error.issues[0];
+    throw new UserError({ file, line: 0, field: i.path.join('.'), message: i.message, hint: 'see vocab-map/claims.json for the format' });
+  }
+  const own = parsed.data;
+  const parent = own.extends ? readMapFile(path.resolve(path.dirname(file), own.extends), seen) : { prefixes: {}, claims: [], iris: {} };
+  return { prefixes: { ...parent.prefixes, ...own.prefixes }, claims: [...own.claims, ...parent.claims], iris: { ...parent.iris, ...own.iris } };
+}
+
+/** Loads a vocab map (rows of the file first, then those of the file it `extends`; first match wins). */
+export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
+  const { prefixes, claims, iris } = readMapFile(path.resolve(file), new Set());
+  const expand = (curie: string) => {
+    const i = curie.indexOf(':');
+    const ns = prefixes[curie.slice(0, i)];
+    if (i < 0 || ns === undefined) {
+      if (/^https?:\/\//.test(curie)) return curie;
+      throw new UserError({ file, line: 0, field: 'claims', message: `unknown prefix in "${curie}"`, hint: 'declare it under "prefixes"' });
+    }
+    return ns + curie.slice(i + 1);
+  };
+  const rows = claims.map((r) => ({ ...r, predicate: r.predicate === null ? null : expand(r.predicate) }));
+  const table = new Map<string, string | null>();
+  for (const k of ['same', 'part', 'related'] as LinkKind[])
+    for (const s of ['confirmed', 'proposed', 'rejected', 'candidate'] as LinkStatus[]) {
+      const row = rows.find((r) => (r.kind === '*' || r.kind === k) && (r.status === '*' || r.status === s));
+      table.set(`${k}/${s}`, s === 'candidate' ? null : row ? row.predicate : null);
+    }
+  return {
+    predicate: (kind, status) => table.get(`${kind}/${status}`) ?? null,
+    iris,
+    predicates: [...new Set([...table.values()].filter((p): p is string => p !== null))].sort(),
+  };
+}
