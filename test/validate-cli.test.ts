@@ -62,6 +62,14 @@ test('JSON-LD input is validated like Turtle', () => {
   assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-5> cx:score: score: one decimal in \[0,1\] \(value "1\.20"\^\^xsd:decimal\)$/m);
 });
 
+test('named graphs of TriG and N-Quads input are validated as one data graph', () => {
+  const r = run('graphs.trig', 'link.nq', '--shapes', 'shapes');
+  assert.equal(r.code, 1);
+  assert.match(r.stdout, /^Does not conform: 1 violation, 1 warning, 0 infos\.$/m);
+  assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-7> cx:subjectWork: a link names exactly one subject work \(value "not an IRI"\)$/m);
+  assert.match(r.stdout, /^ {2}Warning: <https:\/\/concordance\.example\.org\/link-6> prov:wasDerivedFrom: /m);
+});
+
 test('several files are merged into one data graph', () => {
   const r = run('conforming.ttl', 'warning-only.ttl', '--shapes', 'shapes');
   assert.equal(r.code, 0);

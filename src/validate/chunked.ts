@@ -91,7 +91,8 @@ export async function validateChunks(
   let failure: unknown = null;
   let batch: Quad[] = [];
 
-  const inProcess = async (quads: Quad[]) => merger.add(await compileShapes(shapes, options).rows(quads));
+  let local: ReturnType<typeof compileShapes> | null = null;
+  const inProcess = async (quads: Quad[]) => merger.add(await (local ??= compileShapes(shapes, options)).rows(quads));
   const dispatch = async (quads: Quad[]) => {
     if (workers === 0) return inProcess(quads);
     pool ??= new Pool(workers, { shapes: encodeQuads(shapes), options });
