@@ -1,0 +1,81 @@
+// Work links → clusters (connected components over same claims) with diagnostics and stable IDs (design, step 3).
+import type { Model } from '../model.js';
+import { workRef } from '../model.js';
+import { isClaim } from '../link/index.js';
+import type { LinkSet } from '../link/types.js';
+import { adjacency } from './graph.js';
+import { findBridges } from './bridges.js';
+import { impliedPairs } from './implied.js';
+import { assignIds, clusterIdNumber } from './ids.js';
+import { UnionFind } from './union-find.js';
+import type { Cluster, ClusterOptions, ClusterRegistry, Clustering } from './types.js';
+
+export type { Cluster, ClusterOptions, ClusterRegistry, Clustering, ImpliedPairs, RetiredId } from './types.js';
+export { readClusterRegistry, writeClusterRegistry, registryOf, CLUSTERS_CSV_HEADER } from './registry.js';
+export { formatClusterId } from './ids.js';
+
+/**
+ * One artwork has about one record per archive, so a cluster with more than twice as many members as there are
+ * partners is suspect (common practice, no source).
+ */
+export const OVERSIZE_PER_PARTNER = 2;
+/** Largest cluster whose member pairs are listed one by one (implied pairs, date conflicts). */
+export const PAIRWISE_LIMIT = 1000;
+
+const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
+
+/**
+ * Clusters = connected components of ≥ 2 works over `same` links that are confirmed or proposed (design, pipeline
+ * step 3), found by union-find over work numbers in typed arrays. Diagnostics: implied pairs, bridges (Tarjan 1974),
+ * oversized clusters. IDs stay stable against `previous` (see assignIds; standards digest §9).
+ */
+export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegistry, options: ClusterOptions = {}): Clustering {
+  const n = model.works.length;
+  const links = linkSet.links;
+  const sameEdges: number[] = [];
+  links.forEach((l, i) => { if (l.kind === 'same' && isClaim(l)) sameEdges.push(i); });
+  const uf = new UnionFind(n);
+  for (const e of sameEdges) uf.union(links[e].a, links[e].b);
+
+  // group works by root: temp index per root, then member and link lists by counting
+  const tempOf = new Int32Array(n).fill(-1);
+  const memberCount: number[] = [];
+  const inEdge = new Uint8Array(n);
+  for (const e of sameEdges) inEdge[links[e].a] = inEdge[links[e].b] = 1;
+  for (let w = 0; w < n; w++) {
+    if (!inEdge[w]) continue;
+    const r = uf.find(w);
+    if (tempOf[r] === -1) { tempOf[r] = memberCount.length; memberCount.push(0); }
+    memberCount[tempOf[r]]++;
+  }
+  const t = memberCount.length;
+  const members = memberCount.map((c) => new Int32Array(c));
+  const fill = new Int32Array(t);
+  for (let w = 0; w < n; w++) if (inEdge[w]) { const ti = tempOf[uf.find(w)]; members[ti][fill[ti]++] = w; }
+  const edgeLists: number[][] = members.map(() => []);
+  for (const e of sameEdges) edgeLists[tempOf[uf.find(links[e].a)]].push(e);
+
+  const refs = new Map<number, string>();
+  for (const m of members) for (const w of m) refs.set(w, workRef(model, w));
+  for (const m of members) m.sort((x, y) => cmp(refs.get(x)!, refs.get(y)!));
+  const order = [...members.keys()].sort((x, y) => cmp(refs.get(members[x][0])!, refs.get(members[y][0])!));
+
+  const { ids, retired } = assignIds(order.map((ti) => Array.from(members[ti], (w) => refs.get(w)!)), previous);
+  const oversizeAt = options.oversizeAt ?? OVERSIZE_PER_PARTNER * model.project.partners.length;
+  const clusters: Cluster[] = order.map((ti, k) => ({
+    id: ids[k],
+    members: members[ti],
+    links: Int32Array.from(edgeLists[ti]),
+    partners: [...new Set(Array.from(members[ti], (w) => model.works[w].partner))].sort((x, y) => x - y),
+    oversized: members[ti].length > oversizeAt,
+  }));
+  clusters.sort((x, y) => clusterIdNumber(x.id)! - clusterIdNumber(y.id)!);
+
+  const clusterOf = new Int32Array(n).fill(-1);
+  clusters.forEach((c, ci) => c.members.forEach((w) => (clusterOf[w] = ci)));
+  const g = adjacency(n, sameEdges, (e) => links[e].a, (e) => links[e].b);
+  const bridges = findBridges(n, g);
+  const pairwiseLimit = options.pairwiseLimit ?? PAIRWISE_LIMIT;
+  const { implied, total } = impliedPairs(model, linkSet, clusters, pairwiseLimit);
+  return { clusters, clusterOf, implied, impliedTotal: total, bridges, oversizeAt, pairwiseLimit, retired };
+}

@@ -1,0 +1,79 @@
+// Rows of strings → RFC 4180 CSV files (LF, UTF-8 without BOM), streamed in chunks and renamed into place at the end.
+import { createWriteStream, renameSync, rmSync } from 'node:fs';
+import { once } from 'node:events';
+
+const NEEDS_QUOTES = /[",\r\n]/;
+/** First characters a spreadsheet reads as the start of a formula. */
+const FORMULA_START = /^[=+\-@]/;
+
+/** One field: quoted when it holds a comma, quote, CR or LF; inner quotes doubled (RFC 4180 §2.6, §2.7). */
+export function csvCell(value: string): string {
+  return NEEDS_QUOTES.test(value) ? `"${value.replace(/"/g, '""')}"` : value;
+}
+
+/**
+ * Prefixes `'` to a cell that starts with `=`, `+`, `-` or `@`, so a spreadsheet shows it as text instead of
+ * evaluating it (formula injection; common practice, no source).
+ */
+export function neutralise(value: string): string {
+  return FORMULA_START.test(value) ? `'${value}` : value;
+}
+
+/** One record with its LF line end. `neutral[i]` true → cell i is neutralised before quoting. */
+export function csvLine(cells: readonly string[], neutral?: readonly boolean[]): string {
+  let out = '';
+  for (let i = 0; i < cells.length; i++) {
+    if (i > 0) out += ',';
+    out += csvCell(neutral?.[i] ? neutralise(cells[i]) : cells[i]);
+  }
+  return out + '\n';
+}
+
+const CHUNK = 1 << 16;
+
+/**
+ * Writes a CSV file atomically: records go to `<file>.tmp` in 64 KiB chunks (never one big string) and the file is
+ * renamed into place by `close()`. `neutral` marks the columns that are neutralised (see `neutralise`).
+ */
+export class CsvFile {
+  private readonly stream;
+  private buffer = '';
+  private readonly temp: string;
+  constructor(private readonly file: string, header: readonly string[], private readonly neutral?: readonly boolean[]) {
+    this.temp = `${file}.tmp`;
+    this.stream = createWriteStream(this.temp, { encoding: 'utf8' });
+    this.buffer = csvLine(header);
+  }
+
+  async row(cells: readonly string[]): Promise<void> {
+    this.buffer += csvLine(cells, this.neutral);
+    if (this.buffer.length >= CHUNK) await this.flush();
+  }
+
+  private async flush(): Promise<void> {
+    const chunk = this.buffer;
+    this.buffer = '';
+    if (chunk && !this.stream.write(chunk)) await once(this.stream, 'drain');
+  }
+
+  /** Flushes, closes and renames the file into place; returns its path. */
+  async close(): Promise<string> {
+    try {
+      await this.flush();
+      this.stream.end();
+      await once(this.stream, 'finish');
+    } catch (e) {
+      rmSync(this.temp, { force: true });
+      throw e;
+    }
+    renameSync(this.temp, this.file);
+    return this.file;
+  }
+}
+
+/** Writes a whole table (header + rows) with `CsvFile`. */
+export async function writeCsv(file: string, header: readonly string[], rows: Iterable<readonly string[]>, neutral?: readonly boolean[]): Promise<string> {
+  const out = new CsvFile(file, header, neutral);
+  for (const r of rows) await out.row(r);
+  return out.close();
+}
