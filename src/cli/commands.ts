@@ -2,7 +2,10 @@
 import type { Command } from 'commander';
 import { register as check } from './check.js';
 import { register as validate } from './validate.js';
+import { register as load } from './load.js';
+import { register as query } from './query.js';
+import { register as build } from './build.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, validate];
+export const commands: Register[] = [check, build, validate, load, query];

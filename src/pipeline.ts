@@ -1,0 +1,88 @@
+// The whole flow, top to bottom: load → link → cluster → analyse → rdf → validate → publish.
+import path from 'node:path';
+import { existsSync } from 'node:fs';
+import type { Quad } from '@rdfjs/types';
+import { load, type LoadStats } from './load/index.js';
+import { link } from './link/index.js';
+import type { LinkSet } from './link/types.js';
+import { cluster, readClusterRegistry, writeClusterRegistry, type Clustering } from './cluster/index.js';
+import { loadVocabMap } from './rdf/vocab-map.js';
+import type { ClusterView, ReleaseView } from './rdf/view.js';
+import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
+import { writeFolderAtomically } from './publish/atomic.js';
+import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
+import { UserError, EXIT } from './errors.js';
+import type { Model } from './model.js';
+import { fill } from './rdf/terms.js';
+
+export interface BuildOptions {
+  shapesDir?: string;
+  workers?: number;
+  /** Progress lines (stage names) for a terminal; silent when undefined. */
+  progress?: (stage: string) => void;
+}
+
+export interface BuildResult {
+  outDir: string;
+  model: Model;
+  stats: LoadStats;
+  links: LinkSet;
+  clustering: Clustering;
+  publish: PublishResult;
+}
+
+/** Link, cluster and per-cluster views: the part of the pipeline that needs no output folder. */
+export async function derive(model: Model): Promise<{ links: LinkSet; clustering: Clustering }> {
+  const links = link(model);
+  const previous = model.project.previous ? await readClusterRegistry(registryFile(model.project.previous)) : undefined;
+  const clustering = cluster(model, links, previous);
+  return { links, clustering };
+}
+
+function registryFile(previous: string): string {
+  const f = path.join(previous, 'clusters.csv');
+  if (!existsSync(f)) throw new UserError({ file: f, line: 0, field: 'previous', message: 'the previous release has no clusters.csv', hint: '"previous" must name the folder of an earlier release built by concordat' });
+  return f;
+}
+
+/** Clustering (columns) → what the RDF stage reads per cluster. */
+export function clusterViews(clustering: Clustering): ClusterView[] {
+  const views: ClusterView[] = clustering.clusters.map((c) => ({
+    id: c.id, members: Array.from(c.members), links: Array.from(c.links), bridges: [], implied: [], conflicts: [], oversized: c.oversized,
+  }));
+  const bridgeSet = new Set(clustering.bridges);
+  for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
+  const im = clustering.implied;
+  for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
+  return views;
+}
+
+/**
+ * Builds a release into `outDir` (design, "Outputs"): written into a temporary folder and renamed at the end;
+ * any sh:Violation fails the build with exit 1 and nothing is published.
+ */
+export async function build(projectFile: string, outDir: string, opts: BuildOptions = {}): Promise<BuildResult> {
+  const say = opts.progress ?? (() => undefined);
+  say('load');
+  const { model, stats } = await load(projectFile);
+  say('link and cluster');
+  const { links, clustering } = await derive(model);
+  const vocab = loadVocabMap(model.project.vocabMap);
+  const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
+  const view: ReleaseView = { model, links, clusters: clusterViews(clustering), retired: clustering.retired, vocab };
+  const previousVersion = model.project.previous ? fill(vocab.iris.dataset, { base: model.project.base }) + '/previous' : undefined;
+  return writeFolderAtomically(outDir, async (dir) => {
+    say('rdf, validate, publish');
+    const publish = await publishRdf(dir, view, { shapes, previousVersion, workers: opts.workers });
+    if (!publish.validation.conforms) {
+      const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
+      throw new UserError(
+        first.map((r) => ({ file: 'release', line: 0, field: r.focusNode, message: r.messages[0] ?? r.component, hint: `shape ${r.sourceShape}` })),
+        EXIT.failure,
+      );
+    }
+    await writeClusterRegistry(path.join(dir, 'clusters.csv'), model, clustering);
+    await writeChecksums(dir);
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, publish };
+  });
+}

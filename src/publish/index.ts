@@ -1,0 +1,84 @@
+// Publish stage: release view → RDF files (whole and per partner), SHACL-validated chunk by chunk, plus checksums.
+import { createHash } from 'node:crypto';
+import { createReadStream } from 'node:fs';
+import { readdir, writeFile } from 'node:fs/promises';
+import path from 'node:path';
+import type { Quad } from '@rdfjs/types';
+import { releaseUnits, Namer, type LinksetCounts, type Unit } from '../rdf/index.js';
+import { datasetUnit } from '../rdf/dataset.js';
+import type { ReleaseView } from '../rdf/view.js';
+import { writeQuads } from '../rdf/serialize.js';
+import { validateChunks, writeValidationReport } from '../validate/chunked.js';
+import type { ValidationOutcome } from '../validate/shacl.js';
+import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
+
+export interface PublishOptions {
+  shapes: Quad[];
+  /** IRI of the previous release's dataset (dcat:previousVersion). */
+  previousVersion?: string;
+  /** Extra units appended before the dataset description (e.g. changes against the previous release). */
+  extraUnits?: Unit[];
+  workers?: number;
+}
+
+export interface PublishResult {
+  triples: number;
+  /** Claim triples per predicate IRI. */
+  claims: Record<string, number>;
+  validation: ValidationOutcome;
+}
+
+/**
+ * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld}, dataset.ttl and validation.ttl into `dir`
+ * (design, "Outputs"), validating each unit with the shared provenance it points to (SHACL per chunk keeps memory flat).
+ */
+export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOptions): Promise<PublishResult> {
+  const namer = new Namer(view.model, view.vocab.iris);
+  const counts: LinksetCounts = new Map();
+  const writer = new ReleaseWriter(dir, view.model.project.partners.map((p) => p.key));
+  let typeIndex = new Map<string, Quad[]>();
+  let datasetQuads: Quad[] = [];
+  async function* chunks(): AsyncGenerator<Quad[]> {
+    for (const unit of releaseUnits(view, namer, counts)) {
+      if (unit.kind === 'provenance') typeIndex = typeIndexOf(unit);
+      await writer.add(unit);
+      yield chunkOf(unit, typeIndex);
+    }
+    for (const unit of opts.extraUnits ?? []) {
+      await writer.add(unit);
+      yield chunkOf(unit, typeIndex);
+    }
+    const ds = datasetUnit(view.model, namer, counts, opts.previousVersion);
+    datasetQuads = ds.quads;
+    await writer.add(ds);
+    yield ds.quads;
+  }
+  const validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, shapesLabel: 'shapes' });
+  await writer.close();
+  await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
+  await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
+  const claims: Record<string, number> = {};
+  for (const [key, n] of counts) {
+    const p = key.split('|')[2];
+    claims[p] = (claims[p] ?? 0) + n;
+  }
+  return { triples: writer.triples, claims, validation };
+}
+
+async function sha256(file: string): Promise<string> {
+  const h = createHash('sha256');
+  for await (const chunk of createReadStream(file)) h.update(chunk as Buffer);
+  return h.digest('hex');
+}
+
+/** Writes SHA256SUMS (the `sha256sum` text format: hash, two spaces, path) over every file of the folder, sorted. */
+export async function writeChecksums(dir: string): Promise<void> {
+  const files = (await readdir(dir, { recursive: true, withFileTypes: true }))
+    .filter((d) => d.isFile())
+    .map((d) => path.relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name)).split(path.sep).join('/'))
+    .filter((f) => f !== 'SHA256SUMS')
+    .sort();
+  const lines: string[] = [];
+  for (const f of files) lines.push(`${await sha256(path.join(dir, f))}  ${f}`);
+  await writeFile(path.join(dir, 'SHA256SUMS'), lines.join('\n') + '\n');
+}
