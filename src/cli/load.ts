@@ -1,0 +1,49 @@
+// `concordat load <release>`: a release folder → graphs in a store folder or a remote SPARQL store.
+import type { Command } from 'commander';
+import { openStore } from '../store/open.js';
+import { loadPlanned, planRelease } from '../store/release.js';
+
+interface LoadOpts {
+  store?: string;
+  endpoint?: string;
+  update?: string;
+  query?: string;
+  graph?: string;
+  partner?: string;
+  json?: boolean;
+}
+
+export function register(program: Command): void {
+  program
+    .command('load')
+    .description('load a release into a store: each named graph of concordance.nq under its own IRI, a partner slice, or everything into one graph')
+    .argument('<release>', 'a release folder, e.g. releases/2026.1')
+    .option('--store <folder>', 'embedded store folder (created if missing; one N-Quads file per graph + manifest.json)')
+    .option('--endpoint <url>', 'remote SPARQL 1.1 Graph Store Protocol URL')
+    .option('--update <url>', 'remote SPARQL 1.1 Update URL')
+    .option('--query <url>', 'remote SPARQL 1.1 Query URL')
+    .option('--graph <iri>', 'load all statements (graph names dropped) into this one graph')
+    .option('--partner <key>', 'load partners/<key>.nq into --graph or {base}graph/partner/<key>')
+    .option('--json', 'print what was loaded as JSON on stdout')
+    .addHelpText(
+      'after',
+      '\nExamples:\n  concordat load releases/2026.1 --store store/\n' +
+        '  concordat load releases/2026.1 --partner harbour --endpoint http://127.0.0.1:8890/sparql-graph-crud-auth \\\n' +
+        '      --update http://127.0.0.1:8890/sparql-auth --query http://127.0.0.1:8890/sparql\n\n' +
+        'Credentials for a remote store: CONCORDAT_STORE_USER and CONCORDAT_STORE_PASSWORD, or a netrc entry ($NETRC or ~/.netrc).\n' +
+        'A graph is replaced all or nothing. Exit codes: 0 loaded, 1 the store refused or failed (target graph unchanged), 2 bad input.',
+    )
+    .action(async (release: string, opts: LoadOpts) => {
+      const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.query });
+      try {
+        const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
+        const t0 = performance.now();
+        const done = await loadPlanned(store, plan);
+        const graphs = done.map((d) => ({ graph: d.graph, triples: d.triples }));
+        process.stdout.write(opts.json ? JSON.stringify({ release, graphs }, null, 2) + '\n' : graphs.map((g) => `${g.graph}\t${g.triples}\n`).join(''));
+        if (process.stderr.isTTY) process.stderr.write(`loaded ${done.length} graph(s) in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
+      } finally {
+        await store.close();
+      }
+    });
+}

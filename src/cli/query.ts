@@ -1,0 +1,42 @@
+// `concordat query`: SPARQL text, a .rq file or a named query → results as a table, SPARQL JSON, CSV, TSV or N-Triples.
+import { Option, type Command } from 'commander';
+import { formatResult, type ResultFormat } from '../store/format.js';
+import { openStore, parseParams, queryText } from '../store/open.js';
+
+interface QueryOpts {
+  store?: string;
+  queryEndpoint?: string;
+  named?: string;
+  param: string[];
+  format?: ResultFormat;
+}
+
+export function register(program: Command): void {
+  program
+    .command('query')
+    .description('run a SPARQL query (text, a .rq file, or a named query from queries/) against a store')
+    .argument('[query]', 'SPARQL text or a .rq file')
+    .option('--store <folder>', 'embedded store folder written by concordat load')
+    .option('--query-endpoint <url>', 'remote SPARQL 1.1 Query URL')
+    .option('--named <name>', 'a query shipped in queries/, e.g. cluster-members')
+    .option('--param <key=value>', 'value for a parameter the query header declares (repeatable)', (v: string, all: string[]) => [...all, v], [] as string[])
+    .addOption(new Option('--format <format>', 'SELECT output: aligned table (default on a terminal), SPARQL JSON, CSV or TSV (default otherwise)').choices(['table', 'json', 'csv', 'tsv']))
+    .addHelpText(
+      'after',
+      '\nExamples:\n  concordat query --store store/ --named cluster-members --param cluster=https://concordance.example.org/work/1\n' +
+        "  concordat query --query-endpoint http://127.0.0.1:8890/sparql 'ASK { ?s ?p ?o }'\n\n" +
+        'ASK prints true or false (exit 0 either way); CONSTRUCT and DESCRIBE print N-Triples.\n' +
+        'Parameters are bound as escaped terms, never pasted as text. Exit codes: 0 ran, 1 the store failed, 2 bad query or usage.',
+    )
+    .action(async (arg: string | undefined, opts: QueryOpts) => {
+      const sparql = await queryText(arg, opts.named, parseParams(opts.param));
+      const store = await openStore({ store: opts.store, query: opts.queryEndpoint });
+      try {
+        const result = await store.query(sparql);
+        const format = opts.format ?? (process.stdout.isTTY ? 'table' : 'tsv');
+        process.stdout.write(formatResult(result, format));
+      } finally {
+        await store.close();
+      }
+    });
+}

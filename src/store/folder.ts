@@ -1,0 +1,81 @@
+// A store folder on disk: one N-Quads file per graph plus manifest.json, written atomically (temp file, rename, manifest last).
+import { createHash, randomBytes } from 'node:crypto';
+import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { z } from 'zod';
+import { UserError, EXIT } from '../errors.js';
+
+/** What the manifest records for one graph. */
+export interface ManifestEntry {
+  /** Path of the graph's N-Quads file, relative to the folder. */
+  file: string;
+  triples: number;
+  sha256: string;
+  /** The release's own date (its dcterms:issued), never the clock; null when the release has none. */
+  loadedAt: string | null;
+  /** The file the graph was loaded from, as given on the command line. */
+  source: string;
+}
+
+const ManifestSchema = z.object({
+  version: z.literal(1),
+  graphs: z.record(
+    z.string(),
+    z.object({ file: z.string().regex(/^graphs\/[0-9a-f-]+\.nq$/), triples: z.number().int().nonnegative(), sha256: z.string().regex(/^[0-9a-f]{64}$/), loadedAt: z.string().nullable(), source: z.string() }),
+  ),
+});
+
+/** The manifest: graph IRI → entry. */
+export type Manifest = z.infer<typeof ManifestSchema>;
+
+export const MANIFEST = 'manifest.json';
+
+/** sha256 hex of a text's UTF-8 bytes. */
+export const sha256 = (data: string | Buffer): string => createHash('sha256').update(data).digest('hex');
+
+/** Writes a file atomically: a temp file beside it, then rename (POSIX rename(2) replaces the target in one step). */
+export async function writeAtomic(path: string, data: string): Promise<void> {
+  const tmp = `${path}.tmp-${randomBytes(6).toString('hex')}`;
+  try {
+    await writeFile(tmp, data);
+    await rename(tmp, path);
+  } catch (err) {
+    await rm(tmp, { force: true });
+    throw err;
+  }
+}
+
+/** Reads and checks manifest.json; a folder without one is an empty store. */
+export async function readManifest(folder: string): Promise<Manifest> {
+  let text: string;
+  try {
+    text = await readFile(join(folder, MANIFEST), 'utf8');
+  } catch (err) {
+    if ((err as NodeJS.ErrnoException).code === 'ENOENT') return { version: 1, graphs: {} };
+    throw err;
+  }
+  const parsed = (() => {
+    try { return ManifestSchema.safeParse(JSON.parse(text)); } catch { return null; }
+  })();
+  if (!parsed?.success) {
+    const issue = parsed?.error.issues[0];
+    throw new UserError({ file: join(folder, MANIFEST), line: 0, field: issue ? issue.path.join('.') : '', message: issue ? issue.message : 'not valid JSON', hint: 'the store folder is damaged; load the release into a new folder' }, EXIT.badInput);
+  }
+  return parsed.data;
+}
+
+/** Writes the manifest with graphs in sorted order, so the same loads give byte-identical files. */
+export async function writeManifest(folder: string, m: Manifest): Promise<void> {
+  const graphs = Object.fromEntries(Object.keys(m.graphs).sort().map((g) => [g, m.graphs[g]]));
+  await writeAtomic(join(folder, MANIFEST), JSON.stringify({ version: 1, graphs }, null, 2) + '\n');
+}
+
+/** File name for a graph's content: graph hash + content hash, so a new version never overwrites the file the manifest names. */
+export function graphFileName(graph: string, contentSha: string): string {
+  return `graphs/${sha256(graph).slice(0, 16)}-${contentSha.slice(0, 16)}.nq`;
+}
+
+/** Makes sure the folder and its graphs/ subfolder exist. */
+export async function ensureFolder(folder: string): Promise<void> {
+  await mkdir(join(folder, 'graphs'), { recursive: true });
+}
