@@ -82,9 +82,13 @@ export const ProjectSchema = z.strictObject({
 function keysAt(pathParts: PropertyKey[]): string[] {
   // eslint-disable-next-line @typescript-eslint/no-explicit-any
   let s: any = ProjectSchema;
+  const wrappers = new Set(['optional', 'default', 'nullable', 'prefault', 'readonly', 'catch']);
   const unwrap = () => {
-    while (s && typeof s.unwrap === 'function' && !s.shape) s = s.unwrap();
-    if (s?.def?.type === 'pipe') s = s.def.in;
+    for (;;) {
+      if (s && wrappers.has(s.def?.type)) s = s.def.innerType;
+      else if (s?.def?.type === 'pipe') s = s.def.in;
+      else return;
+    }
   };
   for (const p of pathParts) {
     unwrap();
