@@ -127,8 +127,13 @@ test('bridges: the tail of a triangle is a bridge, the triangle edges are not', 
   });
   const ls = link(m);
   const c = cluster(m, ls);
-  const bridges = Array.from(c.bridges, (i) => `${workRef(m, ls.links[i].a)}–${workRef(m, ls.links[i].b)}`).sort();
-  assert.deepEqual(bridges, ['a:2–b:2', 'a:2–c:1']);
+  const bridges = Array.from(c.bridges, (i, k) => `${workRef(m, ls.links[i].a)}–${workRef(m, ls.links[i].b)} ${c.bridgeMinSide[k]}`).sort();
+  assert.deepEqual(bridges, ['a:2–b:2 1', 'a:2–c:1 2'], 'a:2–c:1 joins {a:2, b:2} to the triangle: smaller side 2');
+});
+
+test('bridges: the one link of a two-work cluster is not listed', () => {
+  const m = tinyModel({ partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', 0.9]] });
+  assert.equal(cluster(m, link(m)).bridges.length, 0);
 });
 
 test('bridges on a path of 60 000 works: every edge, no call-stack overflow', () => {
@@ -139,6 +144,7 @@ test('bridges on a path of 60 000 works: every edge, no call-stack overflow', ()
   const c = cluster(m, link(m));
   assert.equal(c.clusters.length, 1);
   assert.equal(c.bridges.length, n - 1);
+  assert.equal(Math.max(...c.bridgeMinSide), n / 2, 'the middle link halves the path');
   assert.equal(c.clusters[0].oversized, true);
   assert.equal(c.implied.count, 0, 'too large to list pairwise');
   assert.equal(c.impliedTotal, (n * (n - 1)) / 2 - (n - 1));
@@ -295,8 +301,13 @@ test('bridges, implied pairs and "through a third archive" equal brute force on 
       return label;
     };
     const all = componentsWithout(-1);
-    const bridges = edges.filter(([l, i]) => componentsWithout(i).get(l.a) !== componentsWithout(i).get(l.b)).map(([, i]) => i);
-    assert.deepEqual(Array.from(c.bridges), bridges);
+    const bridges: string[] = [];
+    for (const [l, i] of edges) {
+      const without = componentsWithout(i);
+      const size = (label: Map<number, number>, w: number) => [...label.values()].filter((x) => x === label.get(w)).length;
+      if (without.get(l.a) !== without.get(l.b) && size(all, l.a) >= 3) bridges.push(`${i} ${Math.min(size(without, l.a), size(without, l.b))}`);
+    }
+    assert.deepEqual(Array.from(c.bridges, (i, k) => `${i} ${c.bridgeMinSide[k]}`), bridges);
 
     const expected: string[] = [];
     for (const k of c.clusters) {

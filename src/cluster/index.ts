@@ -26,8 +26,8 @@ const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
 /**
  * Clusters = connected components of ≥ 2 works over `same` links that are confirmed or proposed (design, pipeline
- * step 3), found by union-find over work numbers in typed arrays. Diagnostics: implied pairs, bridges (Tarjan 1974),
- * oversized clusters. IDs stay stable against `previous` (see assignIds; standards digest §9).
+ * step 3), found by union-find over work numbers in typed arrays. Diagnostics: implied pairs, bridges (Tarjan 1974)
+ * in clusters of three or more works with the size of their smaller side, oversized clusters. IDs stay stable against `previous` (see assignIds; standards digest §9).
  */
 export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegistry, options: ClusterOptions = {}): Clustering {
   const n = model.works.length;
@@ -74,8 +74,12 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   const clusterOf = new Int32Array(n).fill(-1);
   clusters.forEach((c, ci) => c.members.forEach((w) => (clusterOf[w] = ci)));
   const g = adjacency(n, sameEdges, (e) => links[e].a, (e) => links[e].b);
-  const bridges = findBridges(n, g);
+  // the one link of a two-work cluster is trivially a bridge: only links of larger clusters are listed
+  const found = findBridges(n, g);
+  const keep = Array.from(found.edges.keys()).filter((i) => found.component[i] >= 3);
+  const bridges = Int32Array.from(keep, (i) => found.edges[i]);
+  const bridgeMinSide = Int32Array.from(keep, (i) => found.minSide[i]);
   const pairwiseLimit = options.pairwiseLimit ?? PAIRWISE_LIMIT;
   const { implied, total } = impliedPairs(model, linkSet, clusters, pairwiseLimit);
-  return { clusters, clusterOf, implied, impliedTotal: total, bridges, oversizeAt, pairwiseLimit, retired };
+  return { clusters, clusterOf, implied, impliedTotal: total, bridges, bridgeMinSide, oversizeAt, pairwiseLimit, retired };
 }

@@ -56,8 +56,13 @@ export interface Clustering {
   implied: ImpliedPairs;
   /** Implied pairs in every cluster, including those too large to list (see pairwiseLimit). */
   impliedTotal: number;
-  /** Indexes into LinkSet.links of the links whose removal splits their cluster, ascending. */
+  /**
+   * Indexes into LinkSet.links of the links whose removal splits their cluster, ascending; only in clusters of three
+   * or more works (the one link of a pair is trivially a bridge and is not listed).
+   */
   bridges: Int32Array;
+  /** Parallel to `bridges`: works on the smaller side. ≥ 2 means the link joins two groups that would each stay a cluster. */
+  bridgeMinSide: Int32Array;
   oversizeAt: number;
   pairwiseLimit: number;
   /** Every retired ID: tombstones carried from the previous registry and the ones retired now; sorted by ID. */
