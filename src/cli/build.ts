@@ -1,8 +1,6 @@
 // `concordat build <project> --out <folder>`: the whole pipeline into a new release folder.
 import type { Command } from 'commander';
-import { build } from '../pipeline.js';
 import { displayPath } from '../errors.js';
-import { releaseSummary, releaseSummaryText } from '../publish/summary.js';
 
 export function register(program: Command): void {
   program
@@ -15,6 +13,8 @@ export function register(program: Command): void {
     .addHelpText('after', '\nExample:\n  concordat build demo-data/concordance.json --out releases/2026.1\n\nExit codes: 0 built, 1 the release does not conform to the shapes (nothing written), 2 bad input or the folder exists.')
     .action(async (project: string, opts: { out: string; shapes?: string; json?: boolean }) => {
       const progress = process.stderr.isTTY ? (s: string) => process.stderr.write(`concordat: ${s}…\n`) : undefined;
+      const { build } = await import('../pipeline.js'); // loaded on use: keeps --help fast
+      const { releaseSummary, releaseSummaryText } = await import('../publish/summary.js');
       const r = await build(project, opts.out, { shapesDir: opts.shapes, progress });
       const s = releaseSummary(r);
       process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : releaseSummaryText(s, displayPath(r.outDir)));

@@ -1,7 +1,5 @@
 // `concordat check <project>`: load every input, print a summary; exit 0 clean, 2 bad input.
 import type { Command } from 'commander';
-import { load } from '../load/index.js';
-import { summarise, summaryText } from '../load/summary.js';
 
 export function register(program: Command): void {
   program
@@ -11,6 +9,8 @@ export function register(program: Command): void {
     .option('--json', 'print the summary as JSON on stdout')
     .addHelpText('after', '\nExample:\n  concordat check demo-data/concordance.json\n\nExit codes: 0 clean (warnings allowed), 2 bad input (each problem as file:line: field: message (hint)).')
     .action(async (project: string, opts: { json?: boolean }) => {
+      const { load } = await import('../load/index.js'); // loaded on use: keeps --help fast
+      const { summarise, summaryText } = await import('../load/summary.js');
       const { model, stats } = await load(project);
       const summary = summarise(model, stats);
       process.stdout.write(opts.json ? JSON.stringify(summary, null, 2) + '\n' : summaryText(summary));
