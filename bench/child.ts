@@ -1,0 +1,42 @@
+// One measured job per process (build, whole-graph SHACL, load alone) → one JSON line on stdout with time and peak RSS.
+import { performance } from 'node:perf_hooks';
+import { build } from '../src/pipeline.js';
+import { load } from '../src/load/index.js';
+import { validate } from '../src/validate/shacl.js';
+import { loadDataFiles, loadShapesFolder, defaultShapesDir } from '../src/validate/files.js';
+
+type Job = (args: string[]) => Promise<Record<string, number>>;
+
+/** The jobs a benchmark child can run, by name. */
+const JOBS: Record<string, Job> = {
+  /** build <project> <outDir> <1|0 validate> */
+  async build([project, out, v]) {
+    const t = performance.now();
+    const r = await build(project, out, { validate: v !== '0' });
+    return { ms: performance.now() - t, triples: r.publish.triples, evidenceRows: r.stats.evidenceRows, links: r.links.links.length, clusters: r.clustering.clusters.length, violations: r.publish.validation.violations };
+  },
+  /** whole <file.nq>: the release in one N3.Store, validated at once with the shipped shapes. */
+  async whole([file]) {
+    const shapes = (await loadShapesFolder(defaultShapesDir())).quads;
+    const t0 = performance.now();
+    const store = await loadDataFiles([file]);
+    const t1 = performance.now();
+    const outcome = await validate(store, shapes);
+    return { loadMs: t1 - t0, validateMs: performance.now() - t1, triples: store.size, violations: outcome.violations };
+  },
+  /** load <project>: the load stage alone. */
+  async load([project]) {
+    const t = performance.now();
+    const { model, stats } = await load(project);
+    return { ms: performance.now() - t, evidenceRows: stats.evidenceRows, works: model.works.length, images: model.images.count };
+  },
+};
+
+const [name, ...args] = process.argv.slice(2);
+const job = JOBS[name];
+if (!job) {
+  process.stderr.write(`unknown job "${name}"; known: ${Object.keys(JOBS).join(', ')}\n`);
+  process.exit(2);
+}
+const result = await job(args);
+process.stdout.write(JSON.stringify({ ...result, maxRssKiB: process.resourceUsage().maxRSS }) + '\n');

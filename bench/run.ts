@@ -1,0 +1,104 @@
+// Scales → synthetic projects built in child processes, timed against serdi, cat and whole-graph SHACL; a table on stdout.
+import { spawnSync } from 'node:child_process';
+import { existsSync, mkdtempSync, openSync, closeSync, rmSync, statSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { performance } from 'node:perf_hooks';
+import os from 'node:os';
+import path from 'node:path';
+import { generateProject } from './generate.js';
+
+const CHILD = fileURLToPath(new URL('./child.js', import.meta.url));
+const GNU_TIME = '/usr/bin/time';
+
+interface Measured { wallMs: number; peakKiB: number; out: Record<string, number> | null; error?: string }
+
+/** Runs a job in a fresh Node process; peak RSS from GNU time -v when present, else the child's own maxRSS. */
+function child(job: string, args: string[]): Measured {
+  const node = [process.execPath, '--max-old-space-size=20000', CHILD, job, ...args];
+  const useTime = existsSync(GNU_TIME);
+  const argv = useTime ? [GNU_TIME, '-v', ...node] : node;
+  const t = performance.now();
+  const r = spawnSync(argv[0], argv.slice(1), { encoding: 'utf8', maxBuffer: 64 << 20 });
+  const wallMs = performance.now() - t;
+  const line = r.stdout.trim().split('\n').pop() ?? '';
+  let out: Record<string, number> | null = null;
+  try { out = JSON.parse(line); } catch { /* failed job: reported below */ }
+  const m = /Maximum resident set size \(kbytes\): (\d+)/.exec(r.stderr);
+  const peakKiB = m ? Number(m[1]) : out?.maxRssKiB ?? 0;
+  const error = out ? undefined : r.stderr.split('\n').find((l) => /^\w*Error\b/.test(l))?.slice(0, 160) ?? `exit ${r.status}`;
+  return { wallMs, peakKiB, out, error };
+}
+
+/** Times a shell-free command with stdout to /dev/null. */
+function timed(cmd: string, args: string[]): { ms: number; ok: boolean } {
+  const devnull = openSync('/dev/null', 'w');
+  const t = performance.now();
+  const r = spawnSync(cmd, args, { stdio: ['ignore', devnull, 'pipe'] });
+  const ms = performance.now() - t;
+  closeSync(devnull);
+  return { ms, ok: r.status === 0 };
+}
+
+const has = (cmd: string) => spawnSync('sh', ['-c', `command -v ${cmd}`]).status === 0;
+const s = (ms: number) => (ms / 1000).toFixed(1) + ' s';
+const mib = (kib: number) => (kib / 1024).toFixed(0) + ' MiB';
+const rate = (n: number, ms: number) => Math.round(n / (ms / 1000)).toLocaleString('en') + '/s';
+
+function parseArgs(argv: string[]): { scales: number[]; whole: boolean; keep: boolean } {
+  let scales = [10_000, 100_000];
+  const i = argv.indexOf('--scales');
+  if (i >= 0) scales = argv[i + 1].split(',').map(Number);
+  if (argv.includes('--with-1m') && !scales.includes(1_000_000)) scales.push(1_000_000);
+  return { scales, whole: !argv.includes('--no-whole'), keep: argv.includes('--keep') };
+}
+
+/** Benchmarks one scale and prints its figures; returns the build time without validation. */
+async function benchScale(works: number, whole: boolean, keep: boolean): Promise<number> {
+  const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
+  const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
+  console.log(`\n== ${works.toLocaleString('en')} works (${dir})`);
+  const tg = performance.now();
+  const gen = await generateProject(path.join(dir, 'project'), { works, partners: Math.min(25, 3 + Math.floor(Math.log10(works) * 2)), seed: 20261004 });
+  say('generate', `${s(performance.now() - tg)}: ${gen.images} images, ${gen.evidenceRows} evidence rows, ${gen.decisions} decisions`);
+
+  const nv = child('build', [gen.projectFile, path.join(dir, 'release-nv'), '0']);
+  if (!nv.out) { say('build without SHACL', `FAILED: ${nv.error}`); return NaN; }
+  const { ms, triples, evidenceRows } = nv.out;
+  say('build without SHACL: time / peak RSS', `${s(ms)} (process ${s(nv.wallMs)}) / ${mib(nv.peakKiB)}`);
+  say('  evidence rows/s, output triples/s', `${rate(evidenceRows, ms)}, ${rate(triples, ms)} (${triples} triples)`);
+
+  const full = child('build', [gen.projectFile, path.join(dir, 'release'), '1']);
+  const fullMs = full.out?.ms ?? NaN;
+  say('build with chunked SHACL: time / peak RSS', `${s(full.out ? fullMs : full.wallMs)} / ${mib(full.peakKiB)}${full.out ? '' : `  FAILED: ${full.error}`}`);
+  const chunkedMs = (full.out ? fullMs : full.wallMs) - ms;
+  say('  chunked SHACL share (with − without)', `${s(chunkedMs)}, ${rate(triples, chunkedMs)}`);
+
+  const nq = path.join(dir, 'release-nv', 'concordance.nq');
+  say('concordance.nq size', `${(statSync(nq).size / 2 ** 20).toFixed(0)} MiB`);
+  const cat = timed('cat', [nq]);
+  say('cat > /dev/null (floor)', s(cat.ms));
+  if (has('serdi')) {
+    const sd = timed('serdi', ['-i', 'nquads', '-o', 'turtle', nq]);
+    say('serdi -i nquads -o turtle > /dev/null', `${s(sd.ms)}${sd.ok ? '' : ' (serdi reported an error)'}, ${rate(triples, sd.ms)}`);
+    say('RATIO build(no SHACL) / serdi', (ms / sd.ms).toFixed(1) + '×  (target at 1M works: ≤ 3×)');
+  } else say('serdi', 'absent: skipped (apt-get install -y serdi)');
+
+  if (whole) {
+    const w = child('whole', [nq]);
+    if (w.out) {
+      say('whole-graph SHACL: load / validate / RSS', `${s(w.out.loadMs)} / ${s(w.out.validateMs)} / ${mib(w.peakKiB)}`);
+      say('  whole-graph validate throughput', rate(w.out.triples, w.out.validateMs));
+      say('RATIO validate(chunked) / validate(whole)', (chunkedMs / w.out.validateMs).toFixed(2) + '×');
+      say('RATIO throughput chunked / whole', (w.out.validateMs / chunkedMs).toFixed(2) + '×  (target: ≥ 3×)');
+    } else say('whole-graph SHACL', `FAILED after ${s(w.wallMs)} (peak ${mib(w.peakKiB)}): ${w.error}`);
+  }
+  if (!keep) rmSync(dir, { recursive: true, force: true });
+  return ms;
+}
+
+const { scales, whole, keep } = parseArgs(process.argv.slice(2));
+console.log(`concordat bench: ${os.cpus().length} CPUs (${os.cpus()[0]?.model ?? '?'}), ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, node ${process.version}`);
+const times = new Map<number, number>();
+for (const n of scales) times.set(n, await benchScale(n, whole && n <= 100_000, keep));
+if (times.has(100_000) && times.has(1_000_000))
+  console.log(`\nRATIO time 100k → 1M works: ${(times.get(1_000_000)! / times.get(100_000)!).toFixed(1)}×  (target: ≤ 11×)`);
