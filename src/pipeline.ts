@@ -13,7 +13,8 @@ import { writeFolderAtomically } from './publish/atomic.js';
 import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
 import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';
-import { fill } from './rdf/terms.js';
+import { Namer } from './rdf/index.js';
+import { readRelease, releaseHistory, writeChanges, type Changes } from './history/index.js';
 
 export interface BuildOptions {
   shapesDir?: string;
@@ -22,6 +23,8 @@ export interface BuildOptions {
   validate?: boolean;
   /** Progress lines (stage names) for a terminal; silent when undefined. */
   progress?: (stage: string) => void;
+  /** Folder of the previous release; overrides the project's "previous". */
+  previous?: string;
 }
 
 export interface BuildResult {
@@ -31,6 +34,8 @@ export interface BuildResult {
   links: LinkSet;
   clustering: Clustering;
   publish: PublishResult;
+  /** Changes against the previous release, when there is one. */
+  changes?: Changes;
 }
 
 /** Link, cluster and per-cluster views: the part of the pipeline that needs no output folder. */
@@ -67,15 +72,18 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const say = opts.progress ?? (() => undefined);
   say('load');
   const { model, stats } = await load(projectFile);
+  if (opts.previous) model.project.previous = path.resolve(opts.previous);
   say('link and cluster');
   const { links, clustering } = await derive(model);
   const vocab = loadVocabMap(model.project.vocabMap);
   const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
   const view: ReleaseView = { model, links, clusters: clusterViews(clustering), retired: clustering.retired, vocab };
-  const previousVersion = model.project.previous ? fill(vocab.iris.dataset, { base: model.project.base }) + '/previous' : undefined;
+  const previous = model.project.previous ? await readRelease(model.project.previous) : undefined;
+  const history = await releaseHistory(view, clustering, new Namer(model, vocab.iris), previous);
+  const previousVersion = previous?.snapshot.dataset;
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
-    const publish = await publishRdf(dir, view, { shapes, previousVersion, workers: opts.workers, validate: opts.validate });
+    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validate: opts.validate });
     if (!publish.validation.conforms) {
       const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(
@@ -84,7 +92,8 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
       );
     }
     await writeClusterRegistry(path.join(dir, 'clusters.csv'), model, clustering);
+    await writeChanges(dir, history);
     await writeChecksums(dir);
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, publish };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, publish, changes: history.changes };
   });
 }

@@ -5,7 +5,8 @@ import { register as validate } from './validate.js';
 import { register as load } from './load.js';
 import { register as query } from './query.js';
 import { register as build } from './build.js';
+import { register as diff } from './diff.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, build, validate, load, query];
+export const commands: Register[] = [check, build, validate, load, query, diff];

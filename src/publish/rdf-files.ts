@@ -93,6 +93,7 @@ export function chunkOf(unit: Unit, typeIndex: Map<string, Quad[]>): Quad[] {
     const stubs = typeIndex.get(q.object.value);
     if (stubs) extra.push(...stubs);
   }
+  if (unit.context?.length) extra.push(...unit.context);
   return extra.length ? unit.quads.concat(extra) : unit.quads;
 }
 

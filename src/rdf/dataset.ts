@@ -37,7 +37,7 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
   const a = term('rdf', 'type');
   const p = model.project;
   const version = p.release.version;
-  const D = nn(namer.iri('dataset'));
+  const D = nn(namer.iri('dataset', { version }));
   const license = nn(p.license);
   g(D, a, term('void', 'Dataset'));
   g(D, a, term('dcat', 'Dataset'));
