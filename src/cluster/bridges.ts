@@ -15,18 +15,20 @@ export interface Bridges {
  * (u,v) is a bridge iff low[v] > disc[u]), with the sizes of the two sides from DFS subtree sizes. Runs with an
  * explicit stack, so a component of any size cannot overflow the call stack.
  */
-export function findBridges(n: number, g: Adjacency): Bridges {
+export function findBridges(n: number, g: Adjacency, edgeCount: number): Bridges {
   const disc = new Int32Array(n).fill(-1);
   const low = new Int32Array(n);
   const next = new Int32Array(n); // next adjacency position to visit
   const parentEdge = new Int32Array(n);
   const size = new Int32Array(n); // DFS subtree size
   const stack = new Int32Array(n);
-  const found: [edge: number, minSide: number, component: number][] = [];
+  const minSide = new Int32Array(edgeCount); // 0: not a bridge
+  const component = new Int32Array(edgeCount);
+  let count = 0;
   let time = 0;
   for (let s = 0; s < n; s++) {
     if (disc[s] !== -1 || g.offset[s] === g.offset[s + 1]) continue;
-    const here: [edge: number, below: number][] = [];
+    const here: number[] = []; // bridge edges of this component; minSide holds the size below them for now
     let sp = 0;
     disc[s] = low[s] = time++;
     parentEdge[s] = -1;
@@ -52,12 +54,18 @@ export function findBridges(n: number, g: Adjacency): Bridges {
           const u = stack[sp - 1];
           if (low[v] < low[u]) low[u] = low[v];
           size[u] += size[v];
-          if (low[v] > disc[u]) here.push([parentEdge[v], size[v]]);
+          if (low[v] > disc[u]) { here.push(parentEdge[v]); minSide[parentEdge[v]] = size[v]; }
         }
       }
     }
-    for (const [e, below] of here) found.push([e, Math.min(below, size[s] - below), size[s]]);
+    for (const e of here) {
+      minSide[e] = Math.min(minSide[e], size[s] - minSide[e]);
+      component[e] = size[s];
+    }
+    count += here.length;
   }
-  found.sort((x, y) => x[0] - y[0]);
-  return { edges: Int32Array.from(found, (f) => f[0]), minSide: Int32Array.from(found, (f) => f[1]), component: Int32Array.from(found, (f) => f[2]) };
+  const out: Bridges = { edges: new Int32Array(count), minSide: new Int32Array(count), component: new Int32Array(count) };
+  for (let e = 0, k = 0; e < edgeCount; e++)
+    if (minSide[e] > 0) { out.edges[k] = e; out.minSide[k] = minSide[e]; out.component[k++] = component[e]; }
+  return out;
 }

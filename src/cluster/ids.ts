@@ -41,7 +41,7 @@ export function assignIds(clusters: readonly (readonly string[])[], previous?: C
   for (const id of oldIds) highest = Math.max(highest, clusterIdNumber(id) ?? 0);
 
   const where = new Map<string, number>();
-  clusters.forEach((refs, ci) => refs.forEach((r) => where.set(r, ci)));
+  if (previous) clusters.forEach((refs, ci) => refs.forEach((r) => where.set(r, ci)));
   const overlaps = new Map<string, [cluster: number, overlap: number][]>(); // largest first
   const claims = new Map<number, { id: string; overlap: number }>();
   for (const id of oldIds) {

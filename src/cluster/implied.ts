@@ -1,18 +1,9 @@
 // Clusters + same claims → implied pairs (same cluster, no direct claim), marking those joined only via a third archive.
 import type { Model } from '../model.js';
-import { isClaim } from '../link/index.js';
-import { pairKey, type LinkSet } from '../link/types.js';
+import type { LinkSet } from '../link/types.js';
 import { int32 } from '../util/columns.js';
 import type { Cluster, ImpliedPairs } from './types.js';
 import { UnionFind } from './union-find.js';
-
-/** Is there a confirmed or proposed `same` link between works x and y? */
-export function directSame(linkSet: LinkSet, x: number, y: number): boolean {
-  const i = linkSet.byPair.get(pairKey(x, y));
-  if (i === undefined) return false;
-  const l = linkSet.links[i];
-  return l.kind === 'same' && isClaim(l);
-}
 
 /**
  * Component labels of a cluster's members in the subgraph of works from partners p and q only (one label array per
@@ -48,6 +39,7 @@ function twoPartnerLabels(model: Model, linkSet: LinkSet, c: Cluster, local: Int
 export function impliedPairs(model: Model, linkSet: LinkSet, clusters: Cluster[], pairwiseLimit: number): { implied: ImpliedPairs; total: number } {
   const a = int32(), b = int32(), cl = int32(), cross = int32(), third = int32();
   const local = new Int32Array(model.works.length);
+  let direct = new Uint8Array(0); // k × k: same claim between local members i and j
   const np = model.project.partners.length;
   let total = 0;
   clusters.forEach((c, ci) => {
@@ -55,11 +47,17 @@ export function impliedPairs(model: Model, linkSet: LinkSet, clusters: Cluster[]
     total += (k * (k - 1)) / 2 - c.links.length;
     if (k > pairwiseLimit) return;
     c.members.forEach((w, i) => (local[w] = i));
+    if (direct.length < k * k) direct = new Uint8Array(k * k);
+    else direct.fill(0, 0, k * k);
+    for (const li of c.links) {
+      const x = local[linkSet.links[li].a], y = local[linkSet.links[li].b];
+      direct[x * k + y] = direct[y * k + x] = 1;
+    }
     const labels = twoPartnerLabels(model, linkSet, c, local);
     for (let i = 0; i < k; i++)
       for (let j = i + 1; j < k; j++) {
+        if (direct[i * k + j]) continue;
         const x = c.members[i], y = c.members[j];
-        if (directSame(linkSet, x, y)) continue;
         const px = model.works[x].partner, py = model.works[y].partner;
         const lab = px === py ? undefined : labels.get(Math.min(px, py) * np + Math.max(px, py));
         a.push(x); b.push(y); cl.push(ci);

@@ -8,6 +8,7 @@ import { findBridges } from './bridges.js';
 import { impliedPairs } from './implied.js';
 import { assignIds, clusterIdNumber } from './ids.js';
 import { UnionFind } from './union-find.js';
+import { refRank } from './ref-rank.js';
 import type { Cluster, ClusterOptions, ClusterRegistry, Clustering } from './types.js';
 
 export type { Cluster, ClusterOptions, ClusterRegistry, Clustering, ImpliedPairs, RetiredId } from './types.js';
@@ -21,8 +22,6 @@ export { formatClusterId } from './ids.js';
 export const OVERSIZE_PER_PARTNER = 2;
 /** Largest cluster whose member pairs are listed one by one (implied pairs, date conflicts). */
 export const PAIRWISE_LIMIT = 1000;
-
-const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
 /**
  * Clusters = connected components of ≥ 2 works over `same` links that are confirmed or proposed (design, pipeline
@@ -55,12 +54,13 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   const edgeLists: number[][] = members.map(() => []);
   for (const e of sameEdges) edgeLists[tempOf[uf.find(links[e].a)]].push(e);
 
-  const refs = new Map<number, string>();
-  for (const m of members) for (const w of m) refs.set(w, workRef(model, w));
-  for (const m of members) m.sort((x, y) => cmp(refs.get(x)!, refs.get(y)!));
-  const order = [...members.keys()].sort((x, y) => cmp(refs.get(members[x][0])!, refs.get(members[y][0])!));
+  const clustered: number[] = [];
+  for (let w = 0; w < n; w++) if (inEdge[w]) clustered.push(w);
+  const rank = refRank(model, clustered);
+  for (const m of members) m.sort((x, y) => rank[x] - rank[y]);
+  const order = [...members.keys()].sort((x, y) => rank[members[x][0]] - rank[members[y][0]]);
 
-  const { ids, retired } = assignIds(order.map((ti) => Array.from(members[ti], (w) => refs.get(w)!)), previous);
+  const { ids, retired } = assignIds(order.map((ti) => Array.from(members[ti], (w) => workRef(model, w))), previous);
   const oversizeAt = options.oversizeAt ?? OVERSIZE_PER_PARTNER * model.project.partners.length;
   const clusters: Cluster[] = order.map((ti, k) => ({
     id: ids[k],
@@ -75,7 +75,7 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   clusters.forEach((c, ci) => c.members.forEach((w) => (clusterOf[w] = ci)));
   const g = adjacency(n, sameEdges, (e) => links[e].a, (e) => links[e].b);
   // the one link of a two-work cluster is trivially a bridge: only links of larger clusters are listed
-  const found = findBridges(n, g);
+  const found = findBridges(n, g, links.length);
   const keep = Array.from(found.edges.keys()).filter((i) => found.component[i] >= 3);
   const bridges = Int32Array.from(keep, (i) => found.edges[i]);
   const bridgeMinSide = Int32Array.from(keep, (i) => found.minSide[i]);

@@ -1,0 +1,85 @@
+// What the analyse stage finds: date conflicts, overlap statistics, agreement with the gold concordance, review queue.
+import type { IntervalReading } from './dates.js';
+import type { LinkKind, LinkStatus } from '../link/types.js';
+
+/** Two members of one cluster whose catalogued dates disagree (compareDates `conflict` or `soft`). */
+export interface DateConflict {
+  /** Index into Clustering.clusters. */
+  cluster: number;
+  /** Work numbers, ordered by reference. */
+  a: number;
+  b: number;
+  severity: 'conflict' | 'soft';
+  readingA: IntervalReading;
+  readingB: IntervalReading;
+}
+
+/** For partner `from` (P) and partner `to` (Q): P's works that match a work at Q, and their share of P's works. */
+export interface OverlapCell {
+  from: number;
+  to: number;
+  works: number;
+  matched: number;
+  /** matched / works (0 when P has no works). */
+  share: number;
+}
+
+/** The same per century of the work's date (midpoint of its interval), e.g. `1400-1499`, or `undated`. */
+export interface CenturyCell extends OverlapCell {
+  century: string;
+}
+
+export interface OverlapStats {
+  /** Every ordered pair of distinct partners, by (from, to). */
+  pairs: OverlapCell[];
+  /** Ordered partner pairs × centuries with at least one work of `from`, by (from, to, century). */
+  centuries: CenturyCell[];
+}
+
+/** The best evidence for a gold pair the claims miss: the link between the two works, if any. */
+export interface MissedPair {
+  a: number;
+  b: number;
+  /** Line of the pair in the gold file. */
+  line: number;
+  link?: { kind: LinkKind; status: LinkStatus; best: number; support: number };
+}
+
+export interface Agreement {
+  /** Distinct pairs listed in the gold file. */
+  goldPairs: number;
+  /** Gold pairs whose works share a cluster (joined directly or through other works). */
+  found: number;
+  recall: number | null;
+  /** Works named in the gold file. */
+  goldWorks: number;
+  /** Same-cluster pairs (direct claims and implied pairs) of works both named in the gold file. */
+  claimedPairs: number;
+  /** Those of them that the gold file makes the same work (transitive closure of its pairs). */
+  correctPairs: number;
+  precision: number | null;
+  f1: number | null;
+  /** In gold-file order. */
+  missed: MissedPair[];
+}
+
+/** Why a pair is in the review queue, most urgent first (the order is the ranking tier). */
+export const REVIEW_REASONS = ['contradicts-distinct', 'bridge', 'high-score', 'implied-third-archive', 'implied', 'proposed'] as const;
+export type ReviewReason = (typeof REVIEW_REASONS)[number];
+
+/** The review queue as columns, in rank order. `reason` indexes REVIEW_REASONS; `link` is -1 when there is none. */
+export interface ReviewQueue {
+  count: number;
+  a: Int32Array;
+  b: Int32Array;
+  reason: Uint8Array;
+  link: Int32Array;
+}
+
+export interface Analysis {
+  conflicts: DateConflict[];
+  overlap: OverlapStats;
+  /** Null when the project has no gold concordance. */
+  agreement: Agreement | null;
+  review: ReviewQueue;
+}

@@ -1,0 +1,41 @@
+// Links, clusters and analysis → the release's report files: report.md, report.json, conflicts.csv, review-queue.csv, clusters.csv.
+import path from 'node:path';
+import { renameSync, writeFileSync } from 'node:fs';
+import type { Model } from '../model.js';
+import type { LinkSet } from '../link/types.js';
+import type { Clustering } from '../cluster/types.js';
+import { writeClusterRegistry } from '../cluster/index.js';
+import type { Analysis } from '../analyse/index.js';
+import { workContext } from './context.js';
+import { reportData } from './data.js';
+import { reportMarkdown } from './markdown.js';
+import { writeConflicts, writeReviewQueue } from './csv-files.js';
+
+export { CONFLICTS_HEADER, REVIEW_HEADER } from './csv-files.js';
+export { reportData, LIST_LIMIT, type ReportData } from './data.js';
+
+/** File names the report stage writes, in the order returned. */
+export const REPORT_FILES = ['report.md', 'report.json', 'conflicts.csv', 'review-queue.csv', 'clusters.csv'] as const;
+
+function writeText(file: string, text: string): string {
+  writeFileSync(`${file}.tmp`, text, 'utf8');
+  renameSync(`${file}.tmp`, file);
+  return file;
+}
+
+/**
+ * Writes the report files into `dir` (design, "Outputs"), each atomically (temp file, then rename). Same inputs →
+ * byte-identical files: no clock, no absolute paths, fixed orders. Returns the paths written, in REPORT_FILES order.
+ */
+export async function writeReports(dir: string, model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis): Promise<string[]> {
+  const ctx = workContext(model);
+  const data = reportData(model, linkSet, clustering, analysis, ctx);
+  const at = (name: string) => path.join(dir, name);
+  return [
+    writeText(at('report.md'), reportMarkdown(data)),
+    writeText(at('report.json'), JSON.stringify(data, null, 2) + '\n'),
+    await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx),
+    await writeReviewQueue(at('review-queue.csv'), linkSet, analysis, ctx),
+    await writeClusterRegistry(at('clusters.csv'), model, clustering),
+  ];
+}

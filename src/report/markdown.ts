@@ -1,0 +1,58 @@
+// The report data → report.md: the same content as report.json, as tables a person reads.
+import type { ReportData } from './data.js';
+import { LIST_LIMIT } from './data.js';
+import { percent } from './context.js';
+
+/** A table cell: pipes escaped, line breaks as spaces (GitHub Flavored Markdown tables, §4.10). */
+const cell = (v: unknown) => String(v ?? '').replace(/\\/g, '\\\\').replace(/\|/g, '\\|').replace(/\r?\n|\r/g, ' ');
+
+function table(header: string[], rows: unknown[][]): string[] {
+  if (rows.length === 0) return ['(none)', ''];
+  return [`| ${header.map(cell).join(' | ')} |`, `|${header.map(() => '---').join('|')}|`, ...rows.map((r) => `| ${r.map(cell).join(' | ')} |`), ''];
+}
+
+const more = (shown: number, total: number, where: string) => (total > shown ? [`${total - shown} more in ${where}.`, ''] : []);
+
+/** report.md (deterministic: no dates, no absolute paths). */
+export function reportMarkdown(d: ReportData): string {
+  const out: string[] = [`# ${d.title}: release ${d.version}`, ''];
+  out.push('## Partners', '', ...table(['key', 'name', 'works'], d.partners.map((p) => [p.key, p.name, p.works])));
+  out.push('## Links by kind and status', '', `${d.links.total} work pairs with evidence or a decision.`, '');
+  const statuses = Object.keys(d.links.byKind.same);
+  out.push(...table(['kind', ...statuses], Object.entries(d.links.byKind).map(([k, s]) => [k, ...statuses.map((x) => (s as Record<string, number>)[x])])));
+
+  const c = d.clusters;
+  out.push('## Clusters', '', `${c.count} clusters hold ${c.works} works. Implied pairs (same cluster, no direct claim): ${c.impliedPairs}` +
+    ` (${c.impliedThroughThirdArchive} joined only through a third archive). Bridges: ${c.bridgesTotal} (${c.bridgesJoiningClusters} joining two groups of two or more works). Oversized (more than ${c.oversizeAt} members): ${c.oversizedTotal}. Retired IDs: ${c.retiredTotal}.`, '');
+  out.push('### Sizes', '', ...table(['members', 'clusters'], Object.entries(c.sizes)));
+  out.push('### Oversized clusters', '', ...table(['cluster', 'members', 'partners'], c.oversized.map((o) => [o.id, o.members, o.partners.join(', ')])), ...more(c.oversized.length, c.oversizedTotal, 'report.json (first ' + LIST_LIMIT + ' listed)'));
+  out.push('### Bridges', '', 'Links whose removal splits their cluster (clusters of three or more works), those joining two groups of two or more works first.', '', ...table(['cluster', 'work_a', 'work_b', 'status', 'score', 'smaller side'], c.bridges.map((b) => [b.cluster, b.work_a, b.work_b, b.status, b.score, b.smallerSide])), ...more(c.bridges.length, c.bridgesTotal, 'report.json (first ' + LIST_LIMIT + ' listed)'));
+  out.push('### Retired cluster IDs', '', ...table(['cluster', 'replaced by'], c.retired.map((r) => [r.id, r.replacedBy.join(' ') || '(no successor)'])), ...more(c.retired.length, c.retiredTotal, 'clusters.csv'));
+
+  out.push('## Overlap between archives', '', 'Works of the row archive that match a work of the column archive (a confirmed or proposed same or part claim, or one cluster), and their share of the row archive\'s works.', '');
+  const keys = d.partners.map((p) => p.key);
+  out.push(...table(['from \\ to', ...keys], keys.map((from) => [from, ...keys.map((to) => {
+    const x = d.overlap.pairs.find((p) => p.from === from && p.to === to);
+    return x ? `${x.matched} / ${x.works} (${percent(x.share)})` : '—';
+  })])));
+  out.push('### Per century', '', 'Century of the midpoint of the work\'s date interval.', '', ...table(['from', 'to', 'century', 'matched', 'works', 'share'], d.overlap.centuries.map((x) => [x.from, x.to, x.century, x.matched, x.works, percent(x.share)])));
+
+  out.push('## Date conflicts inside clusters', '', `${d.conflicts.conflict} conflicts (disjoint dates), ${d.conflicts.soft} soft (apart only by how centuries are counted).`, '');
+  out.push(...table(['cluster', 'severity', 'work_a', 'work_b', 'date_a', 'date_b', 'read as'], d.conflicts.listed.map((x) => [x.cluster, x.severity, x.work_a, x.work_b, x.date_a, x.date_b, `${x.interval_a} vs ${x.interval_b}`])), ...more(d.conflicts.listed.length, d.conflicts.conflict + d.conflicts.soft, 'conflicts.csv'));
+
+  out.push('## Agreement with the gold concordance', '');
+  const a = d.agreement;
+  if (!a) out.push('The project names no gold concordance.', '');
+  else {
+    out.push(...table(['measure', 'value', 'from'], [
+      ['recall', percent(a.recall), `${a.found} of ${a.goldPairs} gold pairs share a cluster`],
+      ['precision', percent(a.precision), `${a.correctPairs} of ${a.claimedPairs} claimed pairs among the ${a.goldWorks} gold works are gold`],
+      ['F1', percent(a.f1), 'harmonic mean'],
+    ]));
+    out.push('### Missed gold pairs', '', ...table(['work_a', 'work_b', 'gold line', 'best evidence'], a.missed.map((m) => [m.work_a, m.work_b, m.line,
+      typeof m.evidence === 'string' ? m.evidence : `${m.evidence.kind} ${m.evidence.status}, score ${m.evidence.score}, ${m.evidence.support} image pair${m.evidence.support === 1 ? '' : 's'}`])), ...more(a.missed.length, a.missedTotal, 'report.json (first ' + LIST_LIMIT + ' listed)'));
+  }
+  out.push('## Review queue', '', `${d.reviewQueue.total} pairs in review-queue.csv, most useful first. Fill in verdict, curator and date and add the file to "decisions".`, '');
+  out.push(...table(['reason', 'pairs'], Object.entries(d.reviewQueue.byReason)));
+  return out.join('\n');
+}
