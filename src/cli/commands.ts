@@ -10,3 +10,4 @@ import { register as diff } from './diff.js';
 
 export type Register = (program: Command) => void;
 
+export const commands: Register[] = [check, build, validate, load, query, sweep, diff];
