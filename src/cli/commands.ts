@@ -7,7 +7,8 @@ import { register as query } from './query.js';
 import { register as build } from './build.js';
 import { register as sweep } from './sweep.js';
 import { register as diff } from './diff.js';
+import { register as cite } from './cite.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, build, validate, load, query, sweep, diff];
+export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite];

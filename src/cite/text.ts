@@ -1,0 +1,76 @@
+// A citation → a footnote-ready sentence per claim plus its evidence list, as plain text or Markdown.
+import type { Citation, CitedClaim, CitedRelease, CitedWork } from './types.js';
+
+const ID_OF = (w: CitedWork) => (w.ref.startsWith(`${w.partner}:`) ? w.ref.slice(w.partner.length + 1) : w.ref);
+const name = (w: CitedWork) => `${w.partnerName ?? w.partner} ${ID_OF(w)}${w.title ? ` ("${w.title}")` : ''}`;
+const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? '' : 'es'}`;
+
+/** Verb phrase by kind and status (a table: kind/status → how the sentence joins the two works). */
+const VERB: Record<string, (s: string, o: string) => string> = {
+  'same/confirmed': (s, o) => `${s} and ${o} show the same work`,
+  'same/proposed': (s, o) => `${s} and ${o} probably show the same work`,
+  'part/confirmed': (s, o) => `${s} shows a part of ${o}`,
+  'part/proposed': (s, o) => `${s} probably shows a part of ${o}`,
+  'related/confirmed': (s, o) => `${s} and ${o} show related but distinct works`,
+  'related/proposed': (s, o) => `${s} and ${o} probably show related works`,
+};
+const verb = (c: CitedClaim) => (c.status === 'rejected' ? (s: string, o: string) => `${s} and ${o} do not show the same work` : VERB[`${c.kind}/${c.status}`]);
+
+function basis(c: CitedClaim): string {
+  const r = c.review;
+  if (r) return `${c.status === 'rejected' ? 'as judged by' : c.status === 'confirmed' ? 'confirmed by' : 'reviewed by'} ${r.curatorName ?? r.curator}${r.date ? ` on ${r.date.slice(0, 10)}` : ''}`;
+  const run = c.runs[0];
+  const who = run ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})` : 'a matcher';
+  return c.status === 'confirmed' ? `confirmed automatically on the score of ${who}` : `proposed by ${who}`;
+}
+
+const evidence = (c: CitedClaim) =>
+  c.matches.length ? `on the evidence of ${plural(c.matches.length, 'image match')}${c.score !== undefined ? ` (best score ${c.score})` : ''}` : 'without image-match evidence';
+
+export function releaseLine(r: CitedRelease): string {
+  return [r.title, `release ${r.version}${r.issued ? ` (${r.issued})` : ''}`, r.publisher, r.license ? `licence ${r.license}` : undefined].filter(Boolean).join(', ');
+}
+
+/** "A and B show the same work, confirmed by C on D, on the evidence of N image matches (best score S). Title, release V (date), publisher, licence L, <link>." */
+export function sentence(c: CitedClaim, r: CitedRelease): string {
+  return `${verb(c)(name(c.subject), name(c.object))}, ${basis(c)}, ${evidence(c)}. ${releaseLine(r)}, ${c.link}.`;
+}
+
+function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): string[] {
+  const out = [item(`claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pairs <${c.link}>`)];
+  c.matches.forEach((m) => out.push(item(`image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`)));
+  for (const run of c.runs) {
+    const params = run.parameters.map((p) => `${p.name}=${p.value}`).join(', ');
+    out.push(item(`run ${run.id}: ${run.software ?? '?'} ${run.version ?? ''}${run.started ? `, started ${run.started}` : ''}${params ? `; parameters ${params}` : ''} <${run.iri}>`));
+  }
+  const v = c.review;
+  if (v) out.push(item(`curator: ${v.curatorName ? `${v.curatorName} ` : ''}<${v.curator}>${v.date ? `, ${v.date}` : ''}${v.verdict ? `, verdict ${v.verdict}` : ''}${v.note ? `, note "${v.note}"` : ''} <${v.iri}>`));
+  out.push(item(`release: ${r.version}${r.issued ? `, issued ${r.issued}` : ''}${r.license ? `, licence <${r.license}>` : ''}, dataset <${r.dataset}>`));
+  return out;
+}
+
+const heading = (c: Citation) => `${c.claims.length} claim${c.claims.length === 1 ? '' : 's'} about ${c.query} in release ${c.release.version}`;
+
+/** Plain text: per claim, the sentence, then "Evidence:" and one indented line per fact. */
+export function citationText(c: Citation): string {
+  const blocks = c.claims.map((x) => [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`)].join('\n'));
+  return [heading(c), '', blocks.join('\n\n'), ''].join('\n');
+}
+
+/** Escapes Markdown punctuation (CommonMark §2.4) and `<` that would open an HTML tag; keeps `<https://…>` autolinks. */
+const md = (s: string) => s.replace(/([\\`*_[\]|])/g, '\\$1').replace(/<(?=[A-Za-z/!?])(?!https?:)/g, '\\<');
+
+/** Markdown: a heading, then per claim the sentence as a paragraph, an evidence table and a list of the rest. */
+export function citationMarkdown(c: Citation): string {
+  const out = [`# ${md(heading(c))}`, ''];
+  for (const x of c.claims) {
+    out.push(`## ${md(x.subject.ref)} – ${md(x.object.ref)}`, '', md(sentence(x, c.release)), '');
+    if (x.matches.length) {
+      out.push('| source image | target image | score | overlap | run |', '|---|---|---:|---:|---|');
+      for (const m of x.matches) out.push(`| <${m.source}> | <${m.target}> | ${m.score} | ${m.overlap} | ${md(m.run?.replace(/^.*\//, '') ?? '')} |`);
+      out.push('');
+    }
+    out.push(...details(x, c.release, (s) => `- ${md(s)}`).filter((l) => !l.startsWith('- image match')), '');
+  }
+  return out.join('\n');
+}

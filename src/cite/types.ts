@@ -1,0 +1,75 @@
+// A citation as data: the claims a release holds about a work, pair or cluster, with their evidence chain and the release.
+import type { Quad } from '@rdfjs/types';
+import type { ClaimKind, ClaimStatus } from '../history/types.js';
+
+export interface CitedWork {
+  iri: string;
+  /** `partnerKey:workId`, or the IRI when it cannot be decoded. */
+  ref: string;
+  partner: string;
+  partnerName?: string;
+  title?: string;
+  date?: string;
+  page?: string;
+}
+
+export interface CitedMatch {
+  iri: string;
+  source: string;
+  target: string;
+  score: number;
+  overlap: number;
+  run?: string;
+}
+
+export interface CitedRun {
+  iri: string;
+  id: string;
+  software?: string;
+  version?: string;
+  started?: string;
+  parameters: { name: string; value: string }[];
+}
+
+export interface CitedReview {
+  iri: string;
+  curator: string;
+  curatorName?: string;
+  date?: string;
+  verdict?: string;
+  note?: string;
+}
+
+export interface CitedRelease {
+  dataset: string;
+  title?: string;
+  version: string;
+  issued?: string;
+  license?: string;
+  publisher?: string;
+}
+
+/** One link (cx:Link) with everything behind it. */
+export interface CitedClaim {
+  link: string;
+  subject: CitedWork;
+  object: CitedWork;
+  relation?: string;
+  kind: ClaimKind;
+  status: ClaimStatus;
+  score?: number;
+  support: number;
+  matches: CitedMatch[];
+  runs: CitedRun[];
+  review?: CitedReview;
+}
+
+export interface Citation {
+  /** What was asked for, as given. */
+  query: string;
+  target: { kind: 'work' | 'link' | 'cluster'; iri: string };
+  release: CitedRelease;
+  claims: CitedClaim[];
+  /** The statements the citation rests on (links, matches, runs, reviews, works, dataset), for JSON-LD. */
+  quads: Quad[];
+}

@@ -1,0 +1,18 @@
+// `concordat cite <target> (--release <folder> | --store <folder>) [--format …]`: a quotable citation of a claim.
+import { Command, Option } from 'commander';
+import { cite, CITE_FORMATS, type CiteFormat } from '../cite/index.js';
+
+export function register(program: Command): void {
+  program
+    .command('cite')
+    .description('cite what a release says about a work, a pair or a cluster: claims, evidence, run, curator, release')
+    .argument('<target>', 'partnerKey:workId, or a work, link or cluster IRI')
+    .option('--release <folder>', 'a release folder')
+    .option('--store <folder>', 'an embedded store folder (as written by concordat load --store)')
+    .addOption(new Option('--format <format>', 'output format').choices(Object.keys(CITE_FORMATS)).default('text'))
+    .addHelpText('after', '\nExamples:\n  concordat cite "vellmar:VF 1101" --release releases/2027.1\n  concordat cite https://concordance.example.org/link/043c4c5af186df74 --store store --format csl-json\n\nExit codes: 0 cited, 1 the release holds no claim about the target (nearest matches listed), 2 bad usage or input.')
+    .action(async (target: string, opts: { release?: string; store?: string; format: CiteFormat }) => {
+      const c = await cite(target, { release: opts.release, store: opts.store });
+      process.stdout.write(await CITE_FORMATS[opts.format](c));
+    });
+}
