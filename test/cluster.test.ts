@@ -40,6 +40,15 @@ test('link: a later decision row for the same pair wins over an earlier one and 
   assert.equal(cluster(m2, link(m2)).clusters.length, 0, 'a rejected link joins nothing');
 });
 
+test('link: a distinct decision on a pair with no image evidence is a rejected same link, not a part link', () => {
+  const m = tinyModel({ partners: ['a', 'b'], works: ['a:1', 'b:1'], decisions: [['a:1', 'b:1', 'distinct']] });
+  const l = linkOf(m, 'a:1', 'b:1');
+  assert.equal(l.kind, 'same');
+  assert.equal(l.status, 'rejected');
+  assert.equal(l.part, undefined);
+  assert.equal(l.support, 0);
+});
+
 test('link: part direction follows image_a of partial matches; a curator part decision sets it', () => {
   // overlap 0.5 < partOverlapBelow 0.7 and ≥ minOverlap 0.3: a reliable partial match, image_a (b:7) is the detail
   const m = tinyModel({ partners: ['a', 'b'], works: ['a:1', 'b:7'], matches: [['b:7', 'a:1', 0.8, 0.5]] });

@@ -69,7 +69,8 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
         detailVotes.set(d, (detailVotes.get(d) ?? 0) + 1);
       }
     }
-    let { kind, status } = machineVerdict(best, maxOverlap, reliable, policy);
+    // a pair known only from a decision has no evidence to call it partial: a `distinct` verdict rejects `same`
+    let { kind, status } = x.rows.length ? machineVerdict(best, maxOverlap, reliable, policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
     let part: number | undefined;
     if (kind === 'part') part = (detailVotes.get(a) ?? 0) >= (detailVotes.get(b) ?? 0) ? a : b;
     if (x.decision !== undefined) {
