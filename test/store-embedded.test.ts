@@ -91,6 +91,8 @@ test('a load with a syntax error names file and line and leaves the graph as it 
   await assert.rejects(store.loadGraph(g, { format: 'n-triples', text, file: 'bad.nt' }), (e: unknown) => e instanceof UserError && e.problems[0].file === 'bad.nt' && e.problems[0].line === 3);
   assert.deepEqual(await graphDump(store, g), before);
   assert.deepEqual(await store.listGraphs(), graphsBefore, 'no staging graph is left');
+  await assert.rejects(store.loadGraph('urn:x:new', { format: 'n-triples', text, file: 'bad.nt' }), UserError);
+  assert.deepEqual(await store.listGraphs(), graphsBefore, 'an absent graph stays absent');
 });
 
 test('--partner loads the slice into {base}graph/partner/{key}; --graph puts the whole release into one graph', async () => {

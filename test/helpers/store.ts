@@ -83,7 +83,7 @@ export const NAMED_CASES: NamedCase[] = [
       [link(W['L-7'], W['U-3']), SKOS + 'closeMatch', W['U-3'], CX + 'Proposed', '0.71', '1', ...m3],
     ]),
   },
-  { name: 'claims-about-record', params: { work: W['H-102'] }, rows: [[link(W['H-102'], W['L-9']), SKOS + 'closeMatch', W['L-9'], CX + 'Rejected', '0.55', '1', ...m4]] },
+  { name: 'claims-about-record', params: { work: W['H-102'] }, rows: [[link(W['H-102'], W['L-9']), '', W['L-9'], CX + 'Rejected', '0.55', '1', ...m4]] }, // rejected: no relation
   { name: 'claims-about-record', params: { work: 'https://harbour.example.org/id/work/none' }, rows: [] },
   { name: 'cluster-members', params: { cluster: `${BASE}work/1` }, rows: members },
   { name: 'cluster-members', params: { cluster: `${BASE}work/0` }, rows: members }, // retired ID → its replacement
