@@ -8,7 +8,9 @@ import { register as build } from './build.js';
 import { register as sweep } from './sweep.js';
 import { register as diff } from './diff.js';
 import { register as cite } from './cite.js';
+import { register as init } from './init.js';
+import { register as addPartner } from './add-partner.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite];
+export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite, init, addPartner];
