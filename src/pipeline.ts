@@ -5,7 +5,9 @@ import type { Quad } from '@rdfjs/types';
 import { load, type LoadStats } from './load/index.js';
 import { link } from './link/index.js';
 import type { LinkSet } from './link/types.js';
-import { cluster, readClusterRegistry, writeClusterRegistry, type Clustering } from './cluster/index.js';
+import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
+import { analyse, type Analysis } from './analyse/index.js';
+import { writeReports } from './report/index.js';
 import { loadVocabMap } from './rdf/vocab-map.js';
 import type { ClusterView, ReleaseView } from './rdf/view.js';
 import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
@@ -33,6 +35,7 @@ export interface BuildResult {
   stats: LoadStats;
   links: LinkSet;
   clustering: Clustering;
+  analysis: Analysis;
   publish: PublishResult;
   /** Changes against the previous release, when there is one. */
   changes?: Changes;
@@ -53,7 +56,7 @@ function registryFile(previous: string): string {
 }
 
 /** Clustering (columns) → what the RDF stage reads per cluster. */
-export function clusterViews(clustering: Clustering): ClusterView[] {
+export function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[] {
   const views: ClusterView[] = clustering.clusters.map((c) => ({
     id: c.id, members: Array.from(c.members), links: Array.from(c.links), bridges: [], implied: [], conflicts: [], oversized: c.oversized,
   }));
@@ -61,6 +64,7 @@ export function clusterViews(clustering: Clustering): ClusterView[] {
   for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
   const im = clustering.implied;
   for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
+  for (const c of analysis?.conflicts ?? []) views[c.cluster].conflicts.push({ a: c.a, b: c.b, severity: c.severity });
   return views;
 }
 
@@ -75,9 +79,11 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   if (opts.previous) model.project.previous = path.resolve(opts.previous);
   say('link and cluster');
   const { links, clustering } = await derive(model);
+  say('analyse');
+  const analysis = analyse(model, links, clustering);
   const vocab = loadVocabMap(model.project.vocabMap);
   const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
-  const view: ReleaseView = { model, links, clusters: clusterViews(clustering), retired: clustering.retired, vocab };
+  const view: ReleaseView = { model, links, clusters: clusterViews(clustering, analysis), retired: clustering.retired, vocab };
   const previous = model.project.previous ? await readRelease(model.project.previous) : undefined;
   const history = await releaseHistory(view, clustering, new Namer(model, vocab.iris), previous);
   const previousVersion = previous?.snapshot.dataset;
@@ -91,9 +97,9 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
         EXIT.failure,
       );
     }
-    await writeClusterRegistry(path.join(dir, 'clusters.csv'), model, clustering);
+    await writeReports(dir, model, links, clustering, analysis);
     await writeChanges(dir, history);
     await writeChecksums(dir);
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, publish, changes: history.changes };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, publish, changes: history.changes };
   });
 }
