@@ -140,3 +140,10 @@ test('the same inputs give byte-identical history files', async () => {
   await build(path.join(dir, 'concordance-2.json'), again, { previous: rel('1') });
   for (const f of ['changes.md', 'changes.ttl', 'concordance.nq', 'SHA256SUMS']) assert.equal(readFileSync(path.join(again, f), 'utf8'), readFileSync(path.join(rel('2'), f), 'utf8'), f);
 });
+
+test('a release with the same version as its previous one is refused before anything is written', async () => {
+  await built;
+  const file = writeTinyProject(path.join(dir, 'same'), { version: '2', evidence: R2 });
+  await assert.rejects(build(file, path.join(dir, 'same-out'), { previous: rel('2') }), /release\.version: "2" is also the version of the previous release/);
+  assert.throws(() => readFileSync(path.join(dir, 'same-out', 'SHA256SUMS')));
+});

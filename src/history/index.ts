@@ -12,6 +12,7 @@ import { changesMarkdown } from './markdown.js';
 import { changedLinks, currentMatchIris, historyUnits, releaseTime } from './units.js';
 import { readLinkEvidence } from './evidence.js';
 import type { Changes, PreviousRelease } from './types.js';
+import { UserError } from '../errors.js';
 
 export { readRelease } from './read.js';
 export { compareSnapshots, isEmpty } from './compare.js';
@@ -35,6 +36,9 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
   let changes: Changes | undefined;
   const invalidations = new Map<string, Invalidation>();
   if (previous) {
+    const version = view.model.project.release.version;
+    if (previous.snapshot.version === version)
+      throw new UserError({ file: view.model.projectFile, line: 0, field: 'release.version', message: `"${version}" is also the version of the previous release in ${previous.folder}`, hint: 'give every release its own version: release and earlier-state IRIs are named by it' });
     const current = snapshotOfView(view, clustering, namer);
     changes = compareSnapshots(previous.snapshot, current);
     const changed = changedLinks(previous.snapshot, current);
