@@ -36,3 +36,11 @@ test('template checks', () => {
   assert.match(checkTemplate('https://x.example.org/{wrk}', 'work').join(), /unknown variable \{wrk\}/);
   assert.match(checkTemplate('https://x.example.org/{work', 'work').join(), /unbalanced/);
 });
+
+test('a value of only dots is percent-encoded, so no dot segment is minted (RFC 3986 §5.2.4; RDF 1.1 Concepts §3.2)', () => {
+  const f = compileTemplate('https://a.example.org/id/{work}', 'work');
+  assert.equal(f('..'), 'https://a.example.org/id/%2E%2E');
+  assert.equal(f('.'), 'https://a.example.org/id/%2E');
+  assert.equal(f('...'), 'https://a.example.org/id/...');
+  assert.equal(f('a.b'), 'https://a.example.org/id/a.b');
+});

@@ -7,6 +7,9 @@ const UNRESERVED = /[A-Za-z0-9\-._~]/;
  * (RFC 6570 §3.2.1 and §3.2.2 Simple String Expansion; unreserved per RFC 3986 §2.3).
  */
 export function encodeUnreserved(value: string): string {
+  // A value of only dots would expand to a "." or ".." path segment, which readers remove (RFC 3986 §5.2.4) and
+  // RDF 1.1 Concepts §3.2 asks publishers to avoid: those dots are percent-encoded, a deliberate departure from §3.2.2.
+  if (/^\.{1,2}$/.test(value)) return value.replace(/\./g, '%2E');
   let out = '';
   for (const ch of value) {
     if (ch.length === 1 && UNRESERVED.test(ch)) out += ch;

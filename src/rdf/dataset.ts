@@ -70,7 +70,7 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
     total += n;
     const [ks, ko] = [p.partners[Number(sp)].key, p.partners[Number(op)].key];
     const local = predicate.replace(/^.*[#/]/, '');
-    const L = nn(namer.iri('linkset', { partner: ks, other: ko, predicate: local }));
+    const L = nn(namer.iri('linkset', { version, partner: ks, other: ko, predicate: local }));
     g(D, term('void', 'subset'), L);
     g(L, a, ks === ko ? term('void', 'Dataset') : term('void', 'Linkset'));
     g(L, term('dcterms', 'title'), str(ks === ko ? `${local} links within ${ks}` : `${local} links from ${ks} to ${ko}`));
@@ -85,7 +85,7 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
 
   for (const f of distributionFiles(model)) {
     const url = namer.iri('download', { version, file: f.file }).replace(/%2F/g, '/');
-    const F = nn(namer.iri('distribution', { file: f.file.replace('/', '-') }));
+    const F = nn(namer.iri('distribution', { version, file: f.file.replace('/', '-') }));
     g(D, term('dcat', 'distribution'), F);
     if (f.file.startsWith('concordance.')) g(D, term('void', 'dataDump'), nn(url));
     g(F, a, term('dcat', 'Distribution'));

@@ -59,7 +59,12 @@ export class Namer {
   linkIri = (l: Link) => this.iri('link', { hash: hash(workRef(this.model, l.a), workRef(this.model, l.b)) });
   runIri = (r: number) => this.iri('run', { run: this.model.runs[r].id });
   agentIri = (r: number) => this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
-  curatorIri = (c: string) => (/^https?:\/\//.test(c) ? c : this.iri('curator', { name: c.toLowerCase().normalize('NFKD').replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '') }));
+  /** A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters). */
+  curatorIri = (c: string) => {
+    if (/^https?:\/\//.test(c)) return c;
+    const slug = c.toLowerCase().normalize('NFKD').replace(/\p{M}/gu, '').replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '');
+    return this.iri('curator', { name: slug || `n-${hash(c)}` });
+  };
   partnerDataset = (p: number) => this.iri('partnerDataset', { partner: this.model.project.partners[p].key });
   reviewIri = (d: number) => {
     const x = this.model.decisions[d];
