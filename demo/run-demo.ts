@@ -10,7 +10,7 @@ const rel = (p: string) => path.relative(process.cwd(), path.join(root, p)) || '
 
 /** Runs one concordat command the way a user would, echoing it; stops the demo on failure. */
 function concordat(...args: string[]): string {
-  process.stdout.write(`\n$ concordat ${args.join(' ')}\n`);
+  process.stdout.write(`\n$ concordat ${args.map((a) => (/[\s'"]/.test(a) ? JSON.stringify(a) : a)).join(' ')}\n`);
   const r = spawnSync(process.execPath, [cli, ...args], { cwd: process.cwd(), encoding: 'utf8' });
   process.stdout.write(r.stdout);
   process.stderr.write(r.stderr);
@@ -26,8 +26,24 @@ const releases = path.join(root, 'demo-data', 'releases');
 if (existsSync(releases)) rmSync(releases, { recursive: true });
 
 const project1 = rel('demo-data/concordance.json');
+const project2 = rel('demo-data/release-2/concordance.json');
 const release1 = rel('demo-data/releases/2026.1');
+const release2 = rel('demo-data/releases/2027.1');
+const store = rel('demo-data/releases/store');
+
+process.stdout.write('Release 1: three invented archives, one matcher run, curators\' decisions.\n');
 concordat('check', project1);
 concordat('build', project1, '--out', release1);
 concordat('validate', path.join(release1, 'concordance.nq'));
-process.stdout.write(`\nRelease 1 is in ${release1}/ (Turtle, N-Quads, JSON-LD, per-partner slices, reports, SHA256SUMS).\n`);
+
+process.stdout.write('\nPartners load the release into a triple store and query it.\n');
+concordat('load', release1, '--store', store);
+concordat('query', '--store', store, '--named', 'partner-pair-counts', '--format', 'table');
+
+process.stdout.write('\nRelease 2: a fourth archive joins, the matcher is rerun, curators decide more (previous: release 1).\n');
+const built = concordat('build', project2, '--out', release2);
+concordat('diff', release1, release2);
+const example = /example claim: (\S+:.+?) owl:sameAs/.exec(built)?.[1];
+if (!example) throw new Error('the release summary names no example claim');
+concordat('cite', example, '--release', release2);
+process.stdout.write(`\nReleases are in ${rel('demo-data/releases')}/ (Turtle, N-Quads, JSON-LD, per-partner slices, reports, changes, SHA256SUMS); the embedded store in ${store}/.\n`);
