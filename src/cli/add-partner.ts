@@ -1,7 +1,6 @@
 // `concordat add-partner <project> --key <k> --catalogue <file> [--yes]`: propose a partner block from an export, then write it.
 import type { Command } from 'commander';
 import { createInterface } from 'node:readline/promises';
-import { proposePartner, writePartner, describeProposal } from '../setup/partner.js';
 import { UserError } from '../errors.js';
 
 async function confirm(question: string): Promise<boolean> {
@@ -26,6 +25,7 @@ export function register(program: Command): void {
     .option('--yes', 'write without asking (for scripts)')
     .addHelpText('after', '\nExample:\n  concordat add-partner concordance.json --key harbour --catalogue catalogues/harbour.tsv --name "Harbour Institute"\n\nExit codes: 0 written, 1 not confirmed, 2 bad input (or no terminal to ask and no --yes).')
     .action(async (project: string, opts: { key: string; catalogue: string; name?: string; workIri?: string; imageIri?: string; yes?: boolean }) => {
+      const { proposePartner, writePartner, describeProposal } = await import('../setup/partner.js');
       const p = await proposePartner(project, { key: opts.key, catalogue: opts.catalogue, name: opts.name, workIri: opts.workIri, imageIri: opts.imageIri });
       process.stdout.write(describeProposal(p));
       if (!opts.yes) {

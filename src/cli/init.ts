@@ -1,7 +1,6 @@
 // `concordat init <folder>`: a new project with a starter concordance.json and empty input folders.
 import type { Command } from 'commander';
 import path from 'node:path';
-import { initProject } from '../setup/starter.js';
 
 export function register(program: Command): void {
   program
@@ -11,7 +10,8 @@ export function register(program: Command): void {
     .option('--title <text>', 'title of the concordance')
     .option('--base <iri>', 'base IRI for the links, clusters and dataset the project mints')
     .addHelpText('after', '\nExample:\n  concordat init my-concordance\n  concordat add-partner my-concordance/concordance.json --key harbour --catalogue exports/harbour.tsv\n\nExit codes: 0 created, 2 a project file already exists there.')
-    .action((folder: string, opts: { title?: string; base?: string }) => {
+    .action(async (folder: string, opts: { title?: string; base?: string }) => {
+      const { initProject } = await import('../setup/starter.js');
       const made = initProject(folder, opts);
       process.stdout.write(`created in ${folder}: ${made.join(', ')}\nnext: concordat add-partner ${path.join(folder, 'concordance.json')} --key <key> --catalogue <export>\n`);
     });

@@ -1,7 +1,5 @@
 // `concordat load <release>`: a release folder → graphs in a store folder or a remote SPARQL store.
 import type { Command } from 'commander';
-import { openStore } from '../store/open.js';
-import { loadPlanned, planRelease } from '../store/release.js';
 
 interface LoadOpts {
   store?: string;
@@ -34,6 +32,8 @@ export function register(program: Command): void {
         'A graph is replaced all or nothing. Exit codes: 0 loaded, 1 the store refused or failed (target graph unchanged), 2 bad input.',
     )
     .action(async (release: string, opts: LoadOpts) => {
+      const { openStore } = await import('../store/open.js');
+      const { loadPlanned, planRelease } = await import('../store/release.js');
       const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.query });
       try {
         const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });

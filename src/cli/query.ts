@@ -1,7 +1,6 @@
 // `concordat query`: SPARQL text, a .rq file or a named query → results as a table, SPARQL JSON, CSV, TSV or N-Triples.
 import { Option, type Command } from 'commander';
-import { formatResult, type ResultFormat } from '../store/format.js';
-import { openStore, parseParams, queryText } from '../store/open.js';
+import type { ResultFormat } from '../store/format.js';
 
 interface QueryOpts {
   store?: string;
@@ -29,6 +28,8 @@ export function register(program: Command): void {
         'Parameters are bound as escaped terms, never pasted as text. Exit codes: 0 ran, 1 the store failed, 2 bad query or usage.',
     )
     .action(async (arg: string | undefined, opts: QueryOpts) => {
+      const { formatResult } = await import('../store/format.js');
+      const { openStore, parseParams, queryText } = await import('../store/open.js');
       const sparql = await queryText(arg, opts.named, parseParams(opts.param));
       const store = await openStore({ store: opts.store, query: opts.queryEndpoint });
       try {

@@ -1,7 +1,5 @@
 // `concordat sweep <project>`: precision, recall and F1 against the gold concordance for a range of proposeAt values.
 import type { Command } from 'commander';
-import { load } from '../load/index.js';
-import { sweep, sweepValues, sweepTable } from '../analyse/index.js';
 
 export function register(program: Command): void {
   program
@@ -14,6 +12,8 @@ export function register(program: Command): void {
     .option('--json', 'print the rows as JSON on stdout')
     .addHelpText('after', '\nExample:\n  concordat sweep demo-data/concordance.json --from 0.4 --to 0.9 --step 0.1\n\nExit codes: 0 measured, 2 bad input or no gold concordance.')
     .action(async (project: string, opts: { from: string; to: string; step: string; json?: boolean }) => {
+      const { load } = await import('../load/index.js');
+      const { sweep, sweepValues, sweepTable } = await import('../analyse/index.js');
       const values = sweepValues(Number(opts.from), Number(opts.to), Number(opts.step));
       const { model } = await load(project);
       const rows = sweep(model, values);

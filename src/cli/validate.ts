@@ -1,10 +1,6 @@
 // `concordat validate <files...>`: options → SHACL validation of RDF files, printed summary and exit code.
 import type { Command } from 'commander';
 import { EXIT } from '../errors.js';
-import { defaultShapesDir, loadDataFiles, loadShapesFolder } from '../validate/files.js';
-import { validate } from '../validate/shacl.js';
-import { writeValidationReport } from '../validate/report.js';
-import { summaryJson, summaryText } from '../validate/summary.js';
 
 const EXAMPLE = `
 Exit status: 0 when no result has severity sh:Violation (warnings and infos are listed but pass),
@@ -25,6 +21,10 @@ export function register(program: Command): void {
     .option('--json', 'print the outcome as JSON instead of text')
     .addHelpText('after', EXAMPLE)
     .action(async (files: string[], opts: { shapes?: string; report?: string; json?: boolean }) => {
+      const { defaultShapesDir, loadDataFiles, loadShapesFolder } = await import('../validate/files.js');
+      const { validate } = await import('../validate/shacl.js');
+      const { writeValidationReport } = await import('../validate/report.js');
+      const { summaryJson, summaryText } = await import('../validate/summary.js');
       const shapes = await loadShapesFolder(opts.shapes ?? defaultShapesDir());
       const data = await loadDataFiles(files);
       const outcome = await validate(data, shapes.quads, { shapesLabel: opts.shapes ?? 'shapes' });
