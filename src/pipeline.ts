@@ -21,6 +21,8 @@ import { readRelease, releaseHistory, writeChanges, type Changes } from './histo
 export interface BuildOptions {
   shapesDir?: string;
   workers?: number;
+  /** Quads per SHACL batch (smaller = flatter memory; default 20 000). */
+  validationBatch?: number;
   /** Run SHACL over the release (default true); false skips it and writes no validation.ttl (for timing the rest). */
   validate?: boolean;
   /** Progress lines (stage names) for a terminal; silent when undefined. */
@@ -89,7 +91,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const previousVersion = previous?.snapshot.dataset;
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
-    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validate: opts.validate });
+    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate });
     if (!publish.validation.conforms) {
       const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(

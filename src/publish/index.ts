@@ -8,7 +8,7 @@ import { releaseUnits, Namer, type LinksetCounts, type Unit } from '../rdf/index
 import { datasetUnit } from '../rdf/dataset.js';
 import type { ReleaseView } from '../rdf/view.js';
 import { writeQuads } from '../rdf/serialize.js';
-import { validateChunks, writeValidationReport } from '../validate/chunked.js';
+import { validateChunks, writeValidationReport, type ValidationChunk } from '../validate/chunked.js';
 import type { ValidationOutcome } from '../validate/shacl.js';
 import { outcomeOf } from '../validate/report.js';
 import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
@@ -20,6 +20,8 @@ export interface PublishOptions {
   /** Extra units appended before the dataset description (e.g. changes against the previous release). */
   extraUnits?: Unit[];
   workers?: number;
+  /** Quads per SHACL batch (default: validateChunks' own). */
+  validationBatch?: number;
   /** Run SHACL (default true); false writes everything except validation.ttl and reports an empty outcome. */
   validate?: boolean;
 }
@@ -41,7 +43,7 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const writer = new ReleaseWriter(dir, view.model.project.partners.map((p) => p.key));
   let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
-  async function* chunks(): AsyncGenerator<Quad[]> {
+  async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
     for (const unit of releaseUnits(view, namer, counts)) {
       if (unit.kind === 'provenance') typeIndex = typeIndexOf(unit);
       await writer.add(unit);
@@ -60,7 +62,7 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   if (opts.validate === false) {
     for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
     validation = outcomeOf([]);
-  } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, shapesLabel: 'shapes' });
+  } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes' });
   await writer.close();
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
   if (opts.validate !== false) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);

@@ -5,6 +5,7 @@ import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import { openQuadWriter, type QuadWriter } from '../rdf/serialize.js';
 import type { Unit } from '../rdf/index.js';
+import type { ValidationChunk } from '../validate/chunked.js';
 import { JsonLdFile, unitNodes } from './jsonld.js';
 
 /** A buffered text file (JSON-LD is written as text, chunked like the RDF writers). */
@@ -81,20 +82,21 @@ export class ReleaseWriter {
 }
 
 /**
- * A unit plus the rdf:type quads of the shared nodes it points to (runs, agents, reviews, curators), so class-based
- * constraints resolve inside the chunk without loading the whole release.
+ * A unit as a validation chunk: its own quads, and as context the rdf:type quads of the shared nodes it points to
+ * (runs, agents, reviews, curators) plus the unit's own context, so class-based constraints resolve inside the chunk
+ * without loading the whole release. Context-only nodes are not themselves judged here (see validateChunks).
  */
-export function chunkOf(unit: Unit, typeIndex: Map<string, Quad[]>): Quad[] {
-  const extra: Quad[] = [];
+export function chunkOf(unit: Unit, typeIndex: Map<string, Quad[]>): ValidationChunk {
+  const context: Quad[] = [];
   const seen = new Set<string>();
   for (const q of unit.quads) {
     if (q.object.termType !== 'NamedNode' || seen.has(q.object.value)) continue;
     seen.add(q.object.value);
     const stubs = typeIndex.get(q.object.value);
-    if (stubs) extra.push(...stubs);
+    if (stubs) context.push(...stubs);
   }
-  if (unit.context?.length) extra.push(...unit.context);
-  return extra.length ? unit.quads.concat(extra) : unit.quads;
+  if (unit.context?.length) context.push(...unit.context);
+  return { quads: unit.quads, context };
 }
 
 /** Subject IRI → its rdf:type quads, over the shared provenance unit. */

@@ -77,8 +77,23 @@ class Pool {
  * gathered into batches and sent to `workers` threads; results are merged (see RowMerger) and sorted, so the
  * outcome does not depend on thread timing.
  */
+/**
+ * A chunk to validate: its own quads, plus context quads (e.g. rdf:type copies of shared nodes it points to) that let
+ * sh:class checks resolve. Results whose focus node is described only by context are dropped: that node is validated
+ * in full in the chunk that owns it.
+ */
+export interface ValidationChunk {
+  quads: Quad[];
+  context?: Quad[];
+}
+
+/** Drops rows about nodes a batch holds only as context. */
+function ownRows(rows: ResultRow[], foreign: Set<string>): ResultRow[] {
+  return foreign.size ? rows.filter((r) => !foreign.has(r.focusNode)) : rows;
+}
+
 export async function validateChunks(
-  chunks: Iterable<Quad[]> | AsyncIterable<Quad[]>,
+  chunks: Iterable<Quad[] | ValidationChunk> | AsyncIterable<Quad[] | ValidationChunk>,
   shapes: Quad[],
   opts: ChunkedOptions = {},
 ): Promise<ValidationOutcome> {
@@ -90,27 +105,34 @@ export async function validateChunks(
   const pending: Promise<void>[] = [];
   let failure: unknown = null;
   let batch: Quad[] = [];
+  let owned = new Set<string>();
+  let contextSubjects = new Set<string>();
+  const foreignOf = () => new Set([...contextSubjects].filter((x) => !owned.has(x)));
 
   let local: ReturnType<typeof compileShapes> | null = null;
-  const inProcess = async (quads: Quad[]) => merger.add(await (local ??= compileShapes(shapes, options)).rows(quads));
-  const dispatch = async (quads: Quad[]) => {
-    if (workers === 0) return inProcess(quads);
+  const inProcess = async (quads: Quad[], foreign: Set<string>) => merger.add(ownRows(await (local ??= compileShapes(shapes, options)).rows(quads), foreign));
+  const dispatch = async (quads: Quad[], foreign: Set<string>) => {
+    if (workers === 0) return inProcess(quads, foreign);
     pool ??= new Pool(workers, { shapes: encodeQuads(shapes), options });
     const slot = await pool.acquire();
     if (failure) return;
-    pending.push(pool.run(slot, encodeQuads(quads)).then((rows) => merger.add(rows), (err) => { failure ??= err; }));
+    pending.push(pool.run(slot, encodeQuads(quads)).then((rows) => merger.add(ownRows(rows, foreign)), (err) => { failure ??= err; }));
   };
 
   try {
     for await (const chunk of chunks) {
-      for (const q of chunk) batch.push(q);
+      const { quads, context = [] } = Array.isArray(chunk) ? { quads: chunk } : chunk;
+      for (const q of quads) { batch.push(q); owned.add(q.subject.value); }
+      for (const q of context) { batch.push(q); contextSubjects.add(q.subject.value); }
       if (batch.length >= batchQuads) {
-        await dispatch(batch);
+        await dispatch(batch, foreignOf());
         batch = [];
+        owned = new Set();
+        contextSubjects = new Set();
         if (failure) break;
       }
     }
-    if (!failure && batch.length > 0) await (pool ? dispatch(batch) : inProcess(batch));
+    if (!failure && batch.length > 0) await (pool ? dispatch(batch, foreignOf()) : inProcess(batch, foreignOf()));
     await Promise.all(pending);
   } finally {
     await (pool as Pool | null)?.close();
