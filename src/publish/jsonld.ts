@@ -3,20 +3,19 @@ import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Unit } from '../rdf/index.js';
+import { iri } from '../namespaces.js';
 import { ContextTables } from './jsonld-context.js';
 import { frameQuads } from './jsonld-frame.js';
 
 export const CONTEXT_FILE = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'vocab-map', 'context.jsonld');
 const context = JSON.parse(readFileSync(CONTEXT_FILE, 'utf8'))['@context'];
 
-const CX = 'https://w3id.org/concordat/vocab#';
-const PROV = 'http://www.w3.org/ns/prov#';
 /** Frame per unit kind (JSON-LD 1.1 Framing §2.3): top-level node types; the rest is embedded once where referenced. */
 const FRAME_TYPES: Record<Unit['kind'], string[]> = {
-  cluster: [CX + 'Cluster', CX + 'Link'],
-  link: [CX + 'Link'],
-  provenance: [PROV + 'Activity', PROV + 'Agent', PROV + 'SoftwareAgent', PROV + 'Person'],
-  dataset: ['http://rdfs.org/ns/void#Dataset', 'http://www.w3.org/ns/dcat#Distribution', 'http://xmlns.com/foaf/0.1/Organization'],
+  cluster: [iri('cx', 'Cluster'), iri('cx', 'Link')],
+  link: [iri('cx', 'Link')],
+  provenance: [iri('prov', 'Activity'), iri('prov', 'Agent'), iri('prov', 'SoftwareAgent'), iri('prov', 'Person')],
+  dataset: [iri('void', 'Dataset'), iri('dcat', 'Distribution'), iri('foaf', 'Organization')],
 };
 const frameSets = Object.fromEntries(Object.entries(FRAME_TYPES).map(([k, v]) => [k, new Set(v)])) as Record<Unit['kind'], Set<string>>;
 const tables = new ContextTables(context);
