@@ -3,12 +3,13 @@ import { createWriteStream, mkdirSync, type WriteStream } from 'node:fs';
 import { once } from 'node:events';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
-import { openQuadWriter, type QuadWriter } from '../rdf/serialize.js';
+import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
+import { prefixMap } from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
 import type { ValidationChunk } from '../validate/chunked.js';
 import { JsonLdFile, unitNodes } from './jsonld.js';
 
-/** A buffered text file (JSON-LD is written as text, chunked like the RDF writers). */
+/** A buffered text file: strings gathered to ~1 MiB, then handed to the stream; `drain()` gives back-pressure. */
 class TextFile {
   private out: WriteStream;
   private parts: string[] = [];
@@ -26,6 +27,9 @@ class TextFile {
     this.parts = [];
     this.size = 0;
   }
+  async drain() {
+    if (this.out.writableNeedDrain) await once(this.out, 'drain');
+  }
   async end() {
     this.flush();
     this.out.end();
@@ -34,23 +38,17 @@ class TextFile {
 }
 
 interface Target {
-  ttl: QuadWriter;
-  nq: QuadWriter;
+  ttl: TextFile;
+  nq: TextFile;
   json: JsonLdFile;
   jsonFile: TextFile;
 }
 
-function openTarget(dir: string, stem: string): Target {
+function openTarget(dir: string, stem: string, prefixes: Record<string, string>): Target {
+  const ttl = new TextFile(path.join(dir, `${stem}.ttl`));
+  ttl.write(turtlePrefixes(prefixes));
   const jsonFile = new TextFile(path.join(dir, `${stem}.jsonld`));
-  return { ttl: openQuadWriter(path.join(dir, `${stem}.ttl`), 'turtle'), nq: openQuadWriter(path.join(dir, `${stem}.nq`), 'nquads'), json: new JsonLdFile(jsonFile.write), jsonFile };
-}
-
-async function writeTo(t: Target, quads: Quad[], nodes: object[]): Promise<void> {
-  for (const q of quads) {
-    if (!t.ttl.write(q)) await t.ttl.drain();
-    if (!t.nq.write(q)) await t.nq.drain();
-  }
-  t.json.add(nodes);
+  return { ttl, nq: new TextFile(path.join(dir, `${stem}.nq`)), json: new JsonLdFile(jsonFile.write), jsonFile };
 }
 
 async function closeTarget(t: Target): Promise<void> {
@@ -58,22 +56,33 @@ async function closeTarget(t: Target): Promise<void> {
   await Promise.all([t.ttl.end(), t.nq.end(), t.jsonFile.end()]);
 }
 
-/** The release's RDF writers: `concordance.*` and `partners/<key>.*`, each unit going to the partners it touches. */
+/**
+ * The release's RDF writers: `concordance.*` and `partners/<key>.*`. Each unit is turned into Turtle, N-Quads and
+ * JSON-LD text once, and that text goes to the whole release and to the slice of every partner the unit touches.
+ */
 export class ReleaseWriter {
   private whole: Target;
   private partners: Target[];
+  private turtle: TurtleEncoder;
   triples = 0;
-  constructor(dir: string, partnerKeys: string[]) {
+  constructor(dir: string, partnerKeys: string[], prefixes: Record<string, string> = prefixMap()) {
     mkdirSync(path.join(dir, 'partners'), { recursive: true });
-    this.whole = openTarget(dir, 'concordance');
-    this.partners = partnerKeys.map((k) => openTarget(path.join(dir, 'partners'), k));
+    this.turtle = new TurtleEncoder(prefixes);
+    this.whole = openTarget(dir, 'concordance', prefixes);
+    this.partners = partnerKeys.map((k) => openTarget(path.join(dir, 'partners'), k, prefixes));
   }
   async add(unit: Unit): Promise<void> {
     const nodes = await unitNodes(unit);
     this.triples += unit.quads.length;
-    await writeTo(this.whole, unit.quads, nodes);
-    const targets = unit.partners === 'all' ? this.partners : [...unit.partners].sort((a, b) => a - b).map((p) => this.partners[p]);
-    for (const t of targets) await writeTo(t, unit.quads, nodes);
+    const ttl = this.turtle.encode(unit.quads);
+    const nq = nquadsText(unit.quads);
+    const targets = [this.whole, ...(unit.partners === 'all' ? this.partners : [...unit.partners].sort((a, b) => a - b).map((p) => this.partners[p]))];
+    for (const t of targets) {
+      t.ttl.write(ttl);
+      t.nq.write(nq);
+      t.json.add(nodes);
+    }
+    await this.whole.nq.drain();
   }
   async close(): Promise<void> {
     await closeTarget(this.whole);

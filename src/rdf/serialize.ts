@@ -1,15 +1,12 @@
-// Quads → Turtle / N-Triples / N-Quads files, streamed through n3's Writer in 1 MiB chunks and written atomically.
-import { createWriteStream, type WriteStream } from 'node:fs';
+// Quads → Turtle / N-Triples / N-Quads files, turned into text in batches (src/rdf/text.ts) and written atomically.
+import { createWriteStream } from 'node:fs';
 import { rename, unlink } from 'node:fs/promises';
 import { once } from 'node:events';
-import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
 import { FORMATS, prefixMap, type RdfFormat } from './formats.js';
+import { TurtleEncoder, nquadsText, turtlePrefixes } from './text.js';
 
 export { FORMATS, type RdfFormat } from './formats.js';
-
-/** Bytes (UTF-16 code units, close enough) gathered before one write to the file stream. */
-const CHUNK = 1 << 20;
 
 /** A quad sink over one output file. */
 export interface QuadWriter {
@@ -23,30 +20,8 @@ export interface QuadWriter {
   abort(): Promise<void>;
 }
 
-/** Collects the writer's output and hands it to the file stream in chunks of about {@link CHUNK}. */
-class ChunkSink {
-  private parts: string[] = [];
-  private size = 0;
-  ok = true;
-  constructor(private readonly out: WriteStream) {}
-  write(text: string, _enc?: unknown, done?: () => void): void {
-    this.parts.push(text);
-    this.size += text.length;
-    if (this.size >= CHUNK) this.flush();
-    if (typeof done === 'function') done();
-  }
-  flush(): void {
-    if (this.size === 0) return;
-    this.ok = this.out.write(this.parts.join('')) && this.ok;
-    this.parts = [];
-    this.size = 0;
-  }
-  end(done?: () => void): void {
-    if (typeof done === 'function') done();
-  }
-}
-
-const { DataFactory } = N3;
+/** Quads gathered before they are turned into text in one go. */
+const BATCH = 4096;
 
 /**
  * Opens a streaming writer for `path` in `format` (RDF 1.1 Turtle §2, N-Triples §2, N-Quads §2).
@@ -60,24 +35,28 @@ export function openQuadWriter(path: string, format: RdfFormat, prefixes: Record
   const out = createWriteStream(tmp);
   let failure: Error | null = null;
   out.on('error', (err) => { failure = err; });
-  const sink = new ChunkSink(out);
-  const writer = new N3.Writer(sink, { format: info.n3Format, prefixes: info.prefixed ? prefixes : {}, end: false });
-  const defaultGraph = DataFactory.defaultGraph();
+  const turtle = info.prefixed ? new TurtleEncoder(prefixes) : null;
+  let batch: Quad[] = [];
+  let ok = true;
+  if (turtle) ok = out.write(turtlePrefixes(prefixes));
+  const flush = () => {
+    if (batch.length === 0) return;
+    ok = out.write(turtle ? turtle.encode(batch) : nquadsText(batch, info.graphs)) && ok;
+    batch = [];
+  };
   const finish = async (): Promise<void> => {
-    const ended = new Promise<void>((resolve) => writer.end(() => resolve()));
-    await ended;
-    sink.flush();
+    flush();
     out.end();
     if (!out.closed) await once(out, 'close').catch(() => undefined);
   };
   return {
     write(quad) {
       if (failure) throw failure;
-      if (info.graphs || quad.graph.termType === 'DefaultGraph') writer.addQuad(quad);
-      else writer.addQuad(quad.subject, quad.predicate, quad.object, defaultGraph);
-      const ok = sink.ok;
-      sink.ok = true;
-      return ok;
+      batch.push(quad);
+      if (batch.length >= BATCH) flush();
+      const was = ok;
+      ok = true;
+      return was;
     },
     async drain() {
       if (out.writableNeedDrain) await once(out, 'drain');

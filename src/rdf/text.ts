@@ -1,0 +1,112 @@
+// RDF terms and quads → N-Triples / N-Quads / Turtle text, without per-quad writer objects (the publishing hot path).
+import type { Quad, Term } from '@rdfjs/types';
+
+const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
+const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
+const RDF_TYPE = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#type';
+
+/** ECHAR and UCHAR escapes for a quoted string (RDF 1.1 N-Triples §2.4, Turtle §2.5.1). */
+function escapeString(s: string): string {
+  // eslint-disable-next-line no-control-regex
+  if (!/["\\\u0000-\u001f\u007f\ud800-\udfff]/.test(s)) return s;
+  let out = '';
+  for (let i = 0; i < s.length; i++) {
+    const c = s.charCodeAt(i);
+    const ch = s[i];
+    if (ch === '"') out += '\\"';
+    else if (ch === '\\') out += '\\\\';
+    else if (ch === '\n') out += '\\n';
+    else if (ch === '\r') out += '\\r';
+    else if (ch === '\t') out += '\\t';
+    else if (c < 0x20 || c === 0x7f) out += '\\u' + c.toString(16).toUpperCase().padStart(4, '0');
+    else if (c >= 0xd800 && c <= 0xdbff && i + 1 < s.length && s.charCodeAt(i + 1) >= 0xdc00 && s.charCodeAt(i + 1) <= 0xdfff) {
+      out += ch + s[i + 1];
+      i++;
+    } else if (c >= 0xd800 && c <= 0xdfff) out += '\\u' + c.toString(16).toUpperCase(); // lone surrogate: keep it representable
+    else out += ch;
+  }
+  return out;
+}
+
+/** IRIREF with the characters it may not hold written as UCHAR (RDF 1.1 N-Triples §2.3, [8] IRIREF). */
+function iriRef(iri: string): string {
+  // eslint-disable-next-line no-control-regex
+  if (!/[\u0000-\u0020<>"{}|^`\\]/.test(iri)) return `<${iri}>`;
+  return '<' + iri.replace(/[\u0000-\u0020<>"{}|^`\\]/g, (c) => '\\u' + c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')) + '>';
+}
+
+/** One term in N-Triples syntax. */
+export function ntTerm(t: Term): string {
+  switch (t.termType) {
+    case 'NamedNode':
+      return iriRef(t.value);
+    case 'BlankNode':
+      return '_:' + t.value;
+    case 'Literal': {
+      const body = `"${escapeString(t.value)}"`;
+      if (t.language) return `${body}@${t.language}`;
+      return t.datatype.value === XSD_STRING ? body : `${body}^^${iriRef(t.datatype.value)}`;
+    }
+    default:
+      throw new Error(`cannot write a ${t.termType} term in N-Triples`);
+  }
+}
+
+/** Quads as N-Quads lines (RDF 1.1 N-Quads §2); `graphs: false` gives N-Triples. */
+export function nquadsText(quads: readonly Quad[], graphs = true): string {
+  let out = '';
+  for (const q of quads) {
+    out += `${ntTerm(q.subject)} ${ntTerm(q.predicate)} ${ntTerm(q.object)}`;
+    out += graphs && q.graph.termType !== 'DefaultGraph' ? ` ${ntTerm(q.graph)} .\n` : ' .\n';
+  }
+  return out;
+}
+
+/** PN_LOCAL we are sure of: letters, digits, `_` and `-`, not starting with `-` (a safe subset of Turtle §6.5 [168s]). */
+const SAFE_LOCAL = /^[A-Za-z0-9_][A-Za-z0-9_-]*$/;
+
+/** Prefix declarations (Turtle §2.4) in a fixed order. */
+export function turtlePrefixes(prefixes: Record<string, string>): string {
+  return Object.entries(prefixes).map(([p, ns]) => `@prefix ${p}: ${iriRef(ns)} .\n`).join('') + '\n';
+}
+
+/**
+ * Turtle text for a run of quads (graph names dropped), grouping consecutive triples of one subject with `;` and of
+ * one predicate with `,` (Turtle §2.3), prefixed names where the local part is plainly safe, `a` for rdf:type.
+ * Each call returns complete statements, so fragments from several calls can be concatenated after one prefix block.
+ */
+export class TurtleEncoder {
+  private readonly spaces: [string, string][];
+  constructor(prefixes: Record<string, string>) {
+    // longest namespace first, so nested namespaces pick the most specific prefix
+    this.spaces = Object.entries(prefixes).sort((a, b) => b[1].length - a[1].length);
+  }
+  private name(iri: string): string {
+    for (const [p, ns] of this.spaces) if (iri.startsWith(ns) && SAFE_LOCAL.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
+    return iriRef(iri);
+  }
+  private term(t: Term): string {
+    if (t.termType === 'NamedNode') return this.name(t.value);
+    if (t.termType === 'Literal' && !t.language && t.datatype.value !== XSD_STRING && t.datatype.value !== RDF_LANG_STRING)
+      return `"${escapeString(t.value)}"^^${this.name(t.datatype.value)}`;
+    return ntTerm(t);
+  }
+  encode(quads: readonly Quad[]): string {
+    let out = '';
+    let s = '';
+    let p = '';
+    for (const q of quads) {
+      const subject = q.subject.termType === 'NamedNode' ? q.subject.value : '_:' + q.subject.value;
+      const predicate = q.predicate.value;
+      if (subject === s && predicate === p) out += ', ' + this.term(q.object);
+      else if (subject === s) out += ';\n    ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+      else {
+        if (s) out += ' .\n';
+        out += this.term(q.subject) + ' ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+      }
+      s = subject;
+      p = predicate;
+    }
+    return s ? out + ' .\n' : out;
+  }
+}
