@@ -17,6 +17,7 @@ import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
 import { repoRoot } from './helpers/fixture.js';
 import { distinctCount, formatOf, merged, ourQuads, rapper, rapperRead, rdflibRead, rdflibJsonLd, rdflibPython, type ToolReading } from './helpers/external-rdf.js';
 import { PARTNERS, imageId, writeTinyProject, type TinyProject } from './helpers/tiny-project.js';
+import { requires } from './helpers/requires.js';
 
 const tmp = mkdtempSync(path.join(tmpdir(), 'concordat-release-checks-'));
 after(() => rmSync(tmp, { recursive: true, force: true }));
@@ -56,7 +57,7 @@ test('Turtle, N-Quads and JSON-LD of one slice carry the same number of triples 
 // Independent parser 1: rdflib (Debian python3-rdflib; rdflib docs "Loading and saving RDF": Graph.parse, format
 // "turtle" / "nquads" / "json-ld"). It counts a set of triples (Graph) or quads (ConjunctiveGraph.quads()), and what it
 // read, written back as N-Triples / N-Quads, must be isomorphic to what we read (RDF 1.1 Concepts §3.6).
-const noRdflib = rdflibPython ? false : 'python3-rdflib is not installed (Debian package; .ci/run installs it)';
+const noRdflib = requires(rdflibPython, 'python3-rdflib is not installed (Debian package; .ci/run installs it)');
 let rdflibMemo: Record<string, ToolReading> | null = null;
 const rdflibOf = (f: string) => (rdflibMemo ??= rdflibRead(dumps.filter((d) => formatOf(d) !== 'jsonld' || rdflibJsonLd).map((d) => path.join(dir, d))))[path.join(dir, f)];
 for (const f of dumps) {
@@ -69,7 +70,7 @@ for (const f of dumps) {
 }
 
 // Independent parser 2: rapper (Debian raptor2-utils; rapper(1): -i turtle|nquads, "Parsing returned N triples").
-const noRapper = rapper ? false : 'rapper is not installed (Debian raptor2-utils; .ci/run installs it)';
+const noRapper = requires(rapper, 'rapper is not installed (Debian raptor2-utils; .ci/run installs it)');
 for (const f of dumps.filter((d) => formatOf(d) !== 'jsonld')) {
   test(`rapper parses ${f} with our count and our graph`, { skip: noRapper }, async () => {
     const theirs = rapperRead(path.join(dir, f));

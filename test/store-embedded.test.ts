@@ -209,7 +209,7 @@ test('CLI: load into a store folder, then query it by name (exit codes and stdou
     assert.equal(hostile.status, 2);
     assert.match(hostile.stderr, /cluster: the IRI contains/);
     const ask = spawnSync(process.execPath, [CLI, 'query', '--store', dir, `ASK { ?s a <${CX}Nothing> }`], { encoding: 'utf8' });
-    assert.deepEqual([ask.status, ask.stdout], [0, 'false\n']);
+    assert.deepEqual([ask.status, ask.stdout], [0, 'false\n'], ask.stderr);
   } finally {
     rmSync(dir, { recursive: true });
   }

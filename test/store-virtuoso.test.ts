@@ -14,9 +14,10 @@ import { readNamedQuery } from '../src/store/named.js';
 import { RemoteStore, type Endpoints, type RemoteHooks } from '../src/store/remote.js';
 import { loadPlanned, planRelease } from '../src/store/release.js';
 import { BASE, FIXTURE, NAMED_CASES, fileCounts, graphDump, secondVersion } from './helpers/store.js';
+import { requires } from './helpers/requires.js';
 
 const URL_BASE = process.env.CONCORDAT_TEST_VIRTUOSO;
-const skip = URL_BASE ? false : 'set CONCORDAT_TEST_VIRTUOSO=http://127.0.0.1:28890 (a running Virtuoso, see .ci/run)';
+const skip = requires(URL_BASE, 'set CONCORDAT_TEST_VIRTUOSO=http://127.0.0.1:28890 (a running Virtuoso, see .ci/run)');
 const CLI = fileURLToPath(new URL('../src/cli/main.js', import.meta.url));
 // Virtuoso's endpoints (GSP and Update behind HTTP Digest; Query anonymous), per the Virtuoso 7 documentation.
 const ENDPOINTS: Endpoints = URL_BASE ? { gsp: `${URL_BASE}/sparql-graph-crud-auth`, update: `${URL_BASE}/sparql-auth`, query: `${URL_BASE}/sparql` } : { query: '' };
