@@ -38,16 +38,28 @@ export function unitNodes(unit: Unit): Promise<object[]> {
 export class JsonLdFile {
   private first = true;
   constructor(private readonly write: (s: string) => void) {
-    write(`{\n"@context": ${JSON.stringify(context)},\n"@graph": [\n`);
+    write(JsonLdFile.head);
+  }
+  /** The text before the first node: the shared context and the opening of `@graph`. */
+  static readonly head = `{\n"@context": ${JSON.stringify(context)},\n"@graph": [\n`;
+  /** The text after the last node. */
+  static readonly tail = '\n]}\n';
+  /** Nodes as one run of text (`,\n` between nodes), to be placed with `separator()` before it. */
+  static text(nodes: object[]): string {
+    return nodes.map((n) => JSON.stringify(n)).join(',\n');
+  }
+  /** What must precede the next run of nodes in this file ('' for the first), and records that a run follows. */
+  separator(): string {
+    const s = this.first ? '' : ',\n';
+    this.first = false;
+    return s;
   }
   add(nodes: object[]): void {
-    for (const n of nodes) {
-      this.write((this.first ? '' : ',\n') + JSON.stringify(n));
-      this.first = false;
-    }
+    if (nodes.length === 0) return;
+    this.write(this.separator() + JsonLdFile.text(nodes));
   }
   close(): void {
-    this.write('\n]}\n');
+    this.write(JsonLdFile.tail);
   }
 }
 

@@ -9,21 +9,25 @@ import type { Unit } from '../rdf/index.js';
 import type { ValidationChunk } from '../validate/chunked.js';
 import { JsonLdFile, unitNodes } from './jsonld.js';
 
-/** A buffered text file: strings gathered to ~1 MiB, then handed to the stream; `drain()` gives back-pressure. */
-class TextFile {
+/** A buffered output file: byte runs gathered to ~1 MiB, then handed to the stream; `drain()` gives back-pressure. */
+class OutFile {
   private out: WriteStream;
-  private parts: string[] = [];
+  private parts: Buffer[] = [];
   private size = 0;
   constructor(file: string) {
     this.out = createWriteStream(file);
   }
-  write = (s: string) => {
-    this.parts.push(s);
-    this.size += s.length;
+  write(b: Buffer): void {
+    if (b.length === 0) return;
+    this.parts.push(b);
+    this.size += b.length;
     if (this.size > 1 << 20) this.flush();
-  };
+  }
+  text(s: string): void {
+    this.write(Buffer.from(s, 'utf8'));
+  }
   private flush() {
-    if (this.parts.length) this.out.write(this.parts.join(''));
+    if (this.parts.length) this.out.write(this.parts.length === 1 ? this.parts[0] : Buffer.concat(this.parts, this.size));
     this.parts = [];
     this.size = 0;
   }
@@ -38,27 +42,30 @@ class TextFile {
 }
 
 interface Target {
-  ttl: TextFile;
-  nq: TextFile;
-  json: JsonLdFile;
-  jsonFile: TextFile;
+  ttl: OutFile;
+  nq: OutFile;
+  json: OutFile;
+  /** No JSON-LD node written yet (no separator before the next run). */
+  jsonFirst: boolean;
 }
 
 function openTarget(dir: string, stem: string, prefixes: Record<string, string>): Target {
-  const ttl = new TextFile(path.join(dir, `${stem}.ttl`));
-  ttl.write(turtlePrefixes(prefixes));
-  const jsonFile = new TextFile(path.join(dir, `${stem}.jsonld`));
-  return { ttl, nq: new TextFile(path.join(dir, `${stem}.nq`)), json: new JsonLdFile(jsonFile.write), jsonFile };
+  const t: Target = { ttl: new OutFile(path.join(dir, `${stem}.ttl`)), nq: new OutFile(path.join(dir, `${stem}.nq`)), json: new OutFile(path.join(dir, `${stem}.jsonld`)), jsonFirst: true };
+  t.ttl.text(turtlePrefixes(prefixes));
+  t.json.text(JsonLdFile.head);
+  return t;
 }
 
 async function closeTarget(t: Target): Promise<void> {
-  t.json.close();
-  await Promise.all([t.ttl.end(), t.nq.end(), t.jsonFile.end()]);
+  t.json.text(JsonLdFile.tail);
+  await Promise.all([t.ttl.end(), t.nq.end(), t.json.end()]);
 }
+
+const SEPARATOR = Buffer.from(',\n');
 
 /**
  * The release's RDF writers: `concordance.*` and `partners/<key>.*`. Each unit is turned into Turtle, N-Quads and
- * JSON-LD text once, and that text goes to the whole release and to the slice of every partner the unit touches.
+ * JSON-LD bytes once, and those bytes go to the whole release and to the slice of every partner the unit touches.
  */
 export class ReleaseWriter {
   private whole: Target;
@@ -74,13 +81,18 @@ export class ReleaseWriter {
   async add(unit: Unit): Promise<void> {
     const nodes = await unitNodes(unit);
     this.triples += unit.quads.length;
-    const ttl = this.turtle.encode(unit.quads);
-    const nq = nquadsText(unit.quads);
+    const ttl = Buffer.from(this.turtle.encode(unit.quads), 'utf8');
+    const nq = Buffer.from(nquadsText(unit.quads), 'utf8');
+    const json = nodes.length ? Buffer.from(JsonLdFile.text(nodes), 'utf8') : null;
     const targets = [this.whole, ...(unit.partners === 'all' ? this.partners : [...unit.partners].sort((a, b) => a - b).map((p) => this.partners[p]))];
     for (const t of targets) {
       t.ttl.write(ttl);
       t.nq.write(nq);
-      t.json.add(nodes);
+      if (json) {
+        if (!t.jsonFirst) t.json.write(SEPARATOR);
+        t.jsonFirst = false;
+        t.json.write(json);
+      }
     }
     await this.whole.nq.drain();
   }
