@@ -102,7 +102,7 @@ const problem = (file: string, line: number, message: string, hint?: string): Pr
  * Blank lines are skipped. Structural faults (invalid UTF-8, stray or unterminated quotes) throw a UserError
  * naming the line; ragged rows are left to the caller, which knows the header.
  */
-export async function* readCsv(file: string, delimiter: string): AsyncGenerator<CsvRow> {
+export async function* readCsv(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow> {
   const tracker = new LineTracker(delimiter.charCodeAt(0));
   const decoder = new TextDecoder('utf-8', { fatal: true });
   const parser = parse({ delimiter, ignoreEmpty: false, quote: '"', escape: '"' });
@@ -130,7 +130,10 @@ export async function* readCsv(file: string, delimiter: string): AsyncGenerator<
   let stream;
   try {
     stream = createReadStream(file);
+    let bytesRead = 0;
     for await (const chunk of stream as AsyncIterable<Buffer>) {
+      bytesRead += chunk.length;
+      onBytes?.(bytesRead);
       const buf = carry.length ? Buffer.concat([carry, chunk]) : chunk;
       const { bad, tail } = firstInvalidUtf8(buf);
       if (bad >= 0) {

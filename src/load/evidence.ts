@@ -5,6 +5,9 @@ import { float64, int32 } from '../util/columns.js';
 import { readTable } from './table.js';
 import { resolveRef, type RefResolver } from './refs.js';
 import { didYouMean } from './did-you-mean.js';
+import { statSync } from 'node:fs';
+import path from 'node:path';
+import { progress } from '../util/progress.js';
 
 export interface MatchColumns {
   a: ReturnType<typeof int32>;
@@ -33,57 +36,65 @@ export async function loadEvidence(
 ): Promise<{ rows: number; sameRecord: number }> {
   const counts = { rows: 0, sameRecord: 0 };
   const runIds = new Map(runs.map((r, i) => [r.id, i]));
-  for await (const row of readTable(file, ',', ['image_a', 'image_b', 'score'], ['overlap', 'run'], problems, 'evidence')) {
-    counts.rows++;
-    const at = (field: string) => ({ file, line: row.line, field });
-    let bad = false;
-    const ends: number[] = [];
-    for (const col of ['image_a', 'image_b']) {
-      const r = resolveRef(images, row.get(col), 'image');
-      if (typeof r === 'number') ends.push(r);
-      else { problems.add({ ...r, ...at(col) }); bad = true; }
-    }
-    const rawScore = row.get('score').trim();
-    const score = Number(rawScore);
-    if (!NUMBER.test(rawScore) || score < 0 || score > 1) {
-      problems.add({ ...at('score'), message: `score "${rawScore}" is not a number in [0,1]`, hint: 'higher = more alike; rescale the matcher output to 0..1' });
-      bad = true;
-    }
-    const rawOverlap = row.get('overlap').trim();
-    const overlap = rawOverlap === '' ? 1 : Number(rawOverlap);
-    if (rawOverlap !== '' && (!NUMBER.test(rawOverlap) || overlap <= 0 || overlap > 1)) {
-      problems.add({ ...at('overlap'), message: `overlap "${rawOverlap}" is not a number in (0,1]`, hint: 'share of the smaller image the matched region covers; blank means 1' });
-      bad = true;
-    }
-    let run = fileRun;
-    const rawRun = row.get('run').trim();
-    if (rawRun !== '') {
-      const r = runIds.get(rawRun);
-      if (r === undefined) {
-        const near = didYouMean(rawRun, [...runIds.keys()]);
-        problems.add({ ...at('run'), message: `unknown run "${rawRun}"`, hint: near ? `did you mean "${near}"?` : 'declare it as "run" of an evidence entry in concordance.json' });
+  let size = 0;
+  try { size = statSync(file).size; } catch { /* a missing file is reported by the reader */ }
+  const bar = progress(`evidence ${path.basename(file)}`, Math.round(size / 1048576), 'MiB');
+  const rows = readTable(file, ',', ['image_a', 'image_b', 'score'], ['overlap', 'run'], problems, 'evidence', (b) => bar.update(Math.round(b / 1048576)));
+  try {
+    for await (const row of rows) {
+      counts.rows++;
+      const at = (field: string) => ({ file, line: row.line, field });
+      let bad = false;
+      const ends: number[] = [];
+      for (const col of ['image_a', 'image_b']) {
+        const r = resolveRef(images, row.get(col), 'image');
+        if (typeof r === 'number') ends.push(r);
+        else { problems.add({ ...r, ...at(col) }); bad = true; }
+      }
+      const rawScore = row.get('score').trim();
+      const score = Number(rawScore);
+      if (!NUMBER.test(rawScore) || score < 0 || score > 1) {
+        problems.add({ ...at('score'), message: `score "${rawScore}" is not a number in [0,1]`, hint: 'higher = more alike; rescale the matcher output to 0..1' });
         bad = true;
-      } else run = r;
-    } else if (run < 0) {
-      problems.add({ ...at('run'), message: 'no run for this row', hint: 'give the evidence entry a "run" in concordance.json or fill the run column' });
-      bad = true;
+      }
+      const rawOverlap = row.get('overlap').trim();
+      const overlap = rawOverlap === '' ? 1 : Number(rawOverlap);
+      if (rawOverlap !== '' && (!NUMBER.test(rawOverlap) || overlap <= 0 || overlap > 1)) {
+        problems.add({ ...at('overlap'), message: `overlap "${rawOverlap}" is not a number in (0,1]`, hint: 'share of the smaller image the matched region covers; blank means 1' });
+        bad = true;
+      }
+      let run = fileRun;
+      const rawRun = row.get('run').trim();
+      if (rawRun !== '') {
+        const r = runIds.get(rawRun);
+        if (r === undefined) {
+          const near = didYouMean(rawRun, [...runIds.keys()]);
+          problems.add({ ...at('run'), message: `unknown run "${rawRun}"`, hint: near ? `did you mean "${near}"?` : 'declare it as "run" of an evidence entry in concordance.json' });
+          bad = true;
+        } else run = r;
+      } else if (run < 0) {
+        problems.add({ ...at('run'), message: 'no run for this row', hint: 'give the evidence entry a "run" in concordance.json or fill the run column' });
+        bad = true;
+      }
+      if (!bad && ends[0] === ends[1]) {
+        problems.add({ ...at('image_b'), message: 'an image matched with itself', hint: 'drop self-matches from the matcher output' });
+        bad = true;
+      }
+      if (bad) continue;
+      if (imageWork(ends[0]) === imageWork(ends[1])) {
+        counts.sameRecord++; // two photos of one record: counted and reported, says nothing about other records
+        continue;
+      }
+      m.a.push(ends[0]);
+      m.b.push(ends[1]);
+      m.score.push(score);
+      m.overlap.push(overlap);
+      m.run.push(run);
+      m.file.push(fileNo);
+      m.line.push(row.line);
     }
-    if (!bad && ends[0] === ends[1]) {
-      problems.add({ ...at('image_b'), message: 'an image matched with itself', hint: 'drop self-matches from the matcher output' });
-      bad = true;
-    }
-    if (bad) continue;
-    if (imageWork(ends[0]) === imageWork(ends[1])) {
-      counts.sameRecord++; // two photos of one record: counted and reported, says nothing about other records
-      continue;
-    }
-    m.a.push(ends[0]);
-    m.b.push(ends[1]);
-    m.score.push(score);
-    m.overlap.push(overlap);
-    m.run.push(run);
-    m.file.push(fileNo);
-    m.line.push(row.line);
+  } finally {
+    bar.stop();
   }
   return counts;
 }

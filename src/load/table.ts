@@ -21,11 +21,12 @@ export async function* readTable(
   optional: string[],
   problems: ProblemList,
   context: string,
+  onBytes?: (bytesRead: number) => void,
 ): AsyncGenerator<TableRow> {
   let header: string[] | undefined;
   let index = new Map<string, number>();
   let records = 0;
-  for await (const { fields, line } of readCsv(file, delimiter)) {
+  for await (const { fields, line } of readCsv(file, delimiter, onBytes)) {
     if (!header) {
       header = fields.map((h) => h.trim());
       index = new Map(header.map((h, i) => [h, i]));

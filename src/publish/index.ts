@@ -4,7 +4,8 @@ import { createReadStream } from 'node:fs';
 import { readdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
-import { releaseUnits, Namer, type LinksetCounts, type Unit } from '../rdf/index.js';
+import { releaseUnits, Namer, isPublished, type LinksetCounts, type Unit } from '../rdf/index.js';
+import { progress } from '../util/progress.js';
 import { datasetUnit } from '../rdf/dataset.js';
 import type { ReleaseView } from '../rdf/view.js';
 import { writeQuads } from '../rdf/serialize.js';
@@ -43,13 +44,19 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const writer = new ReleaseWriter(dir, view.model.project.partners.map((p) => p.key));
   let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
+  const inClusters = new Set(view.clusters.flatMap((c) => c.links));
+  const stray = view.links.links.filter((l, i) => isPublished(l) && !inClusters.has(i)).length;
+  const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
+  let done = 0;
   async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
     for (const unit of releaseUnits(view, namer, counts)) {
+      bar.update(++done);
       if (unit.kind === 'provenance') typeIndex = typeIndexOf(unit);
       await writer.add(unit);
       yield chunkOf(unit, typeIndex);
     }
     for (const unit of opts.extraUnits ?? []) {
+      bar.update(++done);
       await writer.add(unit);
       yield chunkOf(unit, typeIndex);
     }
@@ -59,10 +66,14 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
     yield ds.quads;
   }
   let validation: ValidationOutcome;
-  if (opts.validate === false) {
-    for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
-    validation = outcomeOf([]);
-  } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes' });
+  try {
+    if (opts.validate === false) {
+      for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
+      validation = outcomeOf([]);
+    } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes' });
+  } finally {
+    bar.stop();
+  }
   await writer.close();
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
   if (opts.validate !== false) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
