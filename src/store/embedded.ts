@@ -68,11 +68,11 @@ export class EmbeddedStore implements Store {
     const t0 = performance.now();
     const target = sparqlIri(graph, '--graph');
     const lines = source.lines ?? dropGraphNames(source.text, source.file);
-    if (lines.lines.length === 0) {
+    if (lines.count === 0) {
       await this.dropGraph(graph);
       return { graph, triples: 0, millis: performance.now() - t0 };
     }
-    const body = lines.lines.join('\n') + '\n';
+    const body = Buffer.from(lines.text);
     // oxigraph's load is one transaction: into an absent graph it can go directly; an existing graph is replaced by MOVE.
     const replacing = countIn(this.db, graph) > 0;
     const into = replacing ? `${graph}-staging-${randomBytes(6).toString('hex')}` : graph;
@@ -84,22 +84,22 @@ export class EmbeddedStore implements Store {
     }
     if (replacing) this.db.update(`MOVE SILENT GRAPH ${sparqlIri(into)} TO GRAPH ${target}`);
     const triples = countIn(this.db, graph);
-    if (this.folder) await this.persist(graph, lines.lines, triples, source);
+    if (this.folder) await this.persist(graph, lines.text, triples, source);
     return { graph, triples, millis: performance.now() - t0 };
   }
 
   /** Writes the graph file, then the manifest, then removes the file the manifest no longer names. */
-  private async persist(graph: string, lines: string[], triples: number, source: GraphSource): Promise<void> {
+  private async persist(graph: string, triples: string, count: number, source: GraphSource): Promise<void> {
     const folder = this.folder!;
-    const suffix = ` <${graph}> .`;
-    const text = lines.map((l) => l.slice(0, -1).trimEnd() + suffix).join('\n') + '\n';
+    // Every line ends with " .\n" and N-Triples has no raw newline inside a term, so this touches line ends only.
+    const text = triples.replace(/ \.\n/g, ` <${graph}> .\n`);
     const digest = sha256(text);
     const file = graphFileName(graph, digest);
     await writeAtomic(join(folder, file), text);
     const old = this.manifest.graphs[graph]?.file;
     const next: Manifest = {
       version: 1,
-      graphs: { ...this.manifest.graphs, [graph]: { file, triples, sha256: digest, loadedAt: source.issued ?? null, source: relative(resolve(folder), resolve(source.file)) } },
+      graphs: { ...this.manifest.graphs, [graph]: { file, triples: count, sha256: digest, loadedAt: source.issued ?? null, source: relative(resolve(folder), resolve(source.file)) } },
     };
     await writeManifest(folder, next);
     this.manifest = next;

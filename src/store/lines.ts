@@ -1,9 +1,14 @@
 // N-Quads / N-Triples text → per-graph lists of triple lines, kept term for term (labels, escapes) with their file lines.
 import { UserError } from '../errors.js';
 
-/** Triple lines of one graph in N-Triples form (`s p o .`), each with the 1-based line it came from. */
+/**
+ * One graph's statements as N-Triples text (`s p o .` lines, each ending in "\n"), with the 1-based source line of
+ * each. Kept as one flat string, not an array of line strings: a large JS heap makes the WASM store load many times
+ * slower (measured: 17× with 3M small strings alive), so big releases must not hold millions of small strings.
+ */
 export interface TripleLines {
-  lines: string[];
+  text: string;
+  count: number;
   lineNos: number[];
 }
 
@@ -78,31 +83,37 @@ function* eachLine(text: string): Generator<[string, number]> {
 
 /** Groups statements by graph name (`''` = default graph); each becomes an N-Triples line `s p o .`. */
 export function splitByGraph(text: string, file: string): Map<string, TripleLines> {
-  const out = new Map<string, TripleLines>();
+  const buckets = new Map<string, { lines: string[]; lineNos: number[] }>();
   for (const [line, no] of eachLine(text)) {
     const t = scanTerms(line, file, no);
     if (!t) continue;
     const g = t.length === 4 ? t[3] : '';
     if (g !== '' && g.charCodeAt(0) !== LT) throw new UserError({ file, line: no, field: '', message: `graph name ${g} is a blank node`, hint: 'name graphs with IRIs' });
     const key = g === '' ? '' : g.slice(1, -1);
-    let bucket = out.get(key);
-    if (!bucket) out.set(key, (bucket = { lines: [], lineNos: [] }));
+    let bucket = buckets.get(key);
+    if (!bucket) buckets.set(key, (bucket = { lines: [], lineNos: [] }));
     bucket.lines.push(`${t[0]} ${t[1]} ${t[2]} .`);
     bucket.lineNos.push(no);
   }
+  const out = new Map<string, TripleLines>();
+  for (const [key, b] of buckets) out.set(key, { text: b.lines.join('\n') + '\n', count: b.lines.length, lineNos: b.lineNos });
   return out;
 }
 
 /** All statements as triple lines, graph names dropped (for loading a whole file into one graph). */
 export function dropGraphNames(text: string, file: string): TripleLines {
-  const all: TripleLines = { lines: [], lineNos: [] };
-  for (const part of splitByGraph(text, file).values()) {
-    for (let i = 0; i < part.lines.length; i++) {
-      all.lines.push(part.lines[i]);
-      all.lineNos.push(part.lineNos[i]);
-    }
-  }
-  return all;
+  const parts = [...splitByGraph(text, file).values()];
+  const lineNos: number[] = [];
+  for (const p of parts) for (const n of p.lineNos) lineNos.push(n);
+  return { text: parts.map((p) => p.text).join(''), count: lineNos.length, lineNos };
+}
+
+/** The lines of a TripleLines text, as an array (for chunking; avoid for large graphs held a long time). */
+export function linesOf(t: TripleLines): string[] {
+  if (t.count === 0) return [];
+  const lines = t.text.split('\n');
+  lines.pop();
+  return lines;
 }
 
 /** Number of distinct triples, counting byte-identical lines once (RDF 1.1 Concepts §3: a graph is a set). */

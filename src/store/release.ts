@@ -70,7 +70,7 @@ async function partnerPlan(folder: string, key: string, graph: string | undefine
   }
   const concordance = join(folder, CONCORDANCE);
   const issued = issuedIn(text) ?? (existsSync(concordance) ? issuedIn(await readFile(concordance, 'utf8')) : null);
-  return [{ graph: target, source: { format: 'n-quads', text, file, issued, lines: dropGraphNames(text, file) } }];
+  return [{ graph: target, source: { format: 'n-quads', text: '', file, issued, lines: dropGraphNames(text, file) } }];
 }
 
 /**
@@ -84,10 +84,10 @@ export async function planRelease(folder: string, opts: ReleaseLoadOptions = {})
   const file = join(folder, CONCORDANCE);
   const text = await readRequired(file, '', `a release folder holds ${CONCORDANCE}`);
   const issued = issuedIn(text);
-  if (opts.graph) return [{ graph: opts.graph, source: { format: 'n-quads', text, file, issued, lines: dropGraphNames(text, file) } }];
+  if (opts.graph) return [{ graph: opts.graph, source: { format: 'n-quads', text: '', file, issued, lines: dropGraphNames(text, file) } }];
   const parts = splitByGraph(text, file);
   const loose = parts.get('');
-  if (loose) throw new UserError({ file, line: loose.lineNos[0], field: '', message: `${loose.lines.length} statements have no graph name`, hint: 'load the whole file into one graph with --graph <IRI>' }, EXIT.badInput);
+  if (loose) throw new UserError({ file, line: loose.lineNos[0], field: '', message: `${loose.count} statements have no graph name`, hint: 'load the whole file into one graph with --graph <IRI>' }, EXIT.badInput);
   return [...parts.keys()].sort().map((graph) => ({ graph, source: { format: 'n-quads', text: '', file, issued, lines: parts.get(graph)! } }));
 }
 

@@ -4,7 +4,7 @@ import { UserError, EXIT } from '../errors.js';
 import { queryForm, sparqlIri } from './bind.js';
 import { chunkLines } from './chunk.js';
 import { Http, shownUrl } from './http.js';
-import { distinctCount, dropGraphNames } from './lines.js';
+import { distinctCount, dropGraphNames, linesOf } from './lines.js';
 import { credentialsFor } from './netrc.js';
 import { parseNTriples, parseResultsJson } from './results.js';
 import type { GraphLoad, GraphSource, QueryResult, Store } from './types.js';
@@ -80,19 +80,19 @@ export class RemoteStore implements Store {
     const t0 = performance.now();
     const { gsp } = this.writeUrls();
     const target = sparqlIri(graph, '--graph');
-    const lines = source.lines ?? dropGraphNames(source.text, source.file);
-    if (lines.lines.length === 0) {
+    const lines = linesOf(source.lines ?? dropGraphNames(source.text, source.file));
+    if (lines.length === 0) {
       await this.dropGraph(graph);
       return { graph, triples: 0, millis: performance.now() - t0 };
     }
-    const expected = this.opts.hooks?.expectedTriples?.(distinctCount(lines.lines)) ?? distinctCount(lines.lines);
+    const expected = this.opts.hooks?.expectedTriples?.(distinctCount(lines)) ?? distinctCount(lines);
     const staging = `${graph}-staging-${randomBytes(6).toString('hex')}`;
     const stagingUrl = this.graphUrl(gsp, staging);
     try {
       // An empty-body request first: learns the auth challenge and checks credentials before any large body is sent.
       const probe = await this.http.send('GET', stagingUrl, { accept: NT });
       if (probe.status >= 400 && probe.status !== 404) throw fail(shownUrl(gsp), `Graph Store answered HTTP ${probe.status}: ${excerpt(probe.text)}`, 'check --endpoint');
-      const chunks = chunkLines(lines.lines, this.chunk);
+      const chunks = chunkLines(lines, this.chunk);
       for (let i = 0; i < chunks.length; i++) {
         if (this.progress) process.stderr.write(`\r${graph}: chunk ${i + 1}/${chunks.length}`);
         const raw = chunks[i].join('\n') + '\n';
