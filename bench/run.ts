@@ -14,7 +14,7 @@ interface Measured { wallMs: number; cpuMs: number; peakKiB: number; out: Record
 
 /** Runs a job in a fresh Node process; peak RSS from GNU time -v when present, else the child's own maxRSS. */
 function child(job: string, args: string[]): Measured {
-  const node = [process.execPath, '--max-old-space-size=20000', CHILD, job, ...args];
+  const node = [process.execPath, '--max-old-space-size=20000', '--max-semi-space-size=64', CHILD, job, ...args];
   const useTime = existsSync(GNU_TIME);
   const argv = useTime ? [GNU_TIME, '-v', ...node] : node;
   const t = performance.now();
