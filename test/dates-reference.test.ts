@@ -5,11 +5,11 @@ import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { type DateReading, type IntervalReading, parseDate } from '../src/analyse/dates.js';
-import { requires } from './helpers/requires.js';
+import { reference } from './helpers/requires.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const dir = resolve(root, '../shared/reference/edtf');
-const absent = requires(existsSync(dir), 'EDTF reference files not present at ../shared/reference/edtf');
+const absent = reference(existsSync(dir), 'EDTF reference files not present at ../shared/reference/edtf');
 
 function load<T>(file: string): T {
   return JSON.parse(readFileSync(join(dir, file), 'utf8')) as T;

@@ -12,7 +12,7 @@ import { validate } from '../src/validate/shacl.js';
 import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
 import { repoRoot } from './helpers/fixture.js';
 import { loadTestFile, manifestCases, testFiles, type ManifestCase } from './helpers/shacl-manifest.js';
-import { requires } from './helpers/requires.js';
+import { reference } from './helpers/requires.js';
 
 const shapesDir = path.join(repoRoot, 'shapes');
 const testsDir = path.join(shapesDir, 'tests');
@@ -112,7 +112,7 @@ test('the default shapes loader reads shapes/*.ttl only, never the test files in
 });
 
 const shaclShacl = path.resolve(repoRoot, '../shared/reference/w3c-vocab/shacl/shacl-shacl.ttl');
-test('the shapes graph conforms to SHACL-for-SHACL', { skip: requires(existsSync(shaclShacl), 'shacl-shacl.ttl not present at ../shared/reference/w3c-vocab/shacl') }, async () => {
+test('the shapes graph conforms to SHACL-for-SHACL', { skip: reference(existsSync(shaclShacl), 'shacl-shacl.ttl not present at ../shared/reference/w3c-vocab/shacl') }, async () => {
   // SHACL Rec 2017 Appendix C "SHACL Shapes to Validate Shapes Graphs" (w3.org/ns/shacl-shacl, stored copy).
   const outcome = await validate(shapes, await readRdfFile(shaclShacl));
   assert.deepEqual(outcome.results.map((r) => `${r.focusNode} ${r.component}`), []);

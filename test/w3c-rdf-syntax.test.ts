@@ -13,7 +13,7 @@ import { iri } from '../src/namespaces.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { writeQuads, FORMATS, type RdfFormat } from '../src/rdf/serialize.js';
 import { isomorphic } from '../src/rdf/isomorphic.js';
-import { requires } from './helpers/requires.js';
+import { reference } from './helpers/requires.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const rdf11 = resolve(root, '../shared/reference/rdf-tests/rdf/rdf11');
@@ -68,7 +68,7 @@ async function roundTrip(quads: N3.Quad[], formats: RdfFormat[], expected: N3.Qu
 
 for (const suite of SUITES) {
   const manifestPath = join(rdf11, suite.folder, 'manifest.ttl');
-  const absent = requires(existsSync(manifestPath), `W3C RDF test suite not present at ../shared/reference/rdf-tests/rdf/rdf11/${suite.folder}`);
+  const absent = reference(existsSync(manifestPath), `W3C RDF test suite not present at ../shared/reference/rdf-tests/rdf/rdf11/${suite.folder}`);
   if (absent) {
     test(`${suite.folder} suite`, { skip: absent }, () => {});
     continue;

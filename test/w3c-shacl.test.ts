@@ -7,7 +7,7 @@ import { existsSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { manifestCases, testFiles } from './helpers/shacl-manifest.js';
-import { requires } from './helpers/requires.js';
+import { reference } from './helpers/requires.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const suite = resolve(root, '../shared/reference/shacl/data-shapes-test-suite/tests');
@@ -16,7 +16,7 @@ const coreManifest = resolve(suite, 'core/manifest.ttl');
 /** Entries we do not run, with the reason (none at present: all 98 core entries are compared in full). */
 const SKIP: Readonly<Record<string, string>> = {};
 
-const absent = requires(existsSync(coreManifest), 'W3C SHACL test suite not present at ../shared/reference/shacl');
+const absent = reference(existsSync(coreManifest), 'W3C SHACL test suite not present at ../shared/reference/shacl');
 const files = absent ? [] : await testFiles(pathToFileURL(coreManifest).href);
 
 test('the core manifest reaches 98 test files', { skip: absent }, () => {
