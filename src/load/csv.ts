@@ -1,5 +1,6 @@
 // Delimited text file → rows of fields with the 1-based physical line each record starts on (fast-csv underneath).
 import { createReadStream } from 'node:fs';
+import { once } from 'node:events';
 import { parse } from 'fast-csv';
 import { UserError, type Problem } from '../errors.js';
 
@@ -125,6 +126,8 @@ export async function* readCsv(file: string, delimiter: string, onBytes?: (bytes
       yield { fields, line };
     }
     rows.length = 0;
+    tracker.starts.splice(0, emitted); // keep only the start lines of records not yet parsed
+    emitted = 0;
   };
 
   let stream;
@@ -144,8 +147,9 @@ export async function* readCsv(file: string, delimiter: string, onBytes?: (bytes
       carry = tail ? buf.slice(buf.length - tail) : new Uint8Array(0);
       const text = decoder.decode(tail ? buf.subarray(0, buf.length - tail) : buf, { stream: true });
       tracker.feed(text);
-      parser.write(text);
-      await new Promise<void>((r) => setImmediate(r));
+      // wait until fast-csv has parsed what it was given: reading ahead of the parser would queue the whole file
+      if (!parser.write(text)) await Promise.race([once(parser, 'drain'), ended]);
+      else await new Promise<void>((r) => setImmediate(r));
       yield* drain();
     }
   } catch (e) {

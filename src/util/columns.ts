@@ -3,7 +3,7 @@
 type TypedArray = Int32Array | Float64Array;
 type Ctor<T extends TypedArray> = { new (n: number): T };
 
-/** A typed array that doubles when full; `trim()` returns a view of the filled part. */
+/** A typed array that doubles when full; `trim()` returns the filled part. */
 export class Column<T extends TypedArray> {
   data: T;
   length = 0;
@@ -18,8 +18,9 @@ export class Column<T extends TypedArray> {
     }
     this.data[this.length++] = v;
   }
+  /** The filled part as an exact-size copy, so the doubling slack is freed. */
   trim(): T {
-    return this.data.subarray(0, this.length) as T;
+    return this.data.slice(0, this.length) as T;
   }
 }
 
