@@ -106,22 +106,17 @@ export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCo
     prov(cl, term('cx', 'partnerCount'), int(partners.size));
     if (c.oversized) prov(cl, term('cx', 'oversized'), bool(true));
     for (const li of c.bridges) prov(cl, term('cx', 'bridge'), nn(namer.linkIri(links.links[li])));
-    for (const p of c.implied) {
-      const ip = nn(namer.iri('implied', { cluster: c.id, hash: hash(workRef(model, p.a), workRef(model, p.b)) }));
-      prov(cl, term('cx', 'impliedPair'), ip);
-      prov(ip, a, T.Implied);
-      prov(ip, term('cx', 'workA'), nn(namer.workIri(p.a)));
-      prov(ip, term('cx', 'workB'), nn(namer.workIri(p.b)));
-      prov(ip, term('cx', 'throughThirdArchive'), bool(p.throughThirdArchive));
-    }
-    for (const x of c.conflicts) {
-      const dc = nn(namer.iri('conflict', { cluster: c.id, hash: hash(workRef(model, x.a), workRef(model, x.b)) }));
-      prov(cl, term('cx', 'hasDateConflict'), dc);
-      prov(dc, a, T.Conflict);
-      prov(dc, term('cx', 'workA'), nn(namer.workIri(x.a)));
-      prov(dc, term('cx', 'workB'), nn(namer.workIri(x.b)));
-      prov(dc, term('cx', 'severity'), str(x.severity));
-    }
+    /** A pair node of the cluster (implied pair or date conflict), named from the ordered pair of works. */
+    const pairNode = (pattern: 'implied' | 'conflict', link: string, type: NamedNode, x: { a: number; b: number }) => {
+      const node = nn(namer.iri(pattern, { cluster: c.id, hash: hash(workRef(model, x.a), workRef(model, x.b)) }));
+      prov(cl, term('cx', link), node);
+      prov(node, a, type);
+      prov(node, term('cx', 'workA'), nn(namer.workIri(x.a)));
+      prov(node, term('cx', 'workB'), nn(namer.workIri(x.b)));
+      return node;
+    };
+    for (const p of c.implied) prov(pairNode('implied', 'impliedPair', T.Implied, p), term('cx', 'throughThirdArchive'), bool(p.throughThirdArchive));
+    for (const x of c.conflicts) prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), term('cx', 'severity'), str(x.severity));
     for (const li of c.links) {
       inCluster[li] = 1;
       const l = links.links[li];
