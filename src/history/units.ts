@@ -2,11 +2,9 @@
 import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
 import { term, nn, str, int, dec, typed, inGraph } from '../rdf/terms.js';
-import type { Namer, Unit } from '../rdf/index.js';
+import { isPublished, type Namer, type Unit } from '../rdf/index.js';
 import type { Model } from '../model.js';
-import { workRef } from '../model.js';
 import type { ReleaseView } from '../rdf/view.js';
-import { hash } from '../rdf/terms.js';
 import type { LinkEvidence } from './evidence.js';
 import { P, earlierStateIri } from './names.js';
 import type { LinkState, PreviousRelease, ReleaseSnapshot } from './types.js';
@@ -45,10 +43,9 @@ export function changedLinks(prev: ReleaseSnapshot, current: ReleaseSnapshot): [
 /** IRIs of the image matches the current release describes behind the links in `iris` (same naming as the RDF stage). */
 export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<string>): Set<string> {
   const out = new Set<string>();
-  const { model } = view;
   for (const l of view.links.links) {
-    if (l.status === 'candidate' || !iris.has(namer.iri('link', { hash: hash(workRef(model, l.a), workRef(model, l.b)) }))) continue;
-    for (const r of l.matches) out.add(namer.iri('match', { hash: hash(namer.imageIri(model.matches.a[r]), namer.imageIri(model.matches.b[r]), model.runs[model.matches.run[r]].id) }));
+    if (!isPublished(l) || !iris.has(namer.linkIri(l))) continue;
+    for (const r of l.matches) out.add(namer.matchIri(r));
   }
   return out;
 }

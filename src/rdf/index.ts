@@ -57,6 +57,9 @@ export class Namer {
   recordPage = (w: number) => this.page[this.model.works[w].partner]?.(this.model.works[w].id);
   graph = (g: GraphName) => nn(this.iri('graph', { graph: g }));
   linkIri = (l: Link) => this.iri('link', { hash: hash(workRef(this.model, l.a), workRef(this.model, l.b)) });
+  /** An image match's IRI, from its two image IRIs (pass them when already built) and its run. */
+  matchIri = (r: number, ra = this.imageIri(this.model.matches.a[r]), rb = this.imageIri(this.model.matches.b[r])) =>
+    this.iri('match', { hash: hash(ra, rb, this.model.runs[this.model.matches.run[r]].id) });
   runIri = (r: number) => this.iri('run', { run: this.model.runs[r].id });
   agentIri = (r: number) => this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
   /** A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters). */
@@ -182,7 +185,7 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
   for (const r of l.matches) {
     const ia = matches.a[r], ib = matches.b[r];
     const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
-    const id = namer.iri('match', { hash: hash(ra, rb, model.runs[matches.run[r]].id) });
+    const id = namer.matchIri(r, ra, rb);
     prov(L, term('prov', 'wasDerivedFrom'), nn(id));
     if (matchDone.has(id)) continue; // the same image pair reported twice by one run
     matchDone.add(id);
