@@ -1,5 +1,6 @@
 // QueryResult → text: SPARQL 1.1 Results JSON / CSV / TSV, an aligned table for people, N-Triples for graphs.
 import { NS } from '../namespaces.js';
+import { csvCell } from '../util/csv-write.js';
 import type { QueryResult, ResultQuad, Term } from './types.js';
 
 /** Output formats of `concordat query`. */
@@ -42,10 +43,9 @@ function tsvCell(t: Term | undefined): string {
 }
 
 /** CSV cell: IRI, lexical form or `_:label`, quoted per RFC 4180 §2 when it holds `"`, `,`, CR or LF. */
-function csvCell(t: Term | undefined): string {
+function csvTerm(t: Term | undefined): string {
   if (!t) return '';
-  const s = t.type === 'bnode' ? `_:${t.value}` : t.value;
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  return csvCell(t.type === 'bnode' ? `_:${t.value}` : t.value);
 }
 
 /** Shortened term for people: prefixed names from the project's namespace table, plain numbers, quoted strings. */
@@ -82,7 +82,7 @@ const SELECT_WRITERS: Record<ResultFormat, (vars: string[], rows: Record<string,
   json: (vars, rows) =>
     JSON.stringify({ head: { vars }, results: { bindings: rows.map((r) => Object.fromEntries(vars.filter((v) => r[v]).map((v) => [v, jsonTerm(r[v])]))) } }, null, 2) + '\n',
   // SPARQL 1.1 Query Results CSV and TSV Formats, "CSV": header of names without "?", CRLF line ends
-  csv: (vars, rows) => [vars.join(','), ...rows.map((r) => vars.map((v) => csvCell(r[v])).join(','))].join('\r\n') + '\r\n',
+  csv: (vars, rows) => [vars.join(','), ...rows.map((r) => vars.map((v) => csvTerm(r[v])).join(','))].join('\r\n') + '\r\n',
   // same document, "TSV": header of "?names", LF line ends
   tsv: (vars, rows) => [vars.map((v) => `?${v}`).join('\t'), ...rows.map((r) => vars.map((v) => tsvCell(r[v])).join('\t'))].join('\n') + '\n',
   table,
