@@ -31,7 +31,7 @@ export function register(program: Command): void {
       const { formatResult } = await import('../store/format.js');
       const { openStore, parseParams, queryText } = await import('../store/open.js');
       const sparql = await queryText(arg, opts.named, parseParams(opts.param));
-      const store = await openStore({ store: opts.store, query: opts.queryEndpoint });
+      const store = await openStore({ store: opts.store, query: opts.queryEndpoint, existing: true });
       try {
         const result = await store.query(sparql);
         const format = opts.format ?? (process.stdout.isTTY ? 'table' : 'tsv');

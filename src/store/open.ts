@@ -7,10 +7,14 @@ import { EmbeddedStore } from './embedded.js';
 import { readNamedQuery } from './named.js';
 import { RemoteStore, type RemoteOptions } from './remote.js';
 import type { Store } from './types.js';
+import { join } from 'node:path';
+import { MANIFEST } from './folder.js';
 
 /** Where the data lives: a store folder, or remote endpoints (Graph Store, Update, Query). */
 export interface StoreChoice {
   store?: string;
+  /** Reading only (query): a store folder must already hold a loaded release; nothing is created. */
+  existing?: boolean;
   endpoint?: string;
   update?: string;
   query?: string;
@@ -22,6 +26,8 @@ const usage = (field: string, message: string, hint: string): UserError => new U
 export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Promise<Store> {
   const isRemote = Boolean(c.endpoint || c.update || c.query);
   if (c.store && isRemote) throw usage('--store', 'cannot be combined with remote endpoint options', 'choose the store folder or the endpoints');
+  if (c.store && c.existing && !existsSync(join(c.store, MANIFEST)))
+    throw usage('--store', `${c.store} holds no loaded release`, 'load one first: concordat load <release> --store <folder>');
   if (c.store) return EmbeddedStore.open(c.store);
   if (!c.query) throw usage('--store', 'no store given', 'give --store <folder>, or the remote endpoint URLs');
   for (const [field, url] of Object.entries({ '--endpoint': c.endpoint, '--update': c.update, '--query': c.query })) {
