@@ -70,10 +70,3 @@ export class CsvFile {
     return this.file;
   }
 }
-
-/** Writes a whole table (header + rows) with `CsvFile`. */
-export async function writeCsv(file: string, header: readonly string[], rows: Iterable<readonly string[]>, neutral?: readonly boolean[]): Promise<string> {
-  const out = new CsvFile(file, header, neutral);
-  for (const r of rows) await out.row(r);
-  return out.close();
-}
