@@ -127,3 +127,13 @@ export function workRef(model: Pick<Model, 'project' | 'works'>, w: number): str
   const work = model.works[w];
   return `${model.project.partners[work.partner].key}:${work.id}`;
 }
+
+/** `workRef` memoised per work, for stages that format the same work many times (sorting, reports). */
+export function cachedWorkRef(model: Pick<Model, 'project' | 'works'>): (w: number) => string {
+  const refs = new Map<number, string>();
+  return (w) => {
+    let r = refs.get(w);
+    if (r === undefined) refs.set(w, (r = workRef(model, w)));
+    return r;
+  };
+}

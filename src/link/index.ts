@@ -1,6 +1,7 @@
 // Link stage: image matches + curator decisions + policy → work-to-work links (design, pipeline step 2).
 import type { Model, Policy } from '../model.js';
-import { workRef } from '../model.js';
+import type { Problem } from '../errors.js';
+import { cachedWorkRef } from '../model.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
 
 interface Acc {
@@ -40,15 +41,17 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
     if (!x) acc.set(k, (x = { a, b, rows: [] }));
     return x;
   };
-  for (let i = 0; i < matches.count; i++) get(images.work[matches.a[i]], images.work[matches.b[i]]).rows.push(i);
+  const duplicates: { row: number; first: number }[] = [];
+  for (let i = 0; i < matches.count; i++) {
+    const rows = get(images.work[matches.a[i]], images.work[matches.b[i]]).rows;
+    const lo = Math.min(matches.a[i], matches.b[i]), hi = Math.max(matches.a[i], matches.b[i]);
+    const first = rows.find((r) => matches.run[r] === matches.run[i] && Math.min(matches.a[r], matches.b[r]) === lo && Math.max(matches.a[r], matches.b[r]) === hi);
+    if (first === undefined) rows.push(i);
+    else duplicates.push({ row: i, first }); // one run reporting one image pair twice is one piece of evidence
+  }
   model.decisions.forEach((d, i) => (get(d.a, d.b).decision = i)); // later rows win
 
-  const refs = new Map<number, string>();
-  const ref = (w: number) => {
-    let r = refs.get(w);
-    if (r === undefined) refs.set(w, (r = workRef(model, w)));
-    return r;
-  };
+  const ref = cachedWorkRef(model);
   const links: Link[] = [];
   for (const x of acc.values()) {
     const [a, b] = ref(x.a) < ref(x.b) ? [x.a, x.b] : [x.b, x.a];
@@ -99,10 +102,22 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
   links.sort((p, q) => cmp(ref(p.a), ref(q.a)) || cmp(ref(p.b), ref(q.b)));
   const byPair = new Map<number, number>();
   links.forEach((l, i) => byPair.set(pairKey(l.a, l.b), i));
-  return { links, byPair };
+  return { links, byPair, duplicates };
 }
 
 const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
 /** Is this link a published claim (a triple in the claims graph)? */
 export const isClaim = (l: Link) => l.status === 'confirmed' || l.status === 'proposed';
+
+/** Repeated evidence rows as warnings naming both lines (for `check`). */
+export function duplicateWarnings(model: Model, duplicates: LinkSet['duplicates']): Problem[] {
+  const m = model.matches;
+  return duplicates.map(({ row, first }) => ({
+    file: model.evidenceFiles[m.file[row]],
+    line: m.line[row],
+    field: 'image_b',
+    message: `this image pair and run were already listed${m.file[first] === m.file[row] ? '' : ` in ${model.evidenceFiles[m.file[first]]}`} on line ${m.line[first]}`,
+    hint: 'counted once; drop the repeated row',
+  }));
+}

@@ -1,6 +1,6 @@
 // Work numbers → the text a person needs beside them in reports: reference, title, date as catalogued, record page.
 import type { Model } from '../model.js';
-import { workRef } from '../model.js';
+import { cachedWorkRef } from '../model.js';
 import { recordPager } from '../analyse/readings.js';
 
 export interface WorkContext {
@@ -12,17 +12,11 @@ export interface WorkContext {
 
 /** Cached per work, so a report touching the same work many times formats it once. */
 export function workContext(model: Model): WorkContext {
-  const refs = new Map<number, string>();
-  const page = recordPager(model);
   return {
-    ref: (w) => {
-      let r = refs.get(w);
-      if (r === undefined) refs.set(w, (r = workRef(model, w)));
-      return r;
-    },
+    ref: cachedWorkRef(model),
     title: (w) => model.works[w].title,
     date: (w) => model.works[w].date,
-    page,
+    page: recordPager(model),
   };
 }
 
