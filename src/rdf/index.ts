@@ -3,7 +3,7 @@ import type { Quad, NamedNode } from '@rdfjs/types';
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
-import { compileTemplate } from '../load/template.js';
+import { compileTemplate, encodeUnreserved } from '../load/template.js';
 import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
 import type { ReleaseView } from './view.js';
 
@@ -43,7 +43,12 @@ export class Namer {
     this.base = model.project.base;
     const ps = model.project.partners;
     this.work = ps.map((p) => { const f = compileTemplate(p.workIri, 'work'); return (w: number) => f(model.works[w].id); });
-    this.image = ps.map((p) => (id: string, work: string) => compileTemplate(compileTemplate(p.imageIri, 'image')(id), 'work')(work));
+    // Compiled once per partner: the pieces between {image} expressions, each with its {work} slots (the project
+    // check rejects unbalanced braces, so no {work} spans an {image}).
+    this.image = ps.map((p) => {
+      const pieces = p.imageIri.split('{image}').map((piece) => compileTemplate(piece, 'work'));
+      return (id: string, work: string) => pieces.map((f) => f(work)).join(encodeUnreserved(id));
+    });
     this.page = ps.map((p) => (p.recordPage ? compileTemplate(p.recordPage, 'work') : undefined));
   }
   iri(pattern: string, vars: Record<string, string> = {}): string {
