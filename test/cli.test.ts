@@ -3,6 +3,7 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
 import path from 'node:path';
+import { existsSync } from 'node:fs';
 import { repoRoot, fixtureCopy } from './helpers/fixture.js';
 import { CITE_FORMAT_NAMES } from '../src/cli/cite.js';
 import { CITE_FORMATS } from '../src/cite/index.js';
@@ -43,4 +44,25 @@ test('build refuses an existing folder with exit 2 and leaves it untouched', () 
   const r = run('build', 'demo-data/concordance.json', '--out', 'test');
   assert.equal(r.status, 2);
   assert.match(r.stderr, /folder already exists/);
+});
+
+test('check warns about an image pair a run lists twice, and the link counts it once', async () => {
+  const dir = fixtureCopy('load/base', { 'evidence/run1.csv': (t) => t + 'beta:n1,alpha:a-1,0.50,0.9\n' });
+  const r = run('check', path.join(dir, 'concordance.json'));
+  assert.equal(r.status, 0, r.stderr);
+  assert.match(r.stdout, /evidence\/run1\.csv:6: image_b: this image pair and run were already listed on line 2 \(counted once/);
+  const { load } = await import('../src/load/index.js');
+  const { link } = await import('../src/link/index.js');
+  const { model } = await load(path.join(dir, 'concordance.json'));
+  const l = link(model).links.find((x) => x.support > 0 && model.works[x.a].id === 'A 1')!;
+  assert.equal(l.support, 1);
+  assert.equal(l.mean, 0.91);
+});
+
+test('query --store on a folder with no loaded release: exit 2, nothing created', () => {
+  const missing = path.join(fixtureCopy('load/base'), 'no-store');
+  const r = run('query', '--store', missing, 'ASK { ?s ?p ?o }');
+  assert.equal(r.status, 2);
+  assert.match(r.stderr, /holds no loaded release \(load one first/);
+  assert.equal(existsSync(missing), false);
 });

@@ -89,6 +89,11 @@ const cases: BadCase[] = [
   { name: 'base not an absolute IRI', edits: { 'concordance.json': json((o) => (o.base = 'concordance/')) }, file: 'concordance.json', line: 0, field: 'base', message: /absolute IRI/ },
   { name: 'policy out of range', edits: { 'concordance.json': json((o) => (o.policy.proposeAt = 1.5)) }, file: 'concordance.json', line: 0, field: 'policy.proposeAt', message: /1/ },
   { name: 'autoConfirmAt below proposeAt', edits: { 'concordance.json': json((o) => (o.policy.autoConfirmAt = 0.4)) }, file: 'concordance.json', line: 0, field: 'policy.autoConfirmAt', message: /at least proposeAt/ },
+  { name: 'a mapped column twice in the header', edits: { 'catalogues/alpha.csv': (t) => t.split('\n').map((l, i) => (!l ? l : i === 0 ? l + ',Title' : l + ',x')).join('\n') }, file: 'catalogues/alpha.csv', line: 1, field: 'Title', message: /column "Title" appears 2 times in the header \(columns 3, 7\)/ },
+  { name: 'a TSV declared as comma-separated', edits: { 'concordance.json': json((o) => (o.partners[1].catalogue.delimiter = ',')) }, file: 'catalogues/beta.tsv', line: 1, field: '', message: /looks tab-separated/, hint: /"delimiter": "\\t"/ },
+  { name: 'a semicolon evidence file', edits: { 'evidence/run1.csv': (t) => t.replace(/,/g, ';') }, file: 'evidence/run1.csv', line: 1, field: '', message: /looks ";"-separated/, hint: /comma-separated/ },
+  { name: 'a decimal comma in a score', edits: { 'evidence/run1.csv': addRow('alpha:a-3,beta:n3,"0,92",1') }, file: 'evidence/run1.csv', line: 6, field: 'score', message: /score "0,92"/, hint: /write a decimal point: 0\.92/ },
+  { name: 'a work ID in the wrong case', edits: { 'decisions/d.csv': addRow('alpha:a 1,beta:B2,same,Jo Invented,2026-10-22,') }, file: 'decisions/d.csv', line: 4, field: 'work_a', message: /unknown work "a 1" of partner "alpha"/, hint: /did you mean "alpha:A 1"\?/ },
   { name: 'unknown century convention', edits: { 'concordance.json': json((o) => (o.partners[0].centuryConvention = 'roman')) }, file: 'concordance.json', line: 0, field: 'partners[0].centuryConvention', message: /ordinal|iso/ },
 ];
 
@@ -110,6 +115,15 @@ for (const c of cases) {
     if (c.hint) assert.match(p!.hint ?? '', c.hint);
   });
 }
+
+test('a date no form reads is a warning, on the first row of its work only', async () => {
+  const dir = fixtureCopy('load/base', { 'catalogues/beta.tsv': addRow('B9\tn9\tX\tRenaissance') });
+  const { model } = await load(path.join(dir, 'concordance.json'));
+  const w = model.warnings.filter((x) => /"Renaissance" is not a form concordat reads/.test(x.message));
+  assert.equal(w.length, 1);
+  assert.equal(w[0].line, 6);
+  assert.equal(w[0].field, 'Datierung');
+});
 
 test('JSON syntax errors give line and column', async () => {
   const dir = fixtureCopy('load/base', { 'concordance.json': '{\n  "title": "x",\n  "base" "https://x.example.org/"\n}\n' });

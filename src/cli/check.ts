@@ -11,7 +11,9 @@ export function register(program: Command): void {
     .action(async (project: string, opts: { json?: boolean }) => {
       const { load } = await import('../load/index.js'); // loaded on use: keeps --help fast
       const { summarise, summaryText } = await import('../load/summary.js');
+      const { link, duplicateWarnings } = await import('../link/index.js');
       const { model, stats } = await load(project);
+      model.warnings.push(...duplicateWarnings(model, link(model).duplicates));
       const summary = summarise(model, stats);
       process.stdout.write(opts.json ? JSON.stringify(summary, null, 2) + '\n' : summaryText(summary));
     });

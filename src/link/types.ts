@@ -37,6 +37,8 @@ export interface LinkSet {
   links: Link[];
   /** `a,b` (work numbers, either order) → index in `links`. */
   byPair: Map<number, number>;
+  /** Evidence rows that repeat an image pair already reported by the same run: counted once (`row` repeats `first`). */
+  duplicates: { row: number; first: number }[];
 }
 
 /** Key of an unordered work pair for maps; exact while work numbers stay below 2^26. */

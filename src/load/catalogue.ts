@@ -38,7 +38,9 @@ export async function loadCatalogue(
     const date = c.date ? row.get(c.date).trim() : '';
     if (date) {
       const bad = checkCatalogueDate(date, partner.centuryConvention);
-      if (bad) problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
+      if (bad?.kind === 'impossible') problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
+      else if (bad && !workIndex.has(workId))
+        warnings.push({ file, line: row.line, field: c.date!, message: `date "${date}" is not a form concordat reads; it is published as catalogued and left out of date comparisons`, hint: bad.hint });
     }
     let w = workIndex.get(workId);
     if (w === undefined) {

@@ -54,13 +54,13 @@ export async function loadEvidence(
       const rawScore = row.get('score').trim();
       const score = Number(rawScore);
       if (!NUMBER.test(rawScore) || score < 0 || score > 1) {
-        problems.add({ ...at('score'), message: `score "${rawScore}" is not a number in [0,1]`, hint: 'higher = more alike; rescale the matcher output to 0..1' });
+        problems.add({ ...at('score'), message: `score "${rawScore}" is not a number in [0,1]`, hint: /^\d*,\d+$/.test(rawScore) ? `write a decimal point: ${rawScore.replace(',', '.')}` : 'higher = more alike; rescale the matcher output to 0..1' });
         bad = true;
       }
       const rawOverlap = row.get('overlap').trim();
       const overlap = rawOverlap === '' ? 1 : Number(rawOverlap);
       if (rawOverlap !== '' && (!NUMBER.test(rawOverlap) || overlap <= 0 || overlap > 1)) {
-        problems.add({ ...at('overlap'), message: `overlap "${rawOverlap}" is not a number in (0,1]`, hint: 'share of the smaller image the matched region covers; blank means 1' });
+        problems.add({ ...at('overlap'), message: `overlap "${rawOverlap}" is not a number in (0,1]`, hint: /^\d*,\d+$/.test(rawOverlap) ? `write a decimal point: ${rawOverlap.replace(',', '.')}` : 'share of the smaller image the matched region covers; blank means 1' });
         bad = true;
       }
       let run = fileRun;

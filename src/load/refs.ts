@@ -21,6 +21,11 @@ export function resolveRef(r: RefResolver, raw: string, what: 'image' | 'work'):
     return { field: '', message: `unknown partner "${key}"`, hint: near ? `did you mean "${near}"?` : `partners are: ${r.keys.join(', ')}` };
   }
   const n = r.index[p].get(id);
-  if (n === undefined) return { field: '', message: `unknown ${what} "${id}" of partner "${key}"`, hint: `it is not in ${key}'s catalogue export` };
+  if (n === undefined) {
+    const lower = id.toLowerCase();
+    let near: string | undefined;
+    if (r.index[p].size <= 2_000_000) for (const k of r.index[p].keys()) if (k.toLowerCase() === lower) { near = k; break; }
+    return { field: '', message: `unknown ${what} "${id}" of partner "${key}"`, hint: near ? `did you mean "${key}:${near}"? IDs are compared exactly, case included` : `it is not in ${key}'s catalogue export` };
+  }
   return n;
 }

@@ -29,13 +29,23 @@ export async function* readTable(
   for await (const { fields, line } of readCsv(file, delimiter, onBytes)) {
     if (!header) {
       header = fields.map((h) => h.trim());
+      const other = [';', '\t', ','].find((d) => d !== delimiter && header!.length === 1 && header![0].split(d).length >= Math.max(2, required.length));
+      if (other) {
+        const name = other === '\t' ? 'tab' : `"${other}"`;
+        problems.add({ file, line, field: '', message: `the header is one column; it looks ${name}-separated`, hint: delimiter === ',' && context === 'evidence' ? 'evidence, decisions and gold files are comma-separated: save the file with ","' : `set "delimiter": ${JSON.stringify(other)} for this file in concordance.json` });
+        return;
+      }
       index = new Map(header.map((h, i) => [h, i]));
+      for (const c of [...required, ...optional]) {
+        const at = header.flatMap((h, i) => (h === c ? [i + 1] : []));
+        if (at.length > 1) problems.add({ file, line, field: c, message: `column "${c}" appears ${at.length} times in the header (columns ${at.join(', ')})`, hint: 'rename the copies: it is not clear which one holds the values' });
+      }
       const missing = required.filter((c) => !index.has(c));
       for (const c of missing) {
         const near = didYouMean(c, header);
-        problems.add({ file, line, field: c, message: `column "${c}" (${context}) is not in the header`, hint: near ? `did you mean "${near}"? the header has: ${header.join(', ')}` : `the header has: ${header.join(', ')}${delimiter === ',' && header.length === 1 && header[0].includes('\t') ? '; the file looks tab-separated: set "delimiter": "\\t"' : ''}` });
+        problems.add({ file, line, field: c, message: `column "${c}" (${context}) is not in the header`, hint: near ? `did you mean "${near}"? the header has: ${header.join(', ')}` : `the header has: ${header.join(', ')}` });
       }
-      if (missing.length) return;
+      if (missing.length || [...required, ...optional].some((c) => header!.filter((h) => h === c).length > 1)) return;
       for (const c of optional) if (!index.has(c)) index.set(c, -1);
       continue;
     }
