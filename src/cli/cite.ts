@@ -9,7 +9,7 @@ export function register(program: Command): void {
   program
     .command('cite')
     .description('cite what a release says about a work, a pair or a cluster: claims, evidence, run, curator, release')
-    .argument('<target>', 'partnerKey:workId, or a work, link or cluster IRI')
+    .argument('<target>', 'partnerKey:workId or a work IRI (all claims about that record), a link IRI (one pair, as listed by diff and report.md), or a cluster IRI ({base}work/<id from clusters.csv>)')
     .option('--release <folder>', 'a release folder')
     .option('--store <folder>', 'an embedded store folder (as written by concordat load --store)')
     .addOption(new Option('--format <format>', 'output format').choices([...CITE_FORMAT_NAMES]).default('text'))

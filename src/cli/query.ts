@@ -22,7 +22,7 @@ export function register(program: Command): void {
     .addOption(new Option('--format <format>', 'SELECT output: aligned table (default on a terminal), SPARQL JSON, CSV or TSV (default otherwise)').choices(['table', 'json', 'csv', 'tsv']))
     .addHelpText(
       'after',
-      '\nExamples:\n  concordat query --store store/ --named cluster-members --param cluster=https://concordance.example.org/work/1\n' +
+      '\nExamples:\n  concordat query --store store/ --named cluster-members --param cluster=https://concordance.example.org/work/c000001   (the base IRI + work/ + an ID from clusters.csv)\n' +
         "  concordat query --query-endpoint http://127.0.0.1:8890/sparql 'ASK { ?s ?p ?o }'\n\n" +
         'ASK prints true or false (exit 0 either way); CONSTRUCT and DESCRIBE print N-Triples.\n' +
         'Parameters are bound as escaped terms, never pasted as text. Exit codes: 0 ran, 1 the store failed, 2 bad query or usage.',
