@@ -37,7 +37,7 @@ export function sentence(c: CitedClaim, r: CitedRelease): string {
 }
 
 function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): string[] {
-  const out = [item(`claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pairs <${c.link}>`)];
+  const out = [item(`claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`)];
   c.matches.forEach((m) => out.push(item(`image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`)));
   for (const run of c.runs) {
     const params = run.parameters.map((p) => `${p.name}=${p.value}`).join(', ');

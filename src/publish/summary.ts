@@ -52,6 +52,6 @@ export function releaseSummaryText(s: ReleaseSummary, where: string): string {
   for (const [p, n] of Object.entries(s.claimTriples)) lines.push(`    ${p.padEnd(18)} ${n}`);
   lines.push('  links by kind/status:');
   for (const [k, n] of Object.entries(s.links)) lines.push(`    ${k.padEnd(18)} ${n}`);
-  if (s.example) lines.push(`  example claim: ${s.example.subject} ${s.example.predicate} ${s.example.object} (score ${s.example.score}, ${s.example.support} image pairs, ${s.example.status})`);
+  if (s.example) lines.push(`  example claim: ${s.example.subject} ${s.example.predicate} ${s.example.object} (score ${s.example.score}, ${s.example.support} image pair${s.example.support === 1 ? "" : "s"}, ${s.example.status})`);
   return lines.join('\n') + '\n';
 }
