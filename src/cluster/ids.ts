@@ -14,7 +14,8 @@ export function clusterIdNumber(id: string): number | undefined {
   return m ? Number(m[1]) : undefined;
 }
 
-const byNumber = (x: string, y: string) => clusterIdNumber(x)! - clusterIdNumber(y)!;
+/** Orders cluster IDs by their number (c9 before c10). */
+export const byNumber = (x: string, y: string) => clusterIdNumber(x)! - clusterIdNumber(y)!;
 
 export interface IdAssignment {
   /** ID of each new cluster, in the order given. */

@@ -6,7 +6,7 @@ import type { LinkSet } from '../link/types.js';
 import { adjacency } from './graph.js';
 import { findBridges } from './bridges.js';
 import { impliedPairs } from './implied.js';
-import { assignIds, clusterIdNumber } from './ids.js';
+import { assignIds, byNumber } from './ids.js';
 import { UnionFind } from './union-find.js';
 import { refRank } from './ref-rank.js';
 import type { Cluster, ClusterOptions, ClusterRegistry, Clustering } from './types.js';
@@ -69,7 +69,7 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
     partners: [...new Set(Array.from(members[ti], (w) => model.works[w].partner))].sort((x, y) => x - y),
     oversized: members[ti].length > oversizeAt,
   }));
-  clusters.sort((x, y) => clusterIdNumber(x.id)! - clusterIdNumber(y.id)!);
+  clusters.sort((x, y) => byNumber(x.id, y.id));
 
   const clusterOf = new Int32Array(n).fill(-1);
   clusters.forEach((c, ci) => c.members.forEach((w) => (clusterOf[w] = ci)));

@@ -1,9 +1,9 @@
 // Two release snapshots → the changes between them: claims added, removed, re-statused or re-kinded; clusters merged, split, new, retired.
 import type { ClusterRegistry } from '../cluster/types.js';
+import { byNumber } from '../cluster/ids.js';
 import type { ClaimChange, Changes, LinkState, PartnerCounts, ReleaseSnapshot } from './types.js';
 
 const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
-const byNumber = (x: string, y: string) => Number(x.slice(1)) - Number(y.slice(1));
 
 function stateOf(l: LinkState): NonNullable<ClaimChange['before']> {
   return { status: l.status, kind: l.kind, ...(l.relation ? { relation: l.relation } : {}), ...(l.score !== undefined ? { score: l.score } : {}) };
