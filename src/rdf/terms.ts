@@ -7,9 +7,17 @@ import { NS, type Prefix } from '../namespaces.js';
 const { namedNode, literal, quad } = N3.DataFactory;
 
 export const nn = (iri: string): NamedNode => namedNode(iri);
-export const term = (prefix: Prefix, local: string): NamedNode => namedNode(NS[prefix] + local);
+const vocabulary = new Map<Prefix, Map<string, NamedNode>>();
+/** A vocabulary term, made once and shared (the RDF stage asks for the same few dozen terms millions of times). */
+export const term = (prefix: Prefix, local: string): NamedNode => {
+  let space = vocabulary.get(prefix);
+  if (!space) vocabulary.set(prefix, (space = new Map()));
+  let node = space.get(local);
+  if (!node) space.set(local, (node = namedNode(NS[prefix] + local)));
+  return node;
+};
 export const str = (s: string) => literal(s);
-export const typed = (s: string, dt: string) => literal(s, namedNode(NS.xsd + dt));
+export const typed = (s: string, dt: string) => literal(s, term('xsd', dt));
 export const int = (n: number) => typed(String(n), 'integer');
 export const bool = (b: boolean) => typed(String(b), 'boolean');
 
