@@ -21,11 +21,12 @@ const CXS = 'https://w3id.org/concordat/shapes#';
 const sh = (local: string) => iri('sh', local);
 
 const files = await testFiles(pathToFileURL(path.join(testsDir, 'manifest.ttl')).href);
-const cases: ManifestCase[] = (await Promise.all(files.map(manifestCases))).flat();
+const cases: ManifestCase[] = (await Promise.all(files.map((f) => manifestCases(f)))).flat();
+const referenceCases: ManifestCase[] = (await Promise.all(files.map((f) => manifestCases(f, 'rdf-validate-shacl')))).flat();
 
-for (const c of cases) {
+for (const [engine, list] of [['builtin', cases], ['rdf-validate-shacl', referenceCases]] as const) for (const c of list) {
   const name = path.basename(c.file, '.ttl');
-  test(`shapes/tests/${name}`, async () => {
+  test(`shapes/tests/${name} (${engine})`, async () => {
     // Each file holds conforming nodes and at least one violating node (its report cannot be empty).
     assert.ok(c.expectedResults > 0, 'the test has violating examples');
     await c.run();

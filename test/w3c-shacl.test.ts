@@ -1,5 +1,5 @@
 // W3C SHACL core test suite (w3c/data-shapes, data-shapes-test-suite/tests/core) → one test per manifest entry,
-// run through src/validate/shacl.ts by the manifest runner in test/helpers/shacl-manifest.ts (comparison rules: the
+// run through both engines of src/validate/shacl.ts by the manifest runner in test/helpers/shacl-manifest.ts (comparison rules: the
 // suite's own document, data-shapes-test-suite/index.html, "Validation Reports" / compliance levels).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -8,6 +8,7 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { manifestCases, testFiles } from './helpers/shacl-manifest.js';
 import { reference } from './helpers/requires.js';
+import { SHACL_ENGINES } from '../src/validate/shacl.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const suite = resolve(root, '../shared/reference/shacl/data-shapes-test-suite/tests');
@@ -24,7 +25,10 @@ test('the core manifest reaches 98 test files', { skip: absent }, () => {
   assert.equal(files.length, 98);
 });
 
-for (const fileUrl of files) {
-  const name = fileUrl.slice(pathToFileURL(suite).href.length + 1).replace(/\.ttl$/, '');
-  for (const c of await manifestCases(fileUrl)) test(`SHACL ${name}`, { skip: SKIP[name] ?? false }, () => c.run());
+// Both engines: the built-in core engine (the default) and rdf-validate-shacl.
+for (const engine of SHACL_ENGINES) {
+  for (const fileUrl of files) {
+    const name = fileUrl.slice(pathToFileURL(suite).href.length + 1).replace(/\.ttl$/, '');
+    for (const c of await manifestCases(fileUrl, engine)) test(`SHACL ${name} (${engine})`, { skip: SKIP[name] ?? false }, () => c.run());
+  }
 }

@@ -99,7 +99,7 @@ export async function validateChunks(
 ): Promise<ValidationOutcome> {
   const workers = opts.workers ?? 2;
   const batchQuads = opts.batchQuads ?? 20_000;
-  const options = { shapesLabel: opts.shapesLabel, maxErrors: opts.maxErrors };
+  const options = { shapesLabel: opts.shapesLabel, maxErrors: opts.maxErrors, engine: opts.engine };
   const merger = new RowMerger();
   let pool: Pool | null = null;
   const pending: Promise<void>[] = [];

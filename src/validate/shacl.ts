@@ -5,8 +5,10 @@ import SHACLValidator from 'rdf-validate-shacl';
 import defaultEnv from 'rdf-validate-shacl/src/defaultEnv.js';
 import { UserError } from '../errors.js';
 import { iri } from '../namespaces.js';
+import { compileCore } from './engine/index.js';
 import { readPath } from './paths.js';
 import { outcomeOf, type ResultRow, type ValidationOutcome } from './report.js';
+import { decodeQuads } from './wire.js';
 
 export type { ResultRow, ValidationOutcome } from './report.js';
 
@@ -16,7 +18,13 @@ export interface ValidateOptions {
   shapesLabel?: string;
   /** Stop after this many results (default: all). */
   maxErrors?: number;
+  /** Which SHACL engine runs (default: the built-in core engine). */
+  engine?: ShaclEngine;
 }
+
+/** The SHACL engines: the built-in core engine (src/validate/engine) and rdf-validate-shacl over an N3.Store. */
+export const SHACL_ENGINES = ['builtin', 'rdf-validate-shacl'] as const;
+export type ShaclEngine = (typeof SHACL_ENGINES)[number];
 
 /** rdf-validate-shacl's default environment with `dataset()` answering an N3.Store (faster indexed matching). */
 const factory = Object.assign(Object.create(defaultEnv) as typeof defaultEnv, {
@@ -54,10 +62,21 @@ function rowsOf(report: N3.Store, reportNode: N3.Term): ResultRow[] {
 export interface CompiledShapes {
   /** Validates one data graph and returns its result rows (unsorted). */
   rows(data: Iterable<Quad>): Promise<ResultRow[]>;
+  /** The same for data as flat [s, p, o, g, …] n3 term ids (the worker wire format). */
+  rowsOfIds(ids: string[]): Promise<ResultRow[]>;
 }
 
 /** Compiles a shapes graph (SHACL §2.1) for repeated validation; engine failures become a UserError. */
 export function compileShapes(shapes: Iterable<Quad>, opts: ValidateOptions = {}): CompiledShapes {
+  if ((opts.engine ?? 'builtin') === 'builtin') {
+    const core = compileCore(shapes, opts);
+    return { rows: (data) => core.rows(data), rowsOfIds: async (ids) => core.rowsOfIds(ids) };
+  }
+  return compileReference(shapes, opts);
+}
+
+/** rdf-validate-shacl behind the same interface. */
+function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): CompiledShapes {
   const fail = (err: unknown): never => {
     throw new UserError({ file: opts.shapesLabel ?? 'shapes', line: 0, field: '', message: `SHACL validation failed: ${(err as Error).message}`, hint: 'check the shapes graph' });
   };
@@ -67,16 +86,15 @@ export function compileShapes(shapes: Iterable<Quad>, opts: ValidateOptions = {}
   } catch (err) {
     return fail(err);
   }
-  return {
-    async rows(data) {
-      try {
-        const report = await validator.validate(toStore(data));
-        return rowsOf(report.dataset as N3.Store, report.term as N3.Term);
-      } catch (err) {
-        return fail(err);
-      }
-    },
+  const rows = async (data: Iterable<Quad>) => {
+    try {
+      const report = await validator.validate(toStore(data));
+      return rowsOf(report.dataset as N3.Store, report.term as N3.Term);
+    } catch (err) {
+      return fail(err);
+    }
   };
+  return { rows, rowsOfIds: (ids) => rows(decodeQuads(ids)) };
 }
 
 /**

@@ -8,7 +8,7 @@ import N3 from 'n3';
 import { iri } from '../../src/namespaces.js';
 import { readRdfFile } from '../../src/rdf/read.js';
 import { isomorphic } from '../../src/rdf/isomorphic.js';
-import { validate } from '../../src/validate/shacl.js';
+import { validate, type ShaclEngine } from '../../src/validate/shacl.js';
 
 const RDF_TYPE = iri('rdf', 'type');
 const { namedNode } = N3.DataFactory;
@@ -89,7 +89,7 @@ export interface ManifestCase {
 }
 
 /** The entries (mf:entries list) of one test file, each ready to run (SHACL test suite: sht:Validate, mf:action, mf:result). */
-export async function manifestCases(fileUrl: string): Promise<ManifestCase[]> {
+export async function manifestCases(fileUrl: string, engine: ShaclEngine = 'builtin'): Promise<ManifestCase[]> {
   const store = new N3.Store(await loadTestFile(fileUrl));
   const entriesHead = store.getObjects(namedNode(fileUrl), iri('mf', 'entries'), null)[0];
   return (entriesHead ? list(store, entriesHead) : []).map((entry) => {
@@ -106,10 +106,10 @@ export async function manifestCases(fileUrl: string): Promise<ManifestCase[]> {
         const data = await loadTestFile(dataUrl);
         const shapes = await loadTestFile(shapesUrl);
         if (expectedNode.value === iri('sht', 'Failure')) {
-          await assert.rejects(validate(data, shapes));
+          await assert.rejects(validate(data, shapes, { engine }));
           return;
         }
-        const outcome = await validate(data, shapes);
+        const outcome = await validate(data, shapes, { engine });
         const expected = expectedGraph(store, expectedNode);
         const expectedConforms = store.getObjects(expectedNode, iri('sh', 'conforms'), null)[0].value === 'true';
         const actualConforms = outcome.reportQuads.find((q) => q.predicate.value === iri('sh', 'conforms'))!.object.value === 'true';
