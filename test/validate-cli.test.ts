@@ -108,4 +108,16 @@ test('a shapes folder without .ttl files exits 2 with a clear message', () => {
   assert.match(r.stderr, /the shapes folder has no \.ttl file/);
 });
 
+
+test('--shacl-engine rdf-validate-shacl writes the same report bytes as the built-in engine', () => {
+  const builtin = join(tmp, 'builtin.ttl');
+  const reference = join(tmp, 'reference.ttl');
+  assert.equal(run('violating.ttl', 'warning-only.ttl', '--shapes', 'shapes', '--report', builtin).code, 1);
+  assert.equal(run('violating.ttl', 'warning-only.ttl', '--shapes', 'shapes', '--report', reference, '--shacl-engine', 'rdf-validate-shacl').code, 1);
+  assert.equal(readFileSync(reference, 'utf8'), readFileSync(builtin, 'utf8'));
+  const bad = run('violating.ttl', '--shapes', 'shapes', '--shacl-engine', 'fastest');
+  assert.equal(bad.code, 1);
+  assert.match(bad.stderr, /argument 'fastest' is invalid\. Allowed choices are builtin, rdf-validate-shacl/);
+});
+
 test('clean up', () => rmSync(tmp, { recursive: true, force: true }));

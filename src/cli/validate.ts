@@ -1,5 +1,6 @@
 // `concordat validate <files...>`: options → SHACL validation of RDF files, printed summary and exit code.
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
+import type { ShaclEngine } from '../validate/shacl.js';
 import { EXIT } from '../errors.js';
 
 const EXAMPLE = `
@@ -18,16 +19,17 @@ export function register(program: Command): void {
     .argument('<files...>', 'RDF files to check; all are merged into one data graph')
     .option('--shapes <folder>', 'folder whose .ttl files hold the SHACL shapes (default: the shapes/ folder shipped with concordat)')
     .option('--report <file>', 'also write the SHACL validation report as Turtle to this file')
+    .addOption(new Option('--shacl-engine <name>', 'SHACL engine: the built-in SHACL core engine, or rdf-validate-shacl').choices(['builtin', 'rdf-validate-shacl']).default('builtin'))
     .option('--json', 'print the outcome as JSON instead of text')
     .addHelpText('after', EXAMPLE)
-    .action(async (files: string[], opts: { shapes?: string; report?: string; json?: boolean }) => {
+    .action(async (files: string[], opts: { shapes?: string; report?: string; json?: boolean; shaclEngine: ShaclEngine }) => {
       const { defaultShapesDir, loadDataFiles, loadShapesFolder } = await import('../validate/files.js');
       const { validate } = await import('../validate/shacl.js');
       const { writeValidationReport } = await import('../validate/report.js');
       const { summaryJson, summaryText } = await import('../validate/summary.js');
       const shapes = await loadShapesFolder(opts.shapes ?? defaultShapesDir());
       const data = await loadDataFiles(files);
-      const outcome = await validate(data, shapes.quads, { shapesLabel: opts.shapes ?? 'shapes' });
+      const outcome = await validate(data, shapes.quads, { shapesLabel: opts.shapes ?? 'shapes', engine: opts.shaclEngine });
       if (opts.report) await writeValidationReport(opts.report, outcome);
       const context = { files: files.length, quads: data.size, shapesFiles: shapes.files.length };
       process.stdout.write(opts.json ? JSON.stringify(summaryJson(outcome, context), null, 2) + '\n' : summaryText(outcome, context));
