@@ -116,7 +116,7 @@ test('--shacl-engine rdf-validate-shacl writes the same report bytes as the buil
   assert.equal(run('violating.ttl', 'warning-only.ttl', '--shapes', 'shapes', '--report', reference, '--shacl-engine', 'rdf-validate-shacl').code, 1);
   assert.equal(readFileSync(reference, 'utf8'), readFileSync(builtin, 'utf8'));
   const bad = run('violating.ttl', '--shapes', 'shapes', '--shacl-engine', 'fastest');
-  assert.equal(bad.code, 1);
+  assert.equal(bad.code, 2, 'a usage error');
   assert.match(bad.stderr, /argument 'fastest' is invalid\. Allowed choices are builtin, rdf-validate-shacl/);
 });
 
