@@ -179,14 +179,14 @@ export const COMPONENTS: readonly Component[] = [
   {
     name: 'Equals', parameter: 'equals', compile: ({ value }) => (ctx, focus, values, fail) => {
       const others = ctx.data.objects(focus, value.value);
-      for (const v of values) if (!others.has(v)) fail(v);
+      for (const v of values) if (!others.includes(v)) fail(v);
       for (const o of others) if (!values.includes(o)) fail(o);
     },
   },
   {
     name: 'Disjoint', parameter: 'disjoint', compile: ({ value }) => (ctx, focus, values, fail) => {
       const others = ctx.data.objects(focus, value.value);
-      for (const v of values) if (others.has(v)) fail(v);
+      for (const v of values) if (others.includes(v)) fail(v);
     },
   },
   pairwise('LessThan', (o) => o < 0),
@@ -217,7 +217,8 @@ export const COMPONENTS: readonly Component[] = [
       const allowed = new Set<string>([...propertyPredicates(), ...(ignored ? list(ignored).map((t) => t.value) : [])]);
       return (ctx, _focus, values, fail) => {
         for (const v of values) {
-          for (const [p, objects] of ctx.data.outgoing(v)) if (!allowed.has(p)) for (const o of objects) fail(o, p);
+          const pairs = ctx.data.pairs(v);
+          for (let i = 0; i < pairs.length; i += 2) if (!allowed.has(pairs[i])) fail(pairs[i + 1], pairs[i]);
         }
       };
     },

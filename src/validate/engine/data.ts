@@ -13,22 +13,31 @@ const ID = N3.termToId as (t: unknown) => string;
 
 type Index = Map<TermId, Map<TermId, Set<TermId>>>;
 
-function add(index: Index, a: TermId, p: TermId, b: TermId): boolean {
+function add(index: Index, a: TermId, p: TermId, b: TermId): void {
   let byPredicate = index.get(a);
   if (!byPredicate) index.set(a, (byPredicate = new Map()));
   let values = byPredicate.get(p);
   if (!values) byPredicate.set(p, (values = new Set()));
-  const before = values.size;
   values.add(b);
-  return values.size !== before;
 }
 
-/** A data graph as the union of the given quads' graphs (duplicates collapse: an RDF graph is a set of triples). */
+/** Above this many triples a subject's duplicates are found through a set instead of by scanning. */
+const SCAN_LIMIT = 32;
+
+/**
+ * A data graph as the union of the given quads' graphs (duplicates collapse: an RDF graph is a set of triples).
+ * Each subject keeps its (predicate, object) pairs in one flat array, in first-seen order; rdf:type is indexed by
+ * class as it arrives; the inverse index and the per-predicate indexes are built only when a shape asks for them.
+ */
 export class DataGraph {
-  private readonly out: Index = new Map();
+  private readonly out = new Map<TermId, TermId[]>();
+  private readonly large = new Map<TermId, Set<string>>();
+  /** class → subjects with rdf:type it, and class → its direct rdfs:subClassOf subclasses, kept as triples arrive. */
+  private readonly typed = new Map<TermId, TermId[]>();
+  private readonly subclassed = new Map<TermId, TermId[]>();
   private inverse: Index | null = null;
-  private bySubjectPredicate: Map<TermId, Set<TermId>> | null = null;
-  private byObjectPredicate: Map<TermId, Set<TermId>> | null = null;
+  private readonly bySubjectPredicate = new Map<TermId, Set<TermId>>();
+  private readonly byObjectPredicate = new Map<TermId, Set<TermId>>();
   private readonly superclasses = new Map<TermId, TermId[]>();
   private readonly subclasses = new Map<TermId, TermId[]>();
   /** The triples in first-seen order, flat: [s, p, o, s, p, o, …]. */
@@ -48,16 +57,43 @@ export class DataGraph {
   }
 
   private add(s: TermId, p: TermId, o: TermId): void {
-    if (add(this.out, s, p, o)) this.triples.push(s, p, o);
+    let pairs = this.out.get(s);
+    if (!pairs) this.out.set(s, (pairs = []));
+    else if (pairs.length < 2 * SCAN_LIMIT) {
+      for (let i = 0; i < pairs.length; i += 2) if (pairs[i] === p && pairs[i + 1] === o) return;
+    } else {
+      let keys = this.large.get(s);
+      if (!keys) {
+        keys = new Set();
+        for (let i = 0; i < pairs.length; i += 2) keys.add(`${pairs[i]}\u0000${pairs[i + 1]}`);
+        this.large.set(s, keys);
+      }
+      const key = `${p}\u0000${o}`;
+      if (keys.has(key)) return;
+      keys.add(key);
+    }
+    pairs.push(p, o);
+    this.triples.push(s, p, o);
+    if (p === RDF_TYPE || p === RDFS_SUBCLASS_OF) {
+      const index = p === RDF_TYPE ? this.typed : this.subclassed;
+      const members = index.get(o);
+      if (members) members.push(s);
+      else index.set(o, [s]);
+    }
   }
 
-  /** Objects of `s` along `p`. */
-  objects(s: TermId, p: TermId): ReadonlySet<TermId> {
-    return this.out.get(s)?.get(p) ?? NONE;
+  /** Objects of `s` along `p`, in first-seen order. */
+  objects(s: TermId, p: TermId): TermId[] {
+    const pairs = this.out.get(s);
+    const found: TermId[] = [];
+    if (pairs) for (let i = 0; i < pairs.length; i += 2) if (pairs[i] === p) found.push(pairs[i + 1]);
+    return found;
   }
 
   /** Subjects pointing at `o` along `p`. */
   subjects(o: TermId, p: TermId): ReadonlySet<TermId> {
+    if (p === RDF_TYPE) return new Set(this.typed.get(o) ?? []);
+    if (p === RDFS_SUBCLASS_OF) return new Set(this.subclassed.get(o) ?? []);
     if (!this.inverse) {
       this.inverse = new Map();
       const t = this.triples;
@@ -66,36 +102,30 @@ export class DataGraph {
     return this.inverse.get(o)?.get(p) ?? NONE;
   }
 
-  /** Every (predicate, objects) of `s`. */
-  outgoing(s: TermId): ReadonlyMap<TermId, ReadonlySet<TermId>> {
-    return this.out.get(s) ?? new Map();
+  /** Every (predicate, object) pair of `s`, flat: [p, o, p, o, …]. */
+  pairs(s: TermId): readonly TermId[] {
+    return this.out.get(s) ?? [];
   }
 
   /** Subjects of some triple with predicate `p` (SHACL §2.1.3.4). */
   subjectsOf(p: TermId): ReadonlySet<TermId> {
-    if (!this.bySubjectPredicate) this.indexPredicates();
-    return this.bySubjectPredicate!.get(p) ?? NONE;
+    return this.byPredicate(p, this.bySubjectPredicate, 0);
   }
 
   /** Objects of some triple with predicate `p` (SHACL §2.1.3.5). */
   objectsOf(p: TermId): ReadonlySet<TermId> {
-    if (!this.byObjectPredicate) this.indexPredicates();
-    return this.byObjectPredicate!.get(p) ?? NONE;
+    return this.byPredicate(p, this.byObjectPredicate, 2);
   }
 
-  private indexPredicates(): void {
-    const subjects = (this.bySubjectPredicate = new Map());
-    const objects = (this.byObjectPredicate = new Map());
-    const t = this.triples;
-    for (let i = 0; i < t.length; i += 3) {
-      const p = t[i + 1];
-      let s = subjects.get(p);
-      if (!s) subjects.set(p, (s = new Set()));
-      s.add(t[i]);
-      let o = objects.get(p);
-      if (!o) objects.set(p, (o = new Set()));
-      o.add(t[i + 2]);
+  private byPredicate(p: TermId, cache: Map<TermId, Set<TermId>>, offset: 0 | 2): ReadonlySet<TermId> {
+    let nodes = cache.get(p);
+    if (!nodes) {
+      nodes = new Set();
+      const t = this.triples;
+      for (let i = 0; i < t.length; i += 3) if (t[i + 1] === p) nodes.add(t[i + offset]);
+      cache.set(p, nodes);
     }
+    return nodes;
   }
 
   /** `cls` and every class it is an rdfs:subClassOf of, transitively (SHACL §3.2 "SHACL subclass"). */
@@ -110,7 +140,11 @@ export class DataGraph {
 
   /** Whether `node` is a SHACL instance of `cls`: rdf:type some SHACL subclass of it (SHACL §3.2). */
   isInstance(node: TermId, cls: TermId): boolean {
-    for (const type of this.objects(node, RDF_TYPE)) if (type === cls || this.supersOf(type).includes(cls)) return true;
+    const pairs = this.out.get(node);
+    if (!pairs) return false;
+    for (let i = 0; i < pairs.length; i += 2) {
+      if (pairs[i] === RDF_TYPE && (pairs[i + 1] === cls || this.supersOf(pairs[i + 1]).includes(cls))) return true;
+    }
     return false;
   }
 
@@ -128,7 +162,7 @@ export class DataGraph {
 
   /** Value nodes of `path` from `focus` (SHACL §2.3.1), without duplicates. */
   pathValues(focus: TermId, path: PathTree): TermId[] {
-    if (typeof path === 'string') return [...this.objects(focus, path)];
+    if (typeof path === 'string') return this.objects(focus, path);
     return [...this.walk(new Set([focus]), path)];
   }
 

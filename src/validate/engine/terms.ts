@@ -139,27 +139,45 @@ function numberOf(category: Category, lexical: string): number {
   return Number(lexical);
 }
 
+/** A literal reduced to what ordering needs: its category and a number or a string to compare, or null. */
+type Orderable = { category: Category; key: number | string; zoned: boolean } | null;
+
+const orderables = new Map<TermId, Orderable>();
+
+function orderableOf(id: TermId): Orderable {
+  let found = orderables.get(id);
+  if (found !== undefined) return found;
+  found = null;
+  if (isLiteral(id)) {
+    const parts = literalParts(id);
+    const category = categoryOf(parts);
+    if (category !== null && wellFormed(parts)) {
+      if (category === 'string') found = { category, key: parts.lexical, zoned: false };
+      else if (category === 'numeric' || category === 'boolean') found = { category, key: numberOf(category, parts.lexical), zoned: false };
+      else {
+        const [key, zoned] = instant(category, parts.lexical);
+        found = { category, key, zoned };
+      }
+      if (typeof found.key === 'number' && Number.isNaN(found.key)) found = null;
+    }
+  }
+  if (orderables.size > 100_000) orderables.clear();
+  orderables.set(id, found);
+  return found;
+}
+
 /**
- * Orders two terms as SPARQL 1.1's `<` does (Query §17.3 operator mapping): numbers by value, strings by UTF-16 code unit,
- * booleans, and dates or times with the same timezone presence. Returns a negative, zero or positive number, or null
- * when the terms cannot be compared (IRIs, blank nodes, different kinds, ill-formed literals) — a failure for the
- * SHACL range constraints (§4.3) and for sh:lessThan (§4.5.3).
+ * Orders two terms as SPARQL 1.1's `<` does (Query §17.3 operator mapping): numbers by value, strings by UTF-16 code
+ * unit, booleans, and dates or times with the same timezone presence. Returns a negative, zero or positive number, or
+ * null when the terms cannot be compared (IRIs, blank nodes, different kinds, ill-formed literals, NaN) — a failure
+ * for the SHACL range constraints (§4.3) and for sh:lessThan (§4.5.3).
  */
 export function compareTerms(a: TermId, b: TermId): number | null {
-  if (!isLiteral(a) || !isLiteral(b)) return null;
-  const pa = literalParts(a);
-  const pb = literalParts(b);
-  const ca = categoryOf(pa);
-  if (ca === null || ca !== categoryOf(pb) || !wellFormed(pa) || !wellFormed(pb)) return null;
-  if (ca === 'string') return pa.lexical < pb.lexical ? -1 : pa.lexical > pb.lexical ? 1 : 0;
-  if (ca === 'numeric' || ca === 'boolean') {
-    const x = numberOf(ca, pa.lexical);
-    const y = numberOf(ca, pb.lexical);
-    return Number.isNaN(x) || Number.isNaN(y) ? null : x - y;
-  }
-  const [x, zx] = instant(ca, pa.lexical);
-  const [y, zy] = instant(ca, pb.lexical);
-  return zx !== zy || Number.isNaN(x) || Number.isNaN(y) ? null : x - y;
+  const x = orderableOf(a);
+  const y = orderableOf(b);
+  if (x === null || y === null || x.category !== y.category || x.zoned !== y.zoned) return null;
+  if (typeof x.key === 'string') return x.key < (y.key as string) ? -1 : x.key > (y.key as string) ? 1 : 0;
+  return x.key - (y.key as number);
 }
 
 /** SPARQL 1.1 langMatches (Query §17.4.3.2, RFC 4647 §3.3.1 basic filtering). */
