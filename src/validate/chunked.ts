@@ -48,7 +48,7 @@ class Pool {
   }
 
   /** Runs one batch on an acquired worker and frees it afterwards. */
-  run(slot: Slot, quads: string[]): Promise<ResultRow[]> {
+  run(slot: Slot, quads: string): Promise<ResultRow[]> {
     const id = this.nextId++;
     return new Promise<ResultRow[]>((resolve, reject) => {
       slot.settle = (reply) => {
@@ -116,7 +116,7 @@ export async function validateChunks(
     pool ??= new Pool(workers, { shapes: encodeQuads(shapes), options });
     const slot = await pool.acquire();
     if (failure) return;
-    pending.push(pool.run(slot, encodeQuads(quads)).then((rows) => merger.add(ownRows(rows, foreign)), (err) => { failure ??= err; }));
+    pending.push(pool.run(slot, JSON.stringify(encodeQuads(quads))).then((rows) => merger.add(ownRows(rows, foreign)), (err) => { failure ??= err; }));
   };
 
   try {

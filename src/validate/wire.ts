@@ -11,10 +11,10 @@ export interface WorkerInit {
   options: ValidateOptions;
 }
 
-/** One batch of data to validate. */
+/** One batch of data to validate: its term ids as one JSON array text (one string clones far faster than many). */
 export interface WorkerTask {
   id: number;
-  quads: string[];
+  quads: string;
 }
 
 /** A worker's answer: rows, a user error's problems, or a bug's stack. */

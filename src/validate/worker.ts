@@ -13,7 +13,7 @@ port.on('message', async (task: WorkerTask) => {
   let reply: WorkerReply;
   try {
     compiled ??= compileShapes(decodeQuads(init.shapes), init.options);
-    reply = { id: task.id, rows: await compiled.rowsOfIds(task.quads) };
+    reply = { id: task.id, rows: await compiled.rowsOfIds(JSON.parse(task.quads) as string[]) };
   } catch (err) {
     reply = err instanceof UserError
       ? { id: task.id, problems: err.problems }
