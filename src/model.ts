@@ -128,6 +128,19 @@ export function workRef(model: Pick<Model, 'project' | 'works'>, w: number): str
   return `${model.project.partners[work.partner].key}:${work.id}`;
 }
 
+/**
+ * Ranks `works` by reference (`partnerKey:workId`, code-point order: the order links and clusters are sorted by) into
+ * `rank[w]` (0-based among `works`); other entries stay -1. Each reference string is built once; sorts then compare
+ * integers.
+ */
+export function refRank(model: Pick<Model, 'project' | 'works'>, works: ArrayLike<number>): Int32Array {
+  const rank = new Int32Array(model.works.length).fill(-1);
+  const refs = Array.from(works, (w) => workRef(model, w));
+  const order = Array.from(refs.keys()).sort((x, y) => (refs[x] < refs[y] ? -1 : refs[x] > refs[y] ? 1 : 0));
+  order.forEach((i, r) => (rank[works[i]] = r));
+  return rank;
+}
+
 /** `workRef` memoised per work, for stages that format the same work many times (sorting, reports). */
 export function cachedWorkRef(model: Pick<Model, 'project' | 'works'>): (w: number) => string {
   const refs = new Map<number, string>();

@@ -1,10 +1,9 @@
 // Links + cluster diagnostics → the curators' review queue, ranked: most useful decisions first.
-import type { Model } from '../model.js';
+import { refRank, type Model } from '../model.js';
 import { isClaim } from '../link/index.js';
 import { pairKey, type LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import { float64, int32 } from '../util/columns.js';
-import { refRank } from '../cluster/ref-rank.js';
 import { denseRank, sortByKeys } from '../util/sort.js';
 import { REVIEW_REASONS, type ReviewQueue, type ReviewReason } from './types.js';
 

@@ -1,6 +1,6 @@
 // Work links → clusters (connected components over same claims) with diagnostics and stable IDs (design, step 3).
 import type { Model } from '../model.js';
-import { workRef } from '../model.js';
+import { refRank, workRef } from '../model.js';
 import { isClaim } from '../link/index.js';
 import type { LinkSet } from '../link/types.js';
 import { adjacency } from './graph.js';
@@ -8,7 +8,6 @@ import { findBridges } from './bridges.js';
 import { impliedPairs } from './implied.js';
 import { assignIds, byNumber } from './ids.js';
 import { UnionFind } from './union-find.js';
-import { refRank } from './ref-rank.js';
 import type { Cluster, ClusterOptions, ClusterRegistry, Clustering } from './types.js';
 
 export type { Cluster, ClusterOptions, ClusterRegistry, Clustering, ImpliedPairs, RetiredId } from './types.js';

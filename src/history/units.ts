@@ -6,6 +6,7 @@ import { isPublished, type Namer, type Unit } from '../rdf/index.js';
 import type { Model } from '../model.js';
 import type { ReleaseView } from '../rdf/view.js';
 import type { LinkEvidence } from './evidence.js';
+import { matchesOf } from '../link/index.js';
 import { P, earlierStateIri } from './names.js';
 import type { LinkState, PreviousRelease, ReleaseSnapshot } from './types.js';
 
@@ -45,7 +46,7 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
   const out = new Set<string>();
   for (const l of view.links.links) {
     if (!isPublished(l) || !iris.has(namer.linkIri(l))) continue;
-    for (const r of l.matches) out.add(namer.matchIri(r));
+    for (const r of matchesOf(view.links, l)) out.add(namer.matchIri(r));
   }
   return out;
 }

@@ -1,15 +1,8 @@
 // Link stage: image matches + curator decisions + policy → work-to-work links (design, pipeline step 2).
 import type { Model, Policy } from '../model.js';
 import type { Problem } from '../errors.js';
-import { cachedWorkRef } from '../model.js';
+import { refRank } from '../model.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
-
-interface Acc {
-  a: number;
-  b: number;
-  rows: number[];
-  decision?: number;
-}
 
 /**
  * Which end of a partial match is the detail. Contract extension (documented in DEVELOPERS.md): for a partial match,
@@ -28,84 +21,152 @@ export function machineVerdict(best: number, maxOverlap: number, reliable: numbe
 }
 
 /**
- * Aggregates image matches into work pairs: support, best and mean score, coverage, same or part, status.
+ * Aggregates image matches into work pairs (rows grouped by two stable counting sorts over work ranks, so no per-pair
+ * objects are built while reading): support, best and mean score, coverage, same or part, status.
  * Curator decisions always win: `same` confirms, `part` and `related` set the kind (confirmed), `distinct` keeps a
  * rejected link so it is never proposed again. Matches below `minOverlap` stay evidence but propose nothing.
  */
 export function link(model: Model, policy: Policy = model.project.policy): LinkSet {
   const { matches, images } = model;
-  const acc = new Map<number, Acc>();
-  const get = (a: number, b: number): Acc => {
-    const k = pairKey(a, b);
-    let x = acc.get(k);
-    if (!x) acc.set(k, (x = { a, b, rows: [] }));
-    return x;
-  };
-  const duplicates: { row: number; first: number }[] = [];
+  const rank = refRank(model, Array.from(model.works.keys()));
+  const byRank = new Int32Array(model.works.length);
+  rank.forEach((r, w) => (byRank[r] = w));
+  // each evidence row's pair as (lower rank, higher rank); rows grouped by pair in reference order, input order kept
+  const lo = new Int32Array(matches.count);
+  const hi = new Int32Array(matches.count);
   for (let i = 0; i < matches.count; i++) {
-    const rows = get(images.work[matches.a[i]], images.work[matches.b[i]]).rows;
-    const lo = Math.min(matches.a[i], matches.b[i]), hi = Math.max(matches.a[i], matches.b[i]);
-    const first = rows.find((r) => matches.run[r] === matches.run[i] && Math.min(matches.a[r], matches.b[r]) === lo && Math.max(matches.a[r], matches.b[r]) === hi);
-    if (first === undefined) rows.push(i);
-    else duplicates.push({ row: i, first }); // one run reporting one image pair twice is one piece of evidence
+    const ra = rank[images.work[matches.a[i]]], rb = rank[images.work[matches.b[i]]];
+    lo[i] = ra < rb ? ra : rb;
+    hi[i] = ra < rb ? rb : ra;
   }
-  model.decisions.forEach((d, i) => (get(d.a, d.b).decision = i)); // later rows win
+  const rows = countingSort(countingSort(identity(matches.count), hi, model.works.length), lo, model.works.length);
 
-  const ref = cachedWorkRef(model);
+  // decisions by pair (later rows win), merged into the walk over evidence groups in the same order
+  const decided = new Map<number, number>();
+  model.decisions.forEach((d, i) => decided.set(pairKey(rank[d.a], rank[d.b]), i));
+  const decisionOnly = [...decided.keys()].sort((p, q) => p - q);
+
+  const matchRows = new Int32Array(matches.count);
+  let kept = 0;
+  const duplicates: { row: number; first: number }[] = [];
   const links: Link[] = [];
-  for (const x of acc.values()) {
-    const [a, b] = ref(x.a) < ref(x.b) ? [x.a, x.b] : [x.b, x.a];
-    let best = 0, sum = 0, reliable = 0, maxOverlap = 0;
-    const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
-    const detailVotes = new Map<number, number>();
-    for (const r of x.rows) {
-      const ia = matches.a[r], ib = matches.b[r];
-      for (const img of [ia, ib]) (images.work[img] === a ? imgsA : imgsB).add(img);
-      runs.add(matches.run[r]);
-      if (matches.overlap[r] < policy.minOverlap) continue;
-      reliable++;
-      sum += matches.score[r];
-      if (matches.score[r] > best) best = matches.score[r];
-      if (matches.overlap[r] > maxOverlap) maxOverlap = matches.overlap[r];
-      if (matches.overlap[r] < policy.partOverlapBelow) {
-        const d = detailWork(model, r);
-        detailVotes.set(d, (detailVotes.get(d) ?? 0) + 1);
-      }
+  let d = 0;
+  const emitDecisionOnly = (upTo: number) => {
+    for (; d < decisionOnly.length && decisionOnly[d] < upTo; d++) {
+      if (decided.get(decisionOnly[d]) === -1) continue;
+      const key = decisionOnly[d];
+      const [a, b] = [byRank[Math.floor(key / PAIR)], byRank[key % PAIR]];
+      links.push(makeLink(model, policy, a, b, matchRows, kept, 0, decided.get(key)));
     }
-    // a pair known only from a decision has no evidence to call it partial: a `distinct` verdict rejects `same`
-    let { kind, status } = x.rows.length ? machineVerdict(best, maxOverlap, reliable, policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
-    let part: number | undefined;
-    if (kind === 'part') part = (detailVotes.get(a) ?? 0) >= (detailVotes.get(b) ?? 0) ? a : b;
-    if (x.decision !== undefined) {
-      const d = model.decisions[x.decision];
-      if (d.verdict === 'distinct') status = 'rejected';
-      else {
-        status = 'confirmed';
-        kind = d.verdict;
-        part = d.verdict === 'part' ? d.a : undefined;
-      }
+  };
+  for (let start = 0; start < rows.length;) {
+    const first = rows[start];
+    let end = start + 1;
+    while (end < rows.length && lo[rows[end]] === lo[first] && hi[rows[end]] === hi[first]) end++;
+    const key = pairKey(lo[first], hi[first]);
+    emitDecisionOnly(key);
+    const from = kept;
+    for (let k = start; k < end; k++) {
+      const i = rows[k];
+      const repeat = findRepeat(model, matchRows, from, kept, i);
+      if (repeat === -1) matchRows[kept++] = i;
+      else duplicates.push({ row: i, first: repeat }); // one run reporting one image pair twice is one piece of evidence
     }
-    links.push({
-      a, b, kind, status, part,
-      support: x.rows.length,
-      reliableSupport: reliable,
-      best,
-      mean: reliable ? sum / reliable : 0,
-      maxOverlap,
-      coverageA: imgsA.size / model.works[a].imageCount,
-      coverageB: imgsB.size / model.works[b].imageCount,
-      runs: [...runs].sort((p, q) => p - q),
-      decision: x.decision,
-      matches: Int32Array.from(x.rows),
-    });
+    const decision = decided.get(key);
+    if (decision !== undefined) decided.set(key, -1);
+    links.push(makeLink(model, policy, byRank[lo[first]], byRank[hi[first]], matchRows, from, kept - from, decision));
+    start = end;
   }
-  links.sort((p, q) => cmp(ref(p.a), ref(q.a)) || cmp(ref(p.b), ref(q.b)));
+  emitDecisionOnly(Infinity);
+  duplicates.sort((p, q) => p.row - q.row);
   const byPair = new Map<number, number>();
   links.forEach((l, i) => byPair.set(pairKey(l.a, l.b), i));
-  return { links, byPair, duplicates };
+  return { links, byPair, duplicates, matchRows: matchRows.slice(0, kept) };
 }
 
-const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
+/** Pair keys of ranks: exact while ranks stay below 2^26 (see pairKey). */
+const PAIR = 67108864;
+
+function identity(n: number): Int32Array {
+  const out = new Int32Array(n);
+  for (let i = 0; i < n; i++) out[i] = i;
+  return out;
+}
+
+/** Stable counting sort of `items` by `key[item]` (keys in [0, buckets)). */
+function countingSort(items: Int32Array, key: Int32Array, buckets: number): Int32Array {
+  const starts = new Int32Array(buckets + 1);
+  for (const it of items) starts[key[it] + 1]++;
+  for (let k = 0; k < buckets; k++) starts[k + 1] += starts[k];
+  const out = new Int32Array(items.length);
+  for (const it of items) out[starts[key[it]]++] = it;
+  return out;
+}
+
+/** The earlier kept row (among matchRows[from, to)) reporting the same image pair in the same run as row `i`, or -1. */
+function findRepeat(model: Model, matchRows: Int32Array, from: number, to: number, i: number): number {
+  const m = model.matches;
+  const lo = Math.min(m.a[i], m.b[i]), hi = Math.max(m.a[i], m.b[i]);
+  for (let k = from; k < to; k++) {
+    const r = matchRows[k];
+    if (m.run[r] === m.run[i] && Math.min(m.a[r], m.b[r]) === lo && Math.max(m.a[r], m.b[r]) === hi) return r;
+  }
+  return -1;
+}
+
+/** One link from its evidence rows (matchRows[start, start + count)) and the deciding row, if any. */
+function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined): Link {
+  const { matches, images } = model;
+  let best = 0, sum = 0, reliable = 0, maxOverlap = 0;
+  const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
+  let votesA = 0, votesB = 0;
+  for (let k = start; k < start + count; k++) {
+    const r = matchRows[k];
+    const ia = matches.a[r], ib = matches.b[r];
+    for (const img of [ia, ib]) (images.work[img] === a ? imgsA : imgsB).add(img);
+    runs.add(matches.run[r]);
+    if (matches.overlap[r] < policy.minOverlap) continue;
+    reliable++;
+    sum += matches.score[r];
+    if (matches.score[r] > best) best = matches.score[r];
+    if (matches.overlap[r] > maxOverlap) maxOverlap = matches.overlap[r];
+    if (matches.overlap[r] < policy.partOverlapBelow) {
+      if (detailWork(model, r) === a) votesA++;
+      else votesB++;
+    }
+  }
+  // a pair known only from a decision has no evidence to call it partial: a `distinct` verdict rejects `same`
+  let { kind, status } = count ? machineVerdict(best, maxOverlap, reliable, policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
+  let part: number | undefined;
+  if (kind === 'part') part = votesA >= votesB ? a : b;
+  if (decision !== undefined) {
+    const d = model.decisions[decision];
+    if (d.verdict === 'distinct') status = 'rejected';
+    else {
+      status = 'confirmed';
+      kind = d.verdict;
+      part = d.verdict === 'part' ? d.a : undefined;
+    }
+  }
+  return {
+    a, b, kind, status, part,
+    support: count,
+    reliableSupport: reliable,
+    best,
+    mean: reliable ? sum / reliable : 0,
+    maxOverlap,
+    coverageA: imgsA.size / model.works[a].imageCount,
+    coverageB: imgsB.size / model.works[b].imageCount,
+    runs: [...runs].sort((p, q) => p - q),
+    decision,
+    matchStart: start,
+  };
+}
+
+/** The evidence rows behind a link, in input order (a view into the set's shared array). */
+export function matchesOf(set: Pick<LinkSet, 'matchRows'>, l: Link): Int32Array {
+  return set.matchRows.subarray(l.matchStart, l.matchStart + l.support);
+}
 
 /** Is this link a published claim (a triple in the claims graph)? */
 export const isClaim = (l: Link) => l.status === 'confirmed' || l.status === 'proposed';

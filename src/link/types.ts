@@ -28,8 +28,8 @@ export interface Link {
   runs: number[];
   /** Index into Model.decisions of the deciding row (the latest for the pair), when a curator decided. */
   decision?: number;
-  /** Row numbers in Model.matches behind the link, in input order. */
-  matches: Int32Array;
+  /** Where the link's evidence rows start in LinkSet.matchRows (`support` rows from there; see matchesOf). */
+  matchStart: number;
 }
 
 export interface LinkSet {
@@ -37,6 +37,8 @@ export interface LinkSet {
   links: Link[];
   /** `a,b` (work numbers, either order) → index in `links`. */
   byPair: Map<number, number>;
+  /** Row numbers in Model.matches behind each link, link after link, each link's rows in input order. */
+  matchRows: Int32Array;
   /** Evidence rows that repeat an image pair already reported by the same run: counted once (`row` repeats `first`). */
   duplicates: { row: number; first: number }[];
 }

@@ -3,6 +3,7 @@ import type { Quad, NamedNode } from '@rdfjs/types';
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
+import { matchesOf } from '../link/index.js';
 import { compileTemplate, encodeUnreserved } from '../load/template.js';
 import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
 import type { ReleaseView } from './view.js';
@@ -187,7 +188,7 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
     prov(L, term('cx', 'coverageObject'), dec(s === l.a ? l.coverageB : l.coverageA));
   }
   const { matches } = model;
-  for (const r of l.matches) {
+  for (const r of matchesOf(view.links, l)) {
     const ia = matches.a[r], ib = matches.b[r];
     const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
     const id = namer.matchIri(r, ra, rb);
