@@ -79,9 +79,32 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
   }
   emitDecisionOnly(Infinity);
   duplicates.sort((p, q) => p.row - q.row);
-  const byPair = new Map<number, number>();
-  links.forEach((l, i) => byPair.set(pairKey(l.a, l.b), i));
-  return { links, byPair, duplicates, matchRows: matchRows.slice(0, kept) };
+  return { links, byPair: new PairIndex(links), duplicates, matchRows: matchRows.slice(0, kept) };
+}
+
+/** Work pair → link index through a sorted key array and binary search (16 bytes a link; a Map took ~60). */
+class PairIndex {
+  private readonly keys: Float64Array;
+  private readonly index: Int32Array;
+
+  constructor(links: readonly Link[]) {
+    const keys = Float64Array.from(links, (l) => pairKey(l.a, l.b));
+    const order = Int32Array.from(keys.keys()).sort((x, y) => keys[x] - keys[y]);
+    this.keys = Float64Array.from(order, (i) => keys[i]);
+    this.index = order;
+  }
+
+  get(key: number): number | undefined {
+    let lo = 0, hi = this.keys.length - 1;
+    while (lo <= hi) {
+      const mid = (lo + hi) >>> 1;
+      const k = this.keys[mid];
+      if (k === key) return this.index[mid];
+      if (k < key) lo = mid + 1;
+      else hi = mid - 1;
+    }
+    return undefined;
+  }
 }
 
 /** Pair keys of ranks: exact while ranks stay below 2^26 (see pairKey). */
@@ -157,10 +180,19 @@ function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows:
     maxOverlap,
     coverageA: imgsA.size / model.works[a].imageCount,
     coverageB: imgsB.size / model.works[b].imageCount,
-    runs: [...runs].sort((p, q) => p - q),
+    runs: internRuns([...runs].sort((p, q) => p - q)),
     decision,
     matchStart: start,
   };
+}
+
+const runLists = new Map<string, readonly number[]>();
+/** One shared, frozen array per distinct run list (most links share one or two lists). */
+function internRuns(runs: number[]): number[] {
+  const key = runs.join(',');
+  let shared = runLists.get(key);
+  if (!shared) runLists.set(key, (shared = Object.freeze(runs)));
+  return shared as number[];
 }
 
 /** The evidence rows behind a link, in input order (a view into the set's shared array). */

@@ -24,7 +24,7 @@ export interface Link {
   /** Share of each work's images that appear in the link's matches. */
   coverageA: number;
   coverageB: number;
-  /** Run numbers (Model.runs) with at least one match behind the link, ascending. */
+  /** Run numbers (Model.runs) with at least one match behind the link, ascending (shared between links: read only). */
   runs: number[];
   /** Index into Model.decisions of the deciding row (the latest for the pair), when a curator decided. */
   decision?: number;
@@ -36,7 +36,7 @@ export interface LinkSet {
   /** Every work pair with evidence or a decision, sorted by (ref a, ref b). */
   links: Link[];
   /** `a,b` (work numbers, either order) → index in `links`. */
-  byPair: Map<number, number>;
+  byPair: { get(key: number): number | undefined };
   /** Row numbers in Model.matches behind each link, link after link, each link's rows in input order. */
   matchRows: Int32Array;
   /** Evidence rows that repeat an image pair already reported by the same run: counted once (`row` repeats `first`). */
