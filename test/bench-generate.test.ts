@@ -1,11 +1,11 @@
 // The benchmark's project generator at a tiny scale: deterministic bytes, and its output passes the load stage.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import os from 'node:os';
+import { readdirSync, readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { generateProject, Rng } from '../bench/generate.js';
 import { load } from '../src/load/index.js';
+import { tempDir } from './helpers/fixture.js';
 
 const files = (dir: string): string[] =>
   readdirSync(dir, { recursive: true, withFileTypes: true })
@@ -14,7 +14,7 @@ const files = (dir: string): string[] =>
     .sort();
 
 test('same seed and scale give byte-identical projects; another seed differs', async (t) => {
-  const root = mkdtempSync(path.join(os.tmpdir(), 'concordat-gen-'));
+  const root = tempDir('concordat-gen-');
   t.after(() => rmSync(root, { recursive: true, force: true }));
   const opts = { works: 200, partners: 4, seed: 7 };
   await generateProject(path.join(root, 'a'), opts);
@@ -29,7 +29,7 @@ test('same seed and scale give byte-identical projects; another seed differs', a
 });
 
 test('the generated project loads: every work, photo and evidence row is accepted', async (t) => {
-  const root = mkdtempSync(path.join(os.tmpdir(), 'concordat-gen-'));
+  const root = tempDir('concordat-gen-');
   t.after(() => rmSync(root, { recursive: true, force: true }));
   const summary = await generateProject(root, { works: 200, partners: 5, seed: 3 });
   const { model, stats } = await load(summary.projectFile);

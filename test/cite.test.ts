@@ -1,8 +1,6 @@
 // concordat cite: claims with their evidence chain, checked against the input files; formats; not-found; --store.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { z } from 'zod';
@@ -15,12 +13,12 @@ import { expandTemplate } from '../src/load/template.js';
 import { loadProjectFile } from '../src/load/project.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { load } from '../src/load/index.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 import jsonld from 'jsonld';
 
 const project = path.join(repoRoot, 'demo-data', 'concordance.json');
 const cli = path.join(repoRoot, 'dist', 'src', 'cli', 'main.js');
-const tmp = mkdtempSync(path.join(tmpdir(), 'concordat-cite-'));
+const tmp = tempDir('concordat-cite-');
 const release = path.join(tmp, '2026.1');
 const store = path.join(tmp, 'store');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8' });

@@ -2,8 +2,7 @@
 // components/bridges checked against graphology and brute force on random graphs.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, writeFileSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { writeFileSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { UndirectedGraph } from 'graphology';
@@ -14,6 +13,7 @@ import { cluster, readClusterRegistry, writeClusterRegistry, registryOf, type Cl
 import { workRef, type Model } from '../src/model.js';
 import { UserError } from '../src/errors.js';
 import { tinyModel, workNo, type TinySpec } from './helpers/model.js';
+import { tempDir } from './helpers/fixture.js';
 
 const linkOf = (m: Model, x: string, y: string) => {
   const ls = link(m);
@@ -22,7 +22,7 @@ const linkOf = (m: Model, x: string, y: string) => {
   return ls.links[i];
 };
 const refsOf = (m: Model, c: Clustering) => c.clusters.map((k) => [k.id, Array.from(k.members, (w) => workRef(m, w))] as const);
-const tmp = () => mkdtempSync(path.join(tmpdir(), 'concordat-cluster-'));
+const tmp = () => tempDir('concordat-cluster-');
 
 // ---- link rules (worked by hand) ----
 

@@ -1,12 +1,12 @@
 // Demo scenario files → checks: the seeded generator reproduces them byte for byte, and they honour the input contract.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parseString } from 'fast-csv';
 import { generateDemo } from '../demo-data/generate.js';
+import { tempDir } from './helpers/fixture.js';
 
 const ROOT = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../..');
 const DEMO = path.join(ROOT, 'demo-data');
@@ -72,7 +72,7 @@ const pairKey = (a: string, b: string): string => [a, b].sort().join('|');
 const answerKey = (rel: string) => JSON.parse(readFileSync(path.join(DEMO, rel), 'utf8'));
 
 test('the generator reproduces the committed demo files byte for byte', () => {
-  const out = mkdtempSync(path.join(tmpdir(), 'concordat-demo-'));
+  const out = tempDir('concordat-demo-');
   try {
     const written = generateDemo(out);
     assert.ok(written.includes('concordance.json') && written.includes('release-2/concordance.json'));

@@ -1,16 +1,15 @@
 // The demo's two releases: the changes of release 2027.1 against 2026.1 match the generator's answer key.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { build } from '../src/pipeline.js';
 import { readClusterRegistry } from '../src/cluster/index.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const demo = path.join(repoRoot, 'demo-data');
 const key = JSON.parse(readFileSync(path.join(demo, 'release-2', 'answer-key.json'), 'utf8'));
-const tmp = mkdtempSync(path.join(tmpdir(), 'concordat-demo-history-'));
+const tmp = tempDir('concordat-demo-history-');
 const pair = (x: string, y: string) => [x, y].sort().join(' | ');
 
 const built = (async () => {

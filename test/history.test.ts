@@ -1,8 +1,7 @@
 // Releases over time: stable cluster and link IRIs, merges, splits, retirements, revisions, invalidations, changes files.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import N3 from 'n3';
 import { build } from '../src/pipeline.js';
@@ -12,13 +11,14 @@ import { iri } from '../src/namespaces.js';
 import { diffReleases } from '../src/history/diff.js';
 import { isEmpty } from '../src/history/compare.js';
 import { writeTinyProject } from './helpers/releases.js';
+import { tempDir } from './helpers/fixture.js';
 
 const BASE = 'https://concordance.example.org/';
 const R1 = ['a:p1,b:p1,0.9,1', 'a:p1x,b:p1,0.8,0.9', 'a:p2,b:p2,0.9,1', 'a:p3,b:p3,0.9,1', 'b:p3,c:p3,0.9,1', 'c:p3,a:p6,0.9,1', 'a:p4,b:p4,0.9,1', 'a:p5,b:p5,0.7,1'];
 const R2 = [...R1.filter((r) => !r.startsWith('a:p4')), 'b:p1,a:p2,0.9,1'];
 const D2 = ['b:3,c:3,distinct,Test Curator,2026-05-01,look-alike', 'a:5,b:5,same,Test Curator,2026-05-02,'];
 
-const dir = mkdtempSync(path.join(tmpdir(), 'concordat-history-'));
+const dir = tempDir('concordat-history-');
 const rel = (v: string) => path.join(dir, 'releases', v);
 const link = (x: string, y: string) => `${BASE}link/${hash(x, y)}`;
 const cluster = (id: string) => `${BASE}work/${id}`;

@@ -1,8 +1,7 @@
 // Units of quads → our framed JSON-LD nodes → jsonld.js toRdf → checked isomorphic to the unit, on the demo release and hand-made units.
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import path from 'node:path';
 import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
@@ -14,7 +13,7 @@ import { isomorphic } from '../src/rdf/isomorphic.js';
 import { jsonldToNQuads } from '../src/rdf/jsonld-read.js';
 import { unitNodes, JSONLD_CONTEXT } from '../src/publish/jsonld.js';
 import { NS } from '../src/namespaces.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const { namedNode: nn, blankNode, literal, quad } = N3.DataFactory;
 const G = nn('https://example.org/graph/provenance');
@@ -52,7 +51,7 @@ function described(nodes: unknown): Map<string, number> {
   return out;
 }
 
-const tmp = mkdtempSync(path.join(tmpdir(), 'concordat-jsonld-build-'));
+const tmp = tempDir('concordat-jsonld-build-');
 after(() => rmSync(tmp, { recursive: true, force: true }));
 
 test('every unit of the demo release gives JSON-LD whose RDF is isomorphic to the unit', async () => {

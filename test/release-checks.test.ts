@@ -4,7 +4,6 @@
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
 import { mkdtempSync, readdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
 import path from 'node:path';
 import fc from 'fast-check';
 import N3 from 'n3';
@@ -14,12 +13,12 @@ import { NS, iri } from '../src/namespaces.js';
 import { isomorphic } from '../src/rdf/isomorphic.js';
 import { validate } from '../src/validate/shacl.js';
 import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 import { distinctCount, formatOf, merged, ourQuads, rapper, rapperRead, rdflibRead, rdflibJsonLd, rdflibPython, type ToolReading } from './helpers/external-rdf.js';
 import { PARTNERS, imageId, writeTinyProject, type TinyProject } from './helpers/tiny-project.js';
 import { requires } from './helpers/requires.js';
 
-const tmp = mkdtempSync(path.join(tmpdir(), 'concordat-release-checks-'));
+const tmp = tempDir('concordat-release-checks-');
 after(() => rmSync(tmp, { recursive: true, force: true }));
 const demo = path.join(repoRoot, 'demo-data', 'concordance.json');
 const release = await build(demo, path.join(tmp, 'a'));

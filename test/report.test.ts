@@ -2,7 +2,7 @@
 // as a decisions file, and byte-identical report files from two runs.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { csvCell, csvLine, neutralise } from '../src/util/csv-write.js';
@@ -17,9 +17,9 @@ import { derive } from '../src/pipeline.js';
 import { ProblemList } from '../src/errors.js';
 import type { Decision, Model } from '../src/model.js';
 import { tinyModel } from './helpers/model.js';
-import { fixtureCopy } from './helpers/fixture.js';
+import { fixtureCopy, tempDir } from './helpers/fixture.js';
 
-const tmp = () => mkdtempSync(path.join(tmpdir(), 'concordat-report-'));
+const tmp = () => tempDir('concordat-report-');
 
 test('CSV cells: RFC 4180 quoting (comma, quote, CR, LF) and LF record ends', () => {
   // RFC 4180 §2.6: fields with line breaks, double quotes or commas are enclosed in double quotes;

@@ -1,8 +1,7 @@
 // concordat init and add-partner: starter project, delimiter sniffing, column proposals on the demo exports, confirmation.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync, existsSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, existsSync, statSync } from 'node:fs';
 import path from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { initProject } from '../src/setup/starter.js';
@@ -11,12 +10,12 @@ import { sniffDelimiter } from '../src/setup/sniff.js';
 import { proposeColumns } from '../src/setup/columns.js';
 import { loadProjectFile } from '../src/load/project.js';
 import { load } from '../src/load/index.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const demo = path.join(repoRoot, 'demo-data');
 const cli = path.join(repoRoot, 'dist', 'src', 'cli', 'main.js');
 const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8', stdio: ['pipe', 'pipe', 'pipe'] });
-const fresh = () => mkdtempSync(path.join(tmpdir(), 'concordat-setup-'));
+const fresh = () => tempDir('concordat-setup-');
 const formatted = (file: string) => {
   const text = readFileSync(file, 'utf8');
   assert.equal(text, JSON.stringify(JSON.parse(text), null, 2) + '\n', 'written as JSON.stringify(…, null, 2)');

@@ -2,8 +2,7 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, readFileSync, readdirSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, readdirSync, rmSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Parser, Store as N3Store } from 'n3';
@@ -20,9 +19,10 @@ import { loadPlanned, planRelease } from '../src/store/release.js';
 import { parseResultsJson } from '../src/store/results.js';
 import type { QueryResult, Term } from '../src/store/types.js';
 import { FIXTURE, BASE, CX, NAMED_CASES, project, graphDump, fileCounts, secondVersion } from './helpers/store.js';
+import { tempDir } from './helpers/fixture.js';
 
 const CLI = fileURLToPath(new URL('../src/cli/main.js', import.meta.url));
-const tmp = (): string => mkdtempSync(join(tmpdir(), 'concordat-store-'));
+const tmp = (): string => tempDir('concordat-store-');
 
 async function loadedFixture(folder?: string): Promise<EmbeddedStore> {
   const store = await EmbeddedStore.open(folder);

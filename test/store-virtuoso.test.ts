@@ -15,6 +15,7 @@ import { RemoteStore, type Endpoints, type RemoteHooks } from '../src/store/remo
 import { loadPlanned, planRelease } from '../src/store/release.js';
 import { BASE, FIXTURE, NAMED_CASES, fileCounts, graphDump, secondVersion } from './helpers/store.js';
 import { requires } from './helpers/requires.js';
+import { tempDir } from './helpers/fixture.js';
 
 const URL_BASE = process.env.CONCORDAT_TEST_VIRTUOSO;
 const skip = requires(URL_BASE, 'set CONCORDAT_TEST_VIRTUOSO=http://127.0.0.1:28890 (a running Virtuoso, see .ci/run)');
@@ -125,7 +126,7 @@ test('no credentials at all: exit 1 and a hint naming the environment variables'
 test('credentials from a netrc file matched by host', { skip }, async () => {
   const { writeFileSync, mkdtempSync, rmSync } = await import('node:fs');
   const { tmpdir } = await import('node:os');
-  const dir = mkdtempSync(join(tmpdir(), 'concordat-netrc-'));
+  const dir = tempDir('concordat-netrc-');
   try {
     writeFileSync(join(dir, 'netrc'), `machine elsewhere.example login x password y\nmachine ${new URL(URL_BASE!).hostname} login ${ENV.CONCORDAT_STORE_USER} password ${ENV.CONCORDAT_STORE_PASSWORD}\n`);
     const store = new RemoteStore(ENDPOINTS, { env: { NETRC: join(dir, 'netrc') }, retries: 0, progress: false });

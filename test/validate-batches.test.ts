@@ -1,16 +1,15 @@
 // Chunked SHACL over a release: small batches judge each node once, in the chunk that owns it.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { build } from '../src/pipeline.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const project = path.join(repoRoot, 'demo-data', 'concordance.json');
 
 test('the demo release conforms in 300-quad batches on two workers, with the same report as in one batch', async () => {
-  const dir = mkdtempSync(path.join(tmpdir(), 'concordat-batches-'));
+  const dir = tempDir('concordat-batches-');
   const small = await build(project, path.join(dir, 'small'), { validationBatch: 300, workers: 2 });
   const whole = await build(project, path.join(dir, 'whole'), { validationBatch: 1e9, workers: 0 });
   assert.equal(small.publish.validation.violations, 0, JSON.stringify(small.publish.validation.results.slice(0, 3)));
@@ -19,7 +18,7 @@ test('the demo release conforms in 300-quad batches on two workers, with the sam
 });
 
 test('a violation inside one unit is still found when batches are small', async () => {
-  const dir = mkdtempSync(path.join(tmpdir(), 'concordat-batches-'));
+  const dir = tempDir('concordat-batches-');
   // shapes that demand something no link has: every link must fail, in whichever batch it lands
   const { cpSync, writeFileSync } = await import('node:fs');
   const shapes = path.join(dir, 'shapes');

@@ -1,8 +1,7 @@
 // Chunked SHACL validation on worker threads → the same results and report bytes as validating the whole graph.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import N3 from 'n3';
@@ -10,6 +9,7 @@ import { iri } from '../src/namespaces.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { validate } from '../src/validate/shacl.js';
 import { validateChunks, writeValidationReport } from '../src/validate/chunked.js';
+import { tempDir } from './helpers/fixture.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const shapes = await readRdfFile(join(root, 'test/fixtures/validate/shapes/links.ttl'));
@@ -57,7 +57,7 @@ test('in-process chunks (workers 0, or input smaller than one batch) agree too',
 });
 
 test('the merged report is written as the same Turtle bytes each time', async () => {
-  const tmp = mkdtempSync(join(tmpdir(), 'concordat-chunked-'));
+  const tmp = tempDir('concordat-chunked-');
   try {
     await writeValidationReport(join(tmp, 'a.ttl'), await validateChunks(stream(), shapes, { workers: 2, batchQuads: 300 }));
     await writeValidationReport(join(tmp, 'b.ttl'), await validateChunks(stream(), shapes, { workers: 2, batchQuads: 700 }));

@@ -2,18 +2,18 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
-import { mkdtempSync, mkdirSync, readFileSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { mkdirSync, readFileSync, rmSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import N3 from 'n3';
 import { readRdfFile } from '../src/rdf/read.js';
 import { iri } from '../src/namespaces.js';
+import { tempDir } from './helpers/fixture.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const main = join(root, 'dist/src/cli/main.js');
 const fixtures = join(root, 'test/fixtures/validate');
-const tmp = mkdtempSync(join(tmpdir(), 'concordat-validate-'));
+const tmp = tempDir('concordat-validate-');
 
 function run(...args: string[]): { code: number | null; stdout: string; stderr: string } {
   const r = spawnSync(process.execPath, [main, 'validate', ...args], { cwd: fixtures, encoding: 'utf8' });

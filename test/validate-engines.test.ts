@@ -3,8 +3,7 @@
 // not run instead of passing it silently.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { rmSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import N3 from 'n3';
@@ -13,12 +12,12 @@ import { build } from '../src/pipeline.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { loadShapesFolder } from '../src/validate/files.js';
 import { compileShapes, validate } from '../src/validate/shacl.js';
-import { repoRoot } from './helpers/fixture.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const { namedNode, literal, blankNode, quad } = N3.DataFactory;
 const xsd = (local: string) => namedNode(iri('xsd', local));
 
-const dir = mkdtempSync(path.join(tmpdir(), 'concordat-engines-'));
+const dir = tempDir('concordat-engines-');
 await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(dir, 'release'), { validate: false });
 const release = await readRdfFile(path.join(dir, 'release', 'concordance.nq'));
 const datasetDescription = await readRdfFile(path.join(dir, 'release', 'dataset.ttl'));

@@ -4,8 +4,7 @@
 // language tags compared case-insensitively (RDF 1.1 Concepts §3.3: tags are case-insensitive).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { existsSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { existsSync, rmSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import N3 from 'n3';
@@ -14,6 +13,7 @@ import { readRdfFile } from '../src/rdf/read.js';
 import { writeQuads, FORMATS, type RdfFormat } from '../src/rdf/serialize.js';
 import { isomorphic } from '../src/rdf/isomorphic.js';
 import { reference } from './helpers/requires.js';
+import { tempDir } from './helpers/fixture.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');
 const rdf11 = resolve(root, '../shared/reference/rdf-tests/rdf/rdf11');
@@ -53,7 +53,7 @@ function list(store: N3.Store, head: N3.Term): N3.Term[] {
   return out;
 }
 
-const tmp = mkdtempSync(join(tmpdir(), 'concordat-rdf-syntax-'));
+const tmp = tempDir('concordat-rdf-syntax-');
 let counter = 0;
 
 /** Writes `quads` in each format with our writer, reads them back, and checks each against `expected`. */

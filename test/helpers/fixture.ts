@@ -1,5 +1,5 @@
 // Test helper: copies a fixture project into a temp folder and applies edits, so each bad-input case starts clean.
-import { cpSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { cpSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -8,11 +8,23 @@ import { fileURLToPath } from 'node:url';
 export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', ...(import.meta.url.includes('/dist/') ? ['..'] : []));
 export const fixtures = path.join(repoRoot, 'test', 'fixtures');
 
+const made: string[] = [];
+process.on('exit', () => {
+  for (const dir of made) rmSync(dir, { recursive: true, force: true });
+});
+
+/** A fresh temp folder (`<prefix>XXXXXX` in the OS temp folder), removed when the test process exits. */
+export function tempDir(prefix: string): string {
+  const dir = mkdtempSync(path.join(tmpdir(), prefix));
+  made.push(dir);
+  return dir;
+}
+
 export type Edit = string | Buffer | ((text: string) => string | Buffer) | null;
 
 /** Copies `fixtures/<name>` to a fresh temp folder, applies edits (file → new content, transform, or null = delete). */
 export function fixtureCopy(name: string, edits: Record<string, Edit> = {}): string {
-  const dir = mkdtempSync(path.join(tmpdir(), 'concordat-test-'));
+  const dir = tempDir('concordat-test-');
   cpSync(path.join(fixtures, name), dir, { recursive: true });
   for (const [file, edit] of Object.entries(edits)) {
     const p = path.join(dir, file);
