@@ -2,6 +2,9 @@
 import type { ProblemList, Problem } from '../errors.js';
 import type { PartnerConfig, Work } from '../model.js';
 import type { Column } from '../util/columns.js';
+import { statSync } from 'node:fs';
+import path from 'node:path';
+import { progress } from '../util/progress.js';
 import { readTable } from './table.js';
 import { checkCatalogueDate } from './dates.js';
 
@@ -29,54 +32,62 @@ export async function loadCatalogue(
   const optional = [c.title, c.date, c.width, c.height].filter((x): x is string => !!x);
   const required = [c.work, c.image, ...optional];
   const disagreeing = new Set<number>();
-  for await (const row of readTable(file, delimiter, required, [], problems, `partner "${partner.key}"`)) {
-    const workId = row.get(c.work).trim();
-    const imageId = row.get(c.image).trim();
-    if (!workId) { problems.add({ file, line: row.line, field: c.work, message: 'empty work ID', hint: 'every row needs the ID of the work it shows' }); continue; }
-    if (!imageId) { problems.add({ file, line: row.line, field: c.image, message: 'empty image ID', hint: 'every row is one photo and needs its ID' }); continue; }
-    const title = c.title ? row.get(c.title).trim() : '';
-    const date = c.date ? row.get(c.date).trim() : '';
-    if (date) {
-      const bad = checkCatalogueDate(date, partner.centuryConvention);
-      if (bad?.kind === 'impossible') problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
-      else if (bad && !workIndex.has(workId))
-        warnings.push({ file, line: row.line, field: c.date!, message: `date "${date}" is not a form concordat reads; it is published as catalogued and left out of date comparisons`, hint: bad.hint });
-    }
-    let w = workIndex.get(workId);
-    if (w === undefined) {
-      w = works.length;
-      works.push({ partner: partnerNo, id: workId, title, date, line: row.line, imageCount: 0 });
-      workIndex.set(workId, w);
-    } else {
-      const work = works[w];
-      if ((work.title !== title || work.date !== date) && !disagreeing.has(w)) {
-        disagreeing.add(w);
-        const field = work.title !== title ? c.title! : c.date!;
-        warnings.push({ file, line: row.line, field, message: `work "${workId}" has "${field === c.title ? title : date}" here but "${field === c.title ? work.title : work.date}" on line ${work.line}`, hint: 'the first row is kept; make the rows of one work agree' });
+  let size = 0;
+  try { size = statSync(file).size; } catch { /* a missing file is reported by the reader */ }
+  const bar = progress(`catalogue ${path.basename(file)}`, Math.round(size / 1048576), 'MiB');
+  const rows = readTable(file, delimiter, required, [], problems, `partner "${partner.key}"`, (b) => bar.update(Math.round(b / 1048576)));
+  try {
+    for await (const row of rows) {
+      const workId = row.get(c.work).trim();
+      const imageId = row.get(c.image).trim();
+      if (!workId) { problems.add({ file, line: row.line, field: c.work, message: 'empty work ID', hint: 'every row needs the ID of the work it shows' }); continue; }
+      if (!imageId) { problems.add({ file, line: row.line, field: c.image, message: 'empty image ID', hint: 'every row is one photo and needs its ID' }); continue; }
+      const title = c.title ? row.get(c.title).trim() : '';
+      const date = c.date ? row.get(c.date).trim() : '';
+      if (date) {
+        const bad = checkCatalogueDate(date, partner.centuryConvention);
+        if (bad?.kind === 'impossible') problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
+        else if (bad && !workIndex.has(workId))
+          warnings.push({ file, line: row.line, field: c.date!, message: `date "${date}" is not a form concordat reads; it is published as catalogued and left out of date comparisons`, hint: bad.hint });
       }
+      let w = workIndex.get(workId);
+      if (w === undefined) {
+        w = works.length;
+        works.push({ partner: partnerNo, id: workId, title, date, line: row.line, imageCount: 0 });
+        workIndex.set(workId, w);
+      } else {
+        const work = works[w];
+        if ((work.title !== title || work.date !== date) && !disagreeing.has(w)) {
+          disagreeing.add(w);
+          const field = work.title !== title ? c.title! : c.date!;
+          warnings.push({ file, line: row.line, field, message: `work "${workId}" has "${field === c.title ? title : date}" here but "${field === c.title ? work.title : work.date}" on line ${work.line}`, hint: 'the first row is kept; make the rows of one work agree' });
+        }
+      }
+      const seen = imageIndex.get(imageId);
+      if (seen !== undefined) {
+        const other = works[images.work.data[seen]];
+        if (other.id !== workId) problems.add({ file, line: row.line, field: c.image, message: `image "${imageId}" is under work "${workId}" here but under "${other.id}" on line ${images.line.data[seen]}`, hint: 'one photo can show only one catalogue record: fix the work ID' });
+        else warnings.push({ file, line: row.line, field: c.image, message: `image "${imageId}" is listed twice`, hint: `first on line ${images.line.data[seen]}; the repeat is ignored` });
+        continue;
+      }
+      if (c.width && c.height) {
+        const wpx = Number(row.get(c.width).trim());
+        const hpx = Number(row.get(c.height).trim());
+        const rawW = row.get(c.width).trim();
+        const rawH = row.get(c.height).trim();
+        for (const [col, raw, v] of [[c.width, rawW, wpx], [c.height, rawH, hpx]] as const)
+          if (raw !== '' && !(Number.isInteger(v) && v > 0)) problems.add({ file, line: row.line, field: col, message: `"${raw}" is not a positive whole number of pixels`, hint: 'leave it blank when unknown' });
+        if (rawW !== '' && rawH !== '' && Math.min(wpx, hpx) < MIN_IMAGE_SIDE && Math.min(wpx, hpx) > 0)
+          warnings.push({ file, line: row.line, field: `${c.width}/${c.height}`, message: `image "${imageId}" is ${wpx}×${hpx} px, under ${MIN_IMAGE_SIDE} px on its shorter side`, hint: 'matches on it are unreliable; a larger scan would help' });
+      }
+      const img = images.id.length;
+      images.id.push(imageId);
+      images.work.push(w);
+      images.line.push(row.line);
+      imageIndex.set(imageId, img);
+      works[w].imageCount++;
     }
-    const seen = imageIndex.get(imageId);
-    if (seen !== undefined) {
-      const other = works[images.work.data[seen]];
-      if (other.id !== workId) problems.add({ file, line: row.line, field: c.image, message: `image "${imageId}" is under work "${workId}" here but under "${other.id}" on line ${images.line.data[seen]}`, hint: 'one photo can show only one catalogue record: fix the work ID' });
-      else warnings.push({ file, line: row.line, field: c.image, message: `image "${imageId}" is listed twice`, hint: `first on line ${images.line.data[seen]}; the repeat is ignored` });
-      continue;
-    }
-    if (c.width && c.height) {
-      const wpx = Number(row.get(c.width).trim());
-      const hpx = Number(row.get(c.height).trim());
-      const rawW = row.get(c.width).trim();
-      const rawH = row.get(c.height).trim();
-      for (const [col, raw, v] of [[c.width, rawW, wpx], [c.height, rawH, hpx]] as const)
-        if (raw !== '' && !(Number.isInteger(v) && v > 0)) problems.add({ file, line: row.line, field: col, message: `"${raw}" is not a positive whole number of pixels`, hint: 'leave it blank when unknown' });
-      if (rawW !== '' && rawH !== '' && Math.min(wpx, hpx) < MIN_IMAGE_SIDE && Math.min(wpx, hpx) > 0)
-        warnings.push({ file, line: row.line, field: `${c.width}/${c.height}`, message: `image "${imageId}" is ${wpx}×${hpx} px, under ${MIN_IMAGE_SIDE} px on its shorter side`, hint: 'matches on it are unreliable; a larger scan would help' });
-    }
-    const img = images.id.length;
-    images.id.push(imageId);
-    images.work.push(w);
-    images.line.push(row.line);
-    imageIndex.set(imageId, img);
-    works[w].imageCount++;
+  } finally {
+    bar.stop();
   }
 }
