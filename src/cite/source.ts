@@ -5,6 +5,7 @@ import N3 from 'n3';
 import { readRdfFile } from '../rdf/read.js';
 import { readManifest } from '../store/folder.js';
 import { UserError } from '../errors.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
 
 export interface CiteSource {
   release?: string;
@@ -20,8 +21,8 @@ export async function readSource(src: CiteSource): Promise<N3.Store> {
     throw new UserError({ file: 'command line', line: 0, field: '--release', message: 'give exactly one of --release <folder> or --store <folder>', hint: 'e.g. --release releases/2026.1' });
   const store = new N3.Store();
   if (src.release) {
-    const file = path.join(src.release, 'concordance.nq');
-    if (!existsSync(file)) throw new UserError({ file, line: 0, field: '--release', message: 'not a release folder (no concordance.nq)', hint: 'name a folder written by concordat build' });
+    const file = path.join(src.release, RELEASE_FILES.nquads);
+    if (!existsSync(file)) throw new UserError({ file, line: 0, field: '--release', message: `not a release folder (no ${RELEASE_FILES.nquads})`, hint: 'name a folder written by concordat build' });
     store.addQuads(await readRdfFile(file));
     return store;
   }

@@ -3,6 +3,7 @@ import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import { streamRdfFile } from '../rdf/read.js';
 import { iri } from '../namespaces.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
 
 const DERIVED = iri('prov', 'wasDerivedFrom');
 
@@ -21,7 +22,7 @@ export async function readLinkEvidence(folder: string, links: Set<string>): Prom
   const matches = new Map<string, string[]>();
   const quads = new Map<string, Quad[]>();
   if (links.size === 0) return { matches, quads };
-  const file = path.join(folder, 'concordance.nq');
+  const file = path.join(folder, RELEASE_FILES.nquads);
   await streamRdfFile(file, (q) => {
     if (q.predicate.value !== DERIVED || !links.has(q.subject.value)) return;
     const list = matches.get(q.subject.value);

@@ -7,6 +7,7 @@ import { readClusterRegistry } from '../cluster/index.js';
 import { UserError } from '../errors.js';
 import { P, KIND_OF, STATUS_OF, refOfWorkIri } from './names.js';
 import type { LinkState, PreviousRelease, ReleaseSnapshot, WorkName } from './types.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
 
 const need = (folder: string, file: string, field: string): string => {
   const f = path.join(folder, file);
@@ -35,9 +36,9 @@ export function datasetIdentity(quads: Iterable<Quad>, file: string): { dataset:
  * the cluster registry from clusters.csv; the dataset IRI, version and date from dataset.ttl.
  */
 export async function readRelease(folder: string): Promise<PreviousRelease> {
-  const nq = need(folder, 'concordance.nq', 'previous');
-  const ds = need(folder, 'dataset.ttl', 'previous');
-  const csv = need(folder, 'clusters.csv', 'previous');
+  const nq = need(folder, RELEASE_FILES.nquads, 'previous');
+  const ds = need(folder, RELEASE_FILES.dataset, 'previous');
+  const csv = need(folder, RELEASE_FILES.clusters, 'previous');
   const dsQuads: Quad[] = [];
   await streamRdfFile(ds, (q) => dsQuads.push(q));
   const identity = datasetIdentity(dsQuads, ds);

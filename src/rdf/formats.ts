@@ -31,6 +31,9 @@ export const FORMATS: Readonly<Record<RdfFormat, FormatInfo>> = {
   nquads: row('application/n-quads', '.nq', 'N-Quads', true, false),
 };
 
+/** Files of a release folder that later stages and commands read back (written by src/publish and src/report). */
+export const RELEASE_FILES = { nquads: 'concordance.nq', dataset: 'dataset.ttl', clusters: 'clusters.csv' } as const;
+
 /** The prefixes every Turtle file concordat writes declares, in this fixed order. */
 export const PUBLISH_PREFIXES: readonly Prefix[] = [
   'rdf', 'rdfs', 'xsd', 'owl', 'skos', 'dcterms', 'prov', 'void', 'dcat', 'foaf', 'sh', 'cx',

@@ -10,12 +10,13 @@ import { workContext } from './context.js';
 import { reportData } from './data.js';
 import { reportMarkdown } from './markdown.js';
 import { writeConflicts, writeReviewQueue } from './csv-files.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
 
 export { CONFLICTS_HEADER, REVIEW_HEADER } from './csv-files.js';
 export { reportData, LIST_LIMIT, type ReportData } from './data.js';
 
 /** File names the report stage writes, in the order returned. */
-export const REPORT_FILES = ['report.md', 'report.json', 'conflicts.csv', 'review-queue.csv', 'clusters.csv'] as const;
+export const REPORT_FILES = ['report.md', 'report.json', 'conflicts.csv', 'review-queue.csv', RELEASE_FILES.clusters] as const;
 
 function writeText(file: string, text: string): string {
   writeFileSync(`${file}.tmp`, text, 'utf8');
@@ -36,6 +37,6 @@ export async function writeReports(dir: string, model: Model, linkSet: LinkSet, 
     writeText(at('report.json'), JSON.stringify(data, null, 2) + '\n'),
     await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx),
     await writeReviewQueue(at('review-queue.csv'), linkSet, analysis, ctx),
-    await writeClusterRegistry(at('clusters.csv'), model, clustering),
+    await writeClusterRegistry(at(RELEASE_FILES.clusters), model, clustering),
   ];
 }

@@ -6,6 +6,7 @@ import { UserError, EXIT } from '../errors.js';
 import { iri } from '../namespaces.js';
 import { dropGraphNames, scanTerms, splitByGraph } from './lines.js';
 import type { GraphLoad, GraphSource, Store } from './types.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
 
 /** One graph to load. */
 export interface PlannedGraph {
@@ -19,7 +20,7 @@ export interface ReleaseLoadOptions {
   partner?: string;
 }
 
-export const CONCORDANCE = 'concordance.nq';
+export const CONCORDANCE = RELEASE_FILES.nquads;
 const RELEASE_GRAPH = /^(.*)graph\/(claims|evidence|provenance|dataset)$/;
 const ISSUED = `<${iri('dcterms', 'issued')}>`;
 const PARTNER_KEY = /^[A-Za-z0-9][A-Za-z0-9_-]*$/;
