@@ -2,6 +2,7 @@
 import type { Model, Policy } from '../model.js';
 import type { Problem } from '../errors.js';
 import { refRank } from '../model.js';
+import { LinkColumns, type LinkValues } from './columns.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
 
 /**
@@ -40,45 +41,50 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
     hi[i] = ra < rb ? rb : ra;
   }
   const rows = countingSort(countingSort(identity(matches.count), hi, model.works.length), lo, model.works.length);
+  // group boundaries: rows[starts[g]] … rows[starts[g + 1] - 1] share one pair
+  const starts = new Int32Array(rows.length + 1);
+  let groups = 0;
+  for (let k = 0; k < rows.length; k++) {
+    if (k === 0 || lo[rows[k]] !== lo[rows[k - 1]] || hi[rows[k]] !== hi[rows[k - 1]]) starts[groups++] = k;
+  }
+  starts[groups] = rows.length;
+  const groupKey = (g: number) => pairKey(lo[rows[starts[g]]], hi[rows[starts[g]]]);
 
-  // decisions by pair (later rows win), merged into the walk over evidence groups in the same order
+  // decisions by pair (later rows win); pairs decided without evidence become links of their own, in the same order
   const decided = new Map<number, number>();
   model.decisions.forEach((d, i) => decided.set(pairKey(rank[d.a], rank[d.b]), i));
-  const decisionOnly = [...decided.keys()].sort((p, q) => p - q);
+  const evidenced = new Set<number>();
+  for (let g = 0; g < groups; g++) if (decided.has(groupKey(g))) evidenced.add(groupKey(g));
+  const decisionOnly = [...decided.keys()].filter((k) => !evidenced.has(k)).sort((p, q) => p - q);
 
+  const columns = new LinkColumns(groups + decisionOnly.length);
   const matchRows = new Int32Array(matches.count);
   let kept = 0;
+  let n = 0;
   const duplicates: { row: number; first: number }[] = [];
-  const links: Link[] = [];
   let d = 0;
   const emitDecisionOnly = (upTo: number) => {
     for (; d < decisionOnly.length && decisionOnly[d] < upTo; d++) {
-      if (decided.get(decisionOnly[d]) === -1) continue;
       const key = decisionOnly[d];
-      const [a, b] = [byRank[Math.floor(key / PAIR)], byRank[key % PAIR]];
-      links.push(makeLink(model, policy, a, b, matchRows, kept, 0, decided.get(key)));
+      columns.set(n++, makeLink(model, policy, byRank[Math.floor(key / PAIR)], byRank[key % PAIR], matchRows, kept, 0, decided.get(key)));
     }
   };
-  for (let start = 0; start < rows.length;) {
-    const first = rows[start];
-    let end = start + 1;
-    while (end < rows.length && lo[rows[end]] === lo[first] && hi[rows[end]] === hi[first]) end++;
-    const key = pairKey(lo[first], hi[first]);
+  for (let g = 0; g < groups; g++) {
+    const key = groupKey(g);
     emitDecisionOnly(key);
     const from = kept;
-    for (let k = start; k < end; k++) {
+    for (let k = starts[g]; k < starts[g + 1]; k++) {
       const i = rows[k];
       const repeat = findRepeat(model, matchRows, from, kept, i);
       if (repeat === -1) matchRows[kept++] = i;
       else duplicates.push({ row: i, first: repeat }); // one run reporting one image pair twice is one piece of evidence
     }
-    const decision = decided.get(key);
-    if (decision !== undefined) decided.set(key, -1);
-    links.push(makeLink(model, policy, byRank[lo[first]], byRank[hi[first]], matchRows, from, kept - from, decision));
-    start = end;
+    const first = rows[starts[g]];
+    columns.set(n++, makeLink(model, policy, byRank[lo[first]], byRank[hi[first]], matchRows, from, kept - from, decided.get(key)));
   }
   emitDecisionOnly(Infinity);
   duplicates.sort((p, q) => p.row - q.row);
+  const links = columns.records();
   return { links, byPair: new PairIndex(links), duplicates, matchRows: matchRows.slice(0, kept) };
 }
 
@@ -138,7 +144,7 @@ function findRepeat(model: Model, matchRows: Int32Array, from: number, to: numbe
 }
 
 /** One link from its evidence rows (matchRows[start, start + count)) and the deciding row, if any. */
-function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined): Link {
+function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined): LinkValues {
   const { matches, images } = model;
   let best = 0, sum = 0, reliable = 0, maxOverlap = 0;
   const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
@@ -180,19 +186,10 @@ function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows:
     maxOverlap,
     coverageA: imgsA.size / model.works[a].imageCount,
     coverageB: imgsB.size / model.works[b].imageCount,
-    runs: internRuns([...runs].sort((p, q) => p - q)),
+    runs: [...runs].sort((p, q) => p - q),
     decision,
     matchStart: start,
   };
-}
-
-const runLists = new Map<string, readonly number[]>();
-/** One shared, frozen array per distinct run list (most links share one or two lists). */
-function internRuns(runs: number[]): number[] {
-  const key = runs.join(',');
-  let shared = runLists.get(key);
-  if (!shared) runLists.set(key, (shared = Object.freeze(runs)));
-  return shared as number[];
 }
 
 /** The evidence rows behind a link, in input order (a view into the set's shared array). */

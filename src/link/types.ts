@@ -4,32 +4,33 @@ export type LinkKind = 'same' | 'part' | 'related';
 /** `candidate`: evidence below the proposal threshold (or only unreliable partial matches); never published as a claim. */
 export type LinkStatus = 'confirmed' | 'proposed' | 'rejected' | 'candidate';
 
+/** One work-to-work link (read only: stored column by column, see columns.ts). */
 export interface Link {
   /** Work numbers, ordered so that ref(a) < ref(b) (`partnerKey:workId`, code-point order): stable across releases. */
-  a: number;
-  b: number;
-  kind: LinkKind;
-  status: LinkStatus;
+  readonly a: number;
+  readonly b: number;
+  readonly kind: LinkKind;
+  readonly status: LinkStatus;
   /** For kind `part`: the work that is the detail (part of the other). */
-  part?: number;
+  readonly part?: number;
   /** Image pairs behind the link (all of them, reliable or not). */
-  support: number;
+  readonly support: number;
   /** Image pairs whose overlap reaches `minOverlap`: only these can propose. */
-  reliableSupport: number;
+  readonly reliableSupport: number;
   /** Best and mean score over reliable matches (0 when none). */
-  best: number;
-  mean: number;
+  readonly best: number;
+  readonly mean: number;
   /** Largest overlap among reliable matches (decides same vs part). */
-  maxOverlap: number;
+  readonly maxOverlap: number;
   /** Share of each work's images that appear in the link's matches. */
-  coverageA: number;
-  coverageB: number;
+  readonly coverageA: number;
+  readonly coverageB: number;
   /** Run numbers (Model.runs) with at least one match behind the link, ascending (shared between links: read only). */
-  runs: number[];
+  readonly runs: number[];
   /** Index into Model.decisions of the deciding row (the latest for the pair), when a curator decided. */
-  decision?: number;
+  readonly decision?: number;
   /** Where the link's evidence rows start in LinkSet.matchRows (`support` rows from there; see matchesOf). */
-  matchStart: number;
+  readonly matchStart: number;
 }
 
 export interface LinkSet {
