@@ -101,7 +101,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     }
     await writeReports(dir, model, links, clustering, analysis);
     await writeChanges(dir, history);
-    await writeChecksums(dir);
+    await writeChecksums(dir, publish.hashes);
     return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, publish, changes: history.changes };
   });
 }

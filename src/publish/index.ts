@@ -32,6 +32,8 @@ export interface PublishResult {
   /** Claim triples per predicate IRI. */
   claims: Record<string, number>;
   validation: ValidationOutcome;
+  /** SHA-256 (hex) of the RDF files written, by path relative to the release folder (for {@link writeChecksums}). */
+  hashes: Map<string, string>;
 }
 
 /**
@@ -66,15 +68,19 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
     yield ds.quads;
   }
   let validation: ValidationOutcome;
+  let hashes: Map<string, string>;
   try {
     if (opts.validate === false) {
       for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
       validation = outcomeOf([]);
     } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes' });
+    hashes = await writer.close();
+  } catch (e) {
+    await writer.abort();
+    throw e;
   } finally {
     bar.stop();
   }
-  await writer.close();
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
   if (opts.validate !== false) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
   const claims: Record<string, number> = {};
@@ -82,7 +88,7 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
     const p = key.split('|')[2];
     claims[p] = (claims[p] ?? 0) + n;
   }
-  return { triples: writer.triples, claims, validation };
+  return { triples: writer.triples, claims, validation, hashes };
 }
 
 async function sha256(file: string): Promise<string> {
@@ -91,14 +97,17 @@ async function sha256(file: string): Promise<string> {
   return h.digest('hex');
 }
 
-/** Writes SHA256SUMS (the `sha256sum` text format: hash, two spaces, path) over every file of the folder, sorted. */
-export async function writeChecksums(dir: string): Promise<void> {
+/**
+ * Writes SHA256SUMS (the `sha256sum` text format: hash, two spaces, path) over every file of the folder, sorted.
+ * `known` gives hashes already taken while writing (path relative to the folder → hex); other files are read.
+ */
+export async function writeChecksums(dir: string, known: ReadonlyMap<string, string> = new Map()): Promise<void> {
   const files = (await readdir(dir, { recursive: true, withFileTypes: true }))
     .filter((d) => d.isFile())
     .map((d) => path.relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name)).split(path.sep).join('/'))
     .filter((f) => f !== 'SHA256SUMS')
     .sort();
   const lines: string[] = [];
-  for (const f of files) lines.push(`${await sha256(path.join(dir, f))}  ${f}`);
+  for (const f of files) lines.push(`${known.get(f) ?? (await sha256(path.join(dir, f)))}  ${f}`);
   await writeFile(path.join(dir, 'SHA256SUMS'), lines.join('\n') + '\n');
 }

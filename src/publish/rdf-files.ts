@@ -1,6 +1,6 @@
 // Units of quads → the release's RDF files (whole and per partner, Turtle / N-Quads / JSON-LD) and SHACL chunks.
-import { createWriteStream, mkdirSync, type WriteStream } from 'node:fs';
-import { once } from 'node:events';
+import { mkdirSync } from 'node:fs';
+import { Worker } from 'node:worker_threads';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
@@ -8,97 +8,120 @@ import { prefixMap } from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
 import type { ValidationChunk } from '../validate/chunked.js';
 import { JsonLdFile, unitNodes } from './jsonld.js';
+import type { FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
 
-/** A buffered output file: byte runs gathered to ~1 MiB, then handed to the stream; `drain()` gives back-pressure. */
-class OutFile {
-  private out: WriteStream;
-  private parts: Buffer[] = [];
-  private size = 0;
-  constructor(file: string) {
-    this.out = createWriteStream(file);
-  }
-  write(b: Buffer): void {
-    if (b.length === 0) return;
-    this.parts.push(b);
-    this.size += b.length;
-    if (this.size > 1 << 20) this.flush();
-  }
-  text(s: string): void {
-    this.write(Buffer.from(s, 'utf8'));
-  }
-  private flush() {
-    if (this.parts.length) this.out.write(this.parts.length === 1 ? this.parts[0] : Buffer.concat(this.parts, this.size));
-    this.parts = [];
-    this.size = 0;
-  }
-  async drain() {
-    if (this.out.writableNeedDrain) await once(this.out, 'drain');
-  }
-  async end() {
-    this.flush();
-    this.out.end();
-    await once(this.out, 'close');
-  }
-}
-
-interface Target {
-  ttl: OutFile;
-  nq: OutFile;
-  json: OutFile;
-  /** No JSON-LD node written yet (no separator before the next run). */
-  jsonFirst: boolean;
-}
-
-function openTarget(dir: string, stem: string, prefixes: Record<string, string>): Target {
-  const t: Target = { ttl: new OutFile(path.join(dir, `${stem}.ttl`)), nq: new OutFile(path.join(dir, `${stem}.nq`)), json: new OutFile(path.join(dir, `${stem}.jsonld`)), jsonFirst: true };
-  t.ttl.text(turtlePrefixes(prefixes));
-  t.json.text(JsonLdFile.head);
-  return t;
-}
-
-async function closeTarget(t: Target): Promise<void> {
-  t.json.text(JsonLdFile.tail);
-  await Promise.all([t.ttl.end(), t.nq.end(), t.json.end()]);
-}
-
-const SEPARATOR = Buffer.from(',\n');
+/** Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight). */
+const SLAB = 8 << 20;
+const SLABS = 4;
 
 /**
  * The release's RDF writers: `concordance.*` and `partners/<key>.*`. Each unit is turned into Turtle, N-Quads and
- * JSON-LD bytes once, and those bytes go to the whole release and to the slice of every partner the unit touches.
+ * JSON-LD text once on this thread and its UTF-8 bytes put into a shared block; a worker thread (file-worker.ts)
+ * copies them to the whole release and to the slice of every partner the unit touches, hashing each file as it goes.
  */
 export class ReleaseWriter {
-  private whole: Target;
-  private partners: Target[];
   private turtle: TurtleEncoder;
+  private worker: Worker;
+  private slabs: Buffer[];
+  private free: number[];
+  /** The block being filled (-1: none), its write position and its unit records. */
+  private cur = -1;
+  private pos = 0;
+  private records: SlabRecords = [];
+  private inFlight = 0;
+  private failure: Error | null = null;
+  private waiting: (() => void) | null = null;
+  private hashes: Map<string, string> | undefined;
+  private readonly all: number[];
   triples = 0;
   constructor(dir: string, partnerKeys: string[], prefixes: Record<string, string> = prefixMap()) {
     mkdirSync(path.join(dir, 'partners'), { recursive: true });
     this.turtle = new TurtleEncoder(prefixes);
-    this.whole = openTarget(dir, 'concordance', prefixes);
-    this.partners = partnerKeys.map((k) => openTarget(path.join(dir, 'partners'), k, prefixes));
+    const stems = ['concordance', ...partnerKeys.map((k) => `partners/${k}`)];
+    const shared = Array.from({ length: SLABS }, () => new SharedArrayBuffer(SLAB));
+    this.slabs = shared.map((s) => Buffer.from(s));
+    this.free = shared.map((_, i) => i);
+    const init: FileWorkerInit = {
+      targets: stems.map((s) => [s, path.join(dir, ...s.split('/'))]),
+      ttlHead: turtlePrefixes(prefixes), jsonHead: JsonLdFile.head, jsonTail: JsonLdFile.tail, slabs: shared,
+    };
+    this.all = stems.map((_, i) => i);
+    this.worker = new Worker(new URL('./file-worker.js', import.meta.url), { workerData: init });
+    this.worker.on('message', (r: FileWorkerReply) => {
+      if ('ack' in r) {
+        this.inFlight--;
+        if (r.slab !== undefined) this.free.push(r.slab);
+      } else if ('hashes' in r) this.hashes = new Map(r.hashes);
+      else this.fail(new Error(`writing the release files: ${r.error}`));
+      this.wake();
+    });
+    this.worker.on('error', (e) => this.fail(e));
+    this.worker.on('exit', (code) => this.fail(new Error(`release file writer stopped (exit code ${code})`)));
+  }
+  private fail(e: Error) {
+    this.failure ??= e;
+    this.wake();
+  }
+  private wake() {
+    const w = this.waiting;
+    this.waiting = null;
+    w?.();
+  }
+  private async settle(until: () => boolean): Promise<void> {
+    while (!this.failure && !until()) await new Promise<void>((r) => (this.waiting = r));
+    if (this.failure) throw this.failure;
+  }
+  private send(m: FileWorkerMessage) {
+    this.worker.postMessage(m);
+    this.inFlight++;
+  }
+  /** Hands the block being filled to the worker. */
+  private post() {
+    if (this.cur < 0) return;
+    this.send({ slab: this.cur, records: this.records });
+    this.cur = -1;
+    this.pos = 0;
+    this.records = [];
   }
   async add(unit: Unit): Promise<void> {
     const nodes = await unitNodes(unit);
     this.triples += unit.quads.length;
-    const ttl = Buffer.from(this.turtle.encode(unit.quads), 'utf8');
-    const nq = Buffer.from(nquadsText(unit.quads), 'utf8');
-    const json = nodes.length ? Buffer.from(JsonLdFile.text(nodes), 'utf8') : null;
-    const targets = [this.whole, ...(unit.partners === 'all' ? this.partners : [...unit.partners].sort((a, b) => a - b).map((p) => this.partners[p]))];
-    for (const t of targets) {
-      t.ttl.write(ttl);
-      t.nq.write(nq);
-      if (json) {
-        if (!t.jsonFirst) t.json.write(SEPARATOR);
-        t.jsonFirst = false;
-        t.json.write(json);
-      }
+    const ttl = this.turtle.encode(unit.quads);
+    const nq = nquadsText(unit.quads);
+    const json = nodes.length ? JsonLdFile.text(nodes) : null;
+    const to = unit.partners === 'all' ? this.all : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
+    // at most 3 UTF-8 bytes per UTF-16 code unit
+    const bound = 3 * (ttl.length + nq.length + (json?.length ?? 0));
+    if (this.pos + bound > SLAB) this.post();
+    if (bound > SLAB) {
+      this.send({ units: [[ttl, nq, json, to]] });
+      return this.settle(() => this.inFlight < SLABS);
     }
-    await this.whole.nq.drain();
+    if (this.cur < 0) {
+      await this.settle(() => this.free.length > 0);
+      this.cur = this.free.shift()!;
+    }
+    const b = this.slabs[this.cur];
+    const start = this.pos;
+    const lt = b.write(ttl, this.pos);
+    const ln = b.write(nq, start + lt);
+    const lj = json === null ? -1 : b.write(json, start + lt + ln);
+    this.pos = start + lt + ln + Math.max(lj, 0);
+    this.records.push(lt, ln, lj, to.length, ...to);
   }
-  async close(): Promise<void> {
-    await closeTarget(this.whole);
-    for (const t of this.partners) await closeTarget(t);
+  /** Writes what is left, closes every file and returns their SHA-256 hashes (path relative to the release → hex). */
+  async close(): Promise<Map<string, string>> {
+    this.post();
+    await this.settle(() => this.inFlight === 0);
+    this.worker.postMessage({ end: true } satisfies FileWorkerMessage);
+    await this.settle(() => this.hashes !== undefined);
+    await this.abort();
+    return this.hashes!;
+  }
+  /** Stops the worker (files are left as they are; the release folder is temporary until the build succeeds). */
+  async abort(): Promise<void> {
+    this.worker.removeAllListeners('exit');
+    await this.worker.terminate();
   }
 }
 
