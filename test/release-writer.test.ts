@@ -2,14 +2,14 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { createHash } from 'node:crypto';
-import { mkdtempSync, readFileSync, rmSync } from 'node:fs';
-import os from 'node:os';
+import { readFileSync, rmSync } from 'node:fs';
 import path from 'node:path';
 import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
 import { ReleaseWriter } from '../src/publish/rdf-files.js';
 import { nquadsText } from '../src/rdf/text.js';
 import type { Unit } from '../src/rdf/index.js';
+import { tempDir } from './helpers/fixture.js';
 
 const { namedNode, literal, quad } = N3.DataFactory;
 const G = namedNode('https://example.org/graph/claims');
@@ -24,7 +24,7 @@ function unit(id: string, n: number, partners: Set<number> | 'all', title = 'Tä
 const sha = (file: string) => createHash('sha256').update(readFileSync(file)).digest('hex');
 
 test('every file gets its units in order, and the hashes returned are those of the bytes on disk', async () => {
-  const dir = mkdtempSync(path.join(os.tmpdir(), 'concordat-writer-'));
+  const dir = tempDir('concordat-writer-');
   try {
     // 40 000 quads of ~80 characters: over the shared block's size, so this unit takes the direct path between two block runs
     const units = [unit('a', 3, new Set([1])), unit('b', 2, new Set([0, 1])), unit('big', 40_000, new Set([0])), unit('c', 1, 'all'), unit('d', 4, new Set([1]))];
