@@ -94,7 +94,7 @@ export const isPublished = (l: Link) => l.status !== 'candidate';
 export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts): Generator<Unit> {
   const { model, links } = view;
   const described = new Uint8Array(model.works.length);
-  const matchDone = new Set<string>();
+  const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
 
   yield provenanceUnit(view, namer);
 
@@ -155,7 +155,23 @@ function describeWork(w: number, described: Uint8Array, emit: ReturnType<typeof 
   emit(s, term('cx', 'partner'), str(model.project.partners[work.partner].key));
 }
 
-function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string>, counts: LinksetCounts): void {
+/**
+ * Can two evidence rows of published links name the same image match? Only when two images share an IRI or two runs
+ * an ID: link() already counts a run's repeated image pair once, and every row belongs to exactly one link. When they
+ * cannot, the release needs no set of every match IRI written so far (millions of strings at the largest scales).
+ */
+function matchIrisCanRepeat(model: Model, namer: Namer): boolean {
+  if (new Set(model.runs.map((r) => r.id)).size !== model.runs.length) return true;
+  const seen = new Set<string>();
+  for (let img = 0; img < model.images.count; img++) {
+    const iri = namer.imageIri(img);
+    if (seen.has(iri)) return true;
+    seen.add(iri);
+  }
+  return false;
+}
+
+function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string> | null, counts: LinksetCounts): void {
   const { model } = view;
   const claims = inGraph(namer.graph('claims'), quads);
   const prov = inGraph(namer.graph('provenance'), quads);
@@ -193,8 +209,10 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
     const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
     const id = namer.matchIri(r, ra, rb);
     prov(L, term('prov', 'wasDerivedFrom'), nn(id));
-    if (matchDone.has(id)) continue; // the same image pair reported twice by one run
-    matchDone.add(id);
+    if (matchDone) {
+      if (matchDone.has(id)) continue; // the same image match named by two rows (see matchIrisCanRepeat)
+      matchDone.add(id);
+    }
     const M = nn(id);
     ev(M, a, T.ImageMatch);
     ev(M, a, T.Entity);
