@@ -1,6 +1,7 @@
 // The whole flow, top to bottom: load → link → cluster → analyse → rdf → validate → publish.
 import path from 'node:path';
 import { existsSync } from 'node:fs';
+import v8 from 'node:v8';
 import type { Quad } from '@rdfjs/types';
 import { load, type LoadStats } from './load/index.js';
 import { link } from './link/index.js';
@@ -71,6 +72,16 @@ export function clusterViews(clustering: Clustering, analysis?: Analysis): Clust
 }
 
 /**
+ * Turns off V8's allocation-site pretenuring before the release is written. The RDF stage makes a few hundred short-lived
+ * objects per unit at the same allocation sites; a young-generation GC that lands mid-unit finds them all alive, so V8
+ * starts allocating them straight into the old generation, which then grows by ~1 GiB per 100k works of garbage
+ * between full GCs (peak RSS 1.5 GiB instead of 0.7 GiB at 100k works). A GC policy only: output is unaffected.
+ */
+function releaseGcPolicy(): void {
+  v8.setFlagsFromString('--no-allocation-site-pretenuring');
+}
+
+/**
  * Builds a release into `outDir` (design, "Outputs"): written into a temporary folder and renamed at the end;
  * any sh:Violation fails the build with exit 1 and nothing is published.
  */
@@ -91,6 +102,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const previousVersion = previous?.snapshot.dataset;
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
+    releaseGcPolicy();
     const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate });
     if (!publish.validation.conforms) {
       const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
