@@ -50,17 +50,19 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const stray = view.links.links.filter((l, i) => isPublished(l) && !inClusters.has(i)).length;
   const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
   let done = 0;
+  /** Validation chunks are only built when SHACL runs. */
+  const validating = opts.validate !== false;
   async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
     for (const unit of releaseUnits(view, namer, counts)) {
       bar.update(++done);
-      if (unit.kind === 'provenance') typeIndex = typeIndexOf(unit);
+      if (unit.kind === 'provenance' && validating) typeIndex = typeIndexOf(unit);
       await writer.add(unit);
-      yield chunkOf(unit, typeIndex);
+      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
     }
     for (const unit of opts.extraUnits ?? []) {
       bar.update(++done);
       await writer.add(unit);
-      yield chunkOf(unit, typeIndex);
+      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
     }
     const ds = datasetUnit(view.model, namer, counts, opts.previousVersion);
     datasetQuads = ds.quads;
