@@ -18,12 +18,15 @@ import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';
 import { Namer } from './rdf/index.js';
 import { readRelease, releaseHistory, writeChanges, type Changes } from './history/index.js';
+import type { ShaclEngine } from './validate/shacl.js';
 
 export interface BuildOptions {
   shapesDir?: string;
   workers?: number;
   /** Quads per SHACL batch (smaller = flatter memory; default 20 000). */
   validationBatch?: number;
+  /** SHACL engine (default: the built-in core engine). */
+  shaclEngine?: ShaclEngine;
   /** Run SHACL over the release (default true); false skips it and writes no validation.ttl (for timing the rest). */
   validate?: boolean;
   /** Progress lines (stage names) for a terminal; silent when undefined. */
@@ -103,7 +106,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
     releaseGcPolicy();
-    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate });
+    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate, shaclEngine: opts.shaclEngine });
     if (!publish.validation.conforms) {
       const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(

@@ -32,3 +32,12 @@ test('a violation inside one unit is still found when batches are small', async 
   assert.equal(err.exitCode, 1);
   assert.match(err.message, /test: a note is required/);
 });
+
+test('build with --shacl-engine rdf-validate-shacl publishes the same validation report as the built-in engine', async () => {
+  const dir = tempDir('concordat-batches-');
+  await build(project, path.join(dir, 'builtin'), { validationBatch: 2000, workers: 2 });
+  await build(project, path.join(dir, 'reference'), { validationBatch: 2000, workers: 2, shaclEngine: 'rdf-validate-shacl' });
+  const report = (name: string) => readFileSync(path.join(dir, name, 'validation.ttl'), 'utf8');
+  assert.equal(report('reference'), report('builtin'));
+  assert.match(report('builtin'), /sh:conforms/);
+});

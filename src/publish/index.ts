@@ -10,7 +10,7 @@ import { datasetUnit } from '../rdf/dataset.js';
 import type { ReleaseView } from '../rdf/view.js';
 import { writeQuads } from '../rdf/serialize.js';
 import { validateChunks, writeValidationReport, type ValidationChunk } from '../validate/chunked.js';
-import type { ValidationOutcome } from '../validate/shacl.js';
+import type { ShaclEngine, ValidationOutcome } from '../validate/shacl.js';
 import { outcomeOf } from '../validate/report.js';
 import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
 
@@ -23,6 +23,8 @@ export interface PublishOptions {
   workers?: number;
   /** Quads per SHACL batch (default: validateChunks' own). */
   validationBatch?: number;
+  /** SHACL engine (default: the built-in core engine). */
+  shaclEngine?: ShaclEngine;
   /** Run SHACL (default true); false writes everything except validation.ttl and reports an empty outcome. */
   validate?: boolean;
 }
@@ -75,7 +77,7 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
     if (opts.validate === false) {
       for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
       validation = outcomeOf([]);
-    } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes' });
+    } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
     hashes = await writer.close();
   } catch (e) {
     await writer.abort();
