@@ -52,7 +52,8 @@ export interface ProjectConfig {
   policy: Policy;
   previous?: string;
   vocabMap?: string;
-  release: { version: string; issued?: string };
+  /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
+  release: { version: string; issued?: string; partnerDumps?: boolean };
   description?: string;
 }
 

@@ -74,8 +74,13 @@ export const ProjectSchema = z.strictObject({
   previous: nonEmpty.optional(),
   vocabMap: nonEmpty.optional(),
   release: z
-    .strictObject({ version: nonEmpty, issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional() })
-    .default({ version: '0' }),
+    .strictObject({
+      version: nonEmpty,
+      issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional(),
+      /** Write partners/<key>.{ttl,nq,jsonld} (default true). Each slice repeats the clusters its partner takes part in. */
+      partnerDumps: z.boolean().default(true),
+    })
+    .default({ version: '0', partnerDumps: true }),
 });
 
 /** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */

@@ -45,7 +45,7 @@ export interface PublishResult {
 export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOptions): Promise<PublishResult> {
   const namer = new Namer(view.model, view.vocab.iris);
   const counts: LinksetCounts = new Map();
-  const writer = new ReleaseWriter(dir, view.model.project.partners.map((p) => p.key));
+  const writer = new ReleaseWriter(dir, view.model.project.release.partnerDumps === false ? null : view.model.project.partners.map((p) => p.key));
   let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
   const inClusters = new Set(view.clusters.flatMap((c) => c.links));

@@ -34,10 +34,14 @@ export class ReleaseWriter {
   private hashes: Map<string, string> | undefined;
   private readonly all: number[];
   triples = 0;
-  constructor(dir: string, partnerKeys: string[], prefixes: Record<string, string> = prefixMap()) {
-    mkdirSync(path.join(dir, 'partners'), { recursive: true });
+  /** Whether units are also copied to per-partner slices. */
+  private readonly slices: boolean;
+  /** `partnerKeys` null: only the whole release is written (project setting release.partnerDumps false). */
+  constructor(dir: string, partnerKeys: string[] | null, prefixes: Record<string, string> = prefixMap()) {
+    this.slices = partnerKeys !== null;
+    if (partnerKeys) mkdirSync(path.join(dir, 'partners'), { recursive: true });
     this.turtle = new TurtleEncoder(prefixes);
-    const stems = ['concordance', ...partnerKeys.map((k) => `partners/${k}`)];
+    const stems = ['concordance', ...(partnerKeys ?? []).map((k) => `partners/${k}`)];
     const shared = Array.from({ length: SLABS }, () => new SharedArrayBuffer(SLAB));
     this.slabs = shared.map((s) => Buffer.from(s));
     this.free = shared.map((_, i) => i);
@@ -89,7 +93,7 @@ export class ReleaseWriter {
     const ttl = this.turtle.encode(unit.quads);
     const nq = nquadsText(unit.quads);
     const json = nodes.length ? JsonLdFile.text(nodes) : null;
-    const to = unit.partners === 'all' ? this.all : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
+    const to = unit.partners === 'all' || !this.slices ? this.all : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
     // at most 3 UTF-8 bytes per UTF-16 code unit
     const bound = 3 * (ttl.length + nq.length + (json?.length ?? 0));
     if (this.pos + bound > SLAB) this.post();

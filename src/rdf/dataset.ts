@@ -21,7 +21,7 @@ export function distributionFiles(model: Model): DistributionFile[] {
   const rdf: [string, RdfFormat | 'jsonld'][] = [['ttl', 'turtle'], ['nq', 'nquads'], ['jsonld', 'jsonld']];
   const media = (f: RdfFormat | 'jsonld') => (f === 'jsonld' ? JSONLD_MEDIA : FORMATS[f].mediaTypeIri);
   for (const [ext, f] of rdf) files.push({ file: `concordance.${ext}`, mediaTypeIri: media(f), title: `Whole concordance (${ext})` });
-  for (const p of model.project.partners)
+  if (model.project.release.partnerDumps !== false) for (const p of model.project.partners)
     for (const [ext, f] of rdf) files.push({ file: `partners/${p.key}.${ext}`, mediaTypeIri: media(f), title: `Slice for ${p.name} (${ext})` });
   return files;
 }
