@@ -9,6 +9,8 @@ export interface GenerateOptions {
   /** Partner archives, 3–25. */
   partners: number;
   seed: number;
+  /** Write per-partner slices when built (the project's release.partnerDumps; default true). */
+  partnerDumps?: boolean;
 }
 
 export interface GenerateSummary {
@@ -207,6 +209,7 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
     decisions: ['decisions/curators.csv'],
     gold: 'gold/gold.csv',
     policy: { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 },
+    ...(opts.partnerDumps === false ? { release: { version: '0', partnerDumps: false } } : {}),
   };
   const projectFile = path.join(dir, 'concordance.json');
   writeFileSync(projectFile, JSON.stringify(project, null, 2) + '\n');

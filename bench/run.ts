@@ -48,23 +48,23 @@ const s = (ms: number) => (ms / 1000).toFixed(1) + ' s';
 const mib = (kib: number) => (kib / 1024).toFixed(0) + ' MiB';
 const rate = (n: number, ms: number) => Math.round(n / (ms / 1000)).toLocaleString('en') + '/s';
 
-function parseArgs(argv: string[]): { scales: number[]; whole: boolean; keep: boolean } {
+function parseArgs(argv: string[]): { scales: number[]; whole: boolean; keep: boolean; partnerDumps: boolean } {
   // 16,500 works give a release of about 1M triples: the scale at which the SHACL target is compared with
   // rdf-validate-shacl over the whole graph (which needs ~2–3 GB per 1M triples and cannot take the larger releases)
   let scales = [10_000, 16_500, 100_000];
   const i = argv.indexOf('--scales');
   if (i >= 0) scales = argv[i + 1].split(',').map(Number);
   if (argv.includes('--with-1m') && !scales.includes(1_000_000)) scales.push(1_000_000);
-  return { scales, whole: !argv.includes('--no-whole'), keep: argv.includes('--keep') };
+  return { scales, whole: !argv.includes('--no-whole'), keep: argv.includes('--keep'), partnerDumps: !argv.includes('--no-partner-dumps') };
 }
 
 /** Benchmarks one scale and prints its figures; returns the build time without validation. */
-async function benchScale(works: number, whole: boolean, keep: boolean): Promise<number> {
+async function benchScale(works: number, whole: boolean, keep: boolean, partnerDumps: boolean): Promise<number> {
   const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
   const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
   console.log(`\n== ${works.toLocaleString('en')} works (${dir})`);
   const tg = performance.now();
-  const gen = await generateProject(path.join(dir, 'project'), { works, partners: Math.min(25, 3 + Math.floor(Math.log10(works) * 2)), seed: 20261004 });
+  const gen = await generateProject(path.join(dir, 'project'), { works, partners: Math.min(25, 3 + Math.floor(Math.log10(works) * 2)), seed: 20261004, partnerDumps });
   say('generate', `${s(performance.now() - tg)}: ${gen.images} images, ${gen.evidenceRows} evidence rows, ${gen.decisions} decisions`);
 
   const nv = child('build', [gen.projectFile, path.join(dir, 'release-nv'), '0']);
@@ -73,6 +73,20 @@ async function benchScale(works: number, whole: boolean, keep: boolean): Promise
   say('build without SHACL: time / peak RSS', `${s(ms)} (process ${s(nv.wallMs)}, CPU ${s(nv.cpuMs)}) / ${mib(nv.peakKiB)}`);
   say('  evidence rows/s, output triples/s', `${rate(evidenceRows, ms)}, ${rate(triples, ms)} (${triples} triples)`);
 
+  const nvNq = path.join(dir, 'release-nv', 'concordance.nq');
+  const du = spawnSync('du', ['-sb', path.join(dir, 'release-nv')], { encoding: 'utf8' });
+  say('concordance.nq size · whole release folder', `${(statSync(nvNq).size / 2 ** 20).toFixed(0)} MiB · ${(Number(du.stdout.split('\t')[0]) / 2 ** 30).toFixed(2)} GiB`);
+  const cat = timed('cat', [nvNq]);
+  say('cat > /dev/null (floor)', `${s(cat.ms)} (CPU ${s(cat.cpuMs)})`);
+  if (has('serdi')) {
+    const sd = timed('serdi', ['-i', 'nquads', '-o', 'turtle', nvNq]);
+    say('serdi -i nquads -o turtle > /dev/null', `${s(sd.ms)} (CPU ${s(sd.cpuMs)})${sd.ok ? '' : ' (serdi reported an error)'}, ${rate(triples, sd.ms)}`);
+    say('RATIO build(no SHACL) / serdi', `${(ms / sd.ms).toFixed(1)}× wall, ${(nv.cpuMs / sd.cpuMs).toFixed(1)}× CPU  (target at 1M works: ≤ 3×)`);
+  } else say('serdi', 'absent: skipped (apt-get install -y serdi)');
+
+  // the release without SHACL is no longer needed: freed before the next build (a 1M-work release is tens of GB)
+  if (!keep) rmSync(path.join(dir, 'release-nv'), { recursive: true, force: true });
+
   const full = child('build', [gen.projectFile, path.join(dir, 'release'), '1']);
   const fullMs = full.out?.ms ?? full.wallMs;
   const verdict = !full.out ? `  FAILED: ${full.error}` : full.out.nonConforming ? '  (release does not conform: SHACL violations)' : '';
@@ -80,15 +94,7 @@ async function benchScale(works: number, whole: boolean, keep: boolean): Promise
   const chunkedMs = fullMs - ms;
   say('  chunked SHACL share (with − without)', `${s(chunkedMs)}, ${rate(triples, chunkedMs)}`);
 
-  const nq = path.join(dir, 'release-nv', 'concordance.nq');
-  say('concordance.nq size', `${(statSync(nq).size / 2 ** 20).toFixed(0)} MiB`);
-  const cat = timed('cat', [nq]);
-  say('cat > /dev/null (floor)', `${s(cat.ms)} (CPU ${s(cat.cpuMs)})`);
-  if (has('serdi')) {
-    const sd = timed('serdi', ['-i', 'nquads', '-o', 'turtle', nq]);
-    say('serdi -i nquads -o turtle > /dev/null', `${s(sd.ms)} (CPU ${s(sd.cpuMs)})${sd.ok ? '' : ' (serdi reported an error)'}, ${rate(triples, sd.ms)}`);
-    say('RATIO build(no SHACL) / serdi', `${(ms / sd.ms).toFixed(1)}× wall, ${(nv.cpuMs / sd.cpuMs).toFixed(1)}× CPU  (target at 1M works: ≤ 3×)`);
-  } else say('serdi', 'absent: skipped (apt-get install -y serdi)');
+  const nq = path.join(dir, 'release', 'concordance.nq');
 
   if (whole) {
     const w = child('whole', [nq, 'rdf-validate-shacl']);
@@ -110,9 +116,10 @@ async function benchScale(works: number, whole: boolean, keep: boolean): Promise
 /** Largest scale whose whole graph is validated at once for the reference (≈ 1.2M triples). */
 const WHOLE_GRAPH_MAX_WORKS = 20_000;
 
-const { scales, whole, keep } = parseArgs(process.argv.slice(2));
+const { scales, whole, keep, partnerDumps } = parseArgs(process.argv.slice(2));
 console.log(`concordat bench: ${os.cpus().length} CPUs (${os.cpus()[0]?.model ?? '?'}), ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, node ${process.version}, load average ${os.loadavg()[0].toFixed(1)} at start`);
 const times = new Map<number, number>();
-for (const n of scales) times.set(n, await benchScale(n, whole && n <= WHOLE_GRAPH_MAX_WORKS, keep));
+if (!partnerDumps) console.log('per-partner slices off at every scale (--no-partner-dumps): only the whole dumps are written');
+for (const n of scales) times.set(n, await benchScale(n, whole && n <= WHOLE_GRAPH_MAX_WORKS, keep, partnerDumps));
 if (times.has(100_000) && times.has(1_000_000))
   console.log(`\nRATIO time 100k → 1M works: ${(times.get(1_000_000)! / times.get(100_000)!).toFixed(1)}×  (target: ≤ 11×)`);
