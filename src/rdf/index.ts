@@ -53,7 +53,7 @@ export class Namer {
     this.page = ps.map((p) => (p.recordPage ? compileTemplate(p.recordPage, 'work') : undefined));
   }
   iri(pattern: string, vars: Record<string, string> = {}): string {
-    return fill(this.patterns[pattern], { base: this.base, ...vars });
+    return fill(this.patterns[pattern], vars, this.base);
   }
   workIri = (w: number) => this.work[this.model.works[w].partner](w);
   imageIri = (img: number) => {
@@ -61,7 +61,13 @@ export class Namer {
     return this.image[this.model.works[w].partner](this.model.images.id[img], this.model.works[w].id);
   };
   recordPage = (w: number) => this.page[this.model.works[w].partner]?.(this.model.works[w].id);
-  graph = (g: GraphName) => nn(this.iri('graph', { graph: g }));
+  private graphs = new Map<GraphName, NamedNode>();
+  /** A graph's IRI term, made once and shared by every quad in that graph. */
+  graph = (g: GraphName): NamedNode => {
+    let node = this.graphs.get(g);
+    if (!node) this.graphs.set(g, (node = nn(this.iri('graph', { graph: g }))));
+    return node;
+  };
   linkIri = (l: Link) => this.iri('link', { hash: hash(workRef(this.model, l.a), workRef(this.model, l.b)) });
   /** An image match's IRI, from its two image IRIs (pass them when already built) and its run. */
   matchIri = (r: number, ra = this.imageIri(this.model.matches.a[r]), rb = this.imageIri(this.model.matches.b[r])) =>

@@ -1,5 +1,6 @@
 // RDF terms and quads → N-Triples / N-Quads / Turtle text, without per-quad writer objects (the publishing hot path).
 import type { Quad, Term } from '@rdfjs/types';
+import { Iri, Lit } from './terms.js';
 
 const XSD_STRING = 'http://www.w3.org/2001/XMLSchema#string';
 const RDF_LANG_STRING = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#langString';
@@ -35,18 +36,24 @@ function iriRef(iri: string): string {
   return '<' + iri.replace(/[\u0000-\u0020<>"{}|^`\\]/g, (c) => '\\u' + c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')) + '>';
 }
 
-/** One term in N-Triples syntax. */
+/** A literal's N-Triples text from its parts. */
+function ntLiteral(value: string, language: string, datatype: Term): string {
+  const body = `"${escapeString(value)}"`;
+  if (language) return `${body}@${language}`;
+  return datatype.value === XSD_STRING ? body : `${body}^^${ntTerm(datatype)}`;
+}
+
+/** One term in N-Triples syntax (IRIs made by src/rdf/terms.ts keep their text after the first time). */
 export function ntTerm(t: Term): string {
+  if (t instanceof Iri) return (t.nt ??= iriRef(t.value));
+  if (t instanceof Lit) return ntLiteral(t.value, t.language, t.datatype);
   switch (t.termType) {
     case 'NamedNode':
       return iriRef(t.value);
     case 'BlankNode':
       return '_:' + t.value;
-    case 'Literal': {
-      const body = `"${escapeString(t.value)}"`;
-      if (t.language) return `${body}@${t.language}`;
-      return t.datatype.value === XSD_STRING ? body : `${body}^^${iriRef(t.datatype.value)}`;
-    }
+    case 'Literal':
+      return ntLiteral(t.value, t.language, t.datatype);
     default:
       throw new Error(`cannot write a ${t.termType} term in N-Triples`);
   }
@@ -85,10 +92,19 @@ export class TurtleEncoder {
     for (const [p, ns] of this.spaces) if (iri.startsWith(ns) && SAFE_LOCAL.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
     return iriRef(iri);
   }
+  /** An IRI's Turtle text, kept on IRIs made by src/rdf/terms.ts (for this encoder's prefix table). */
+  private iri(t: Term): string {
+    if (!(t instanceof Iri)) return this.name(t.value);
+    if (t.ttlFor !== this.spaces) {
+      t.ttl = this.name(t.value);
+      t.ttlFor = this.spaces;
+    }
+    return t.ttl!;
+  }
   private term(t: Term): string {
-    if (t.termType === 'NamedNode') return this.name(t.value);
+    if (t.termType === 'NamedNode') return this.iri(t);
     if (t.termType === 'Literal' && !t.language && t.datatype.value !== XSD_STRING && t.datatype.value !== RDF_LANG_STRING)
-      return `"${escapeString(t.value)}"^^${this.name(t.datatype.value)}`;
+      return `"${escapeString(t.value)}"^^${this.iri(t.datatype)}`;
     return ntTerm(t);
   }
   encode(quads: readonly Quad[]): string {
