@@ -16,13 +16,36 @@ interface Subject {
   term: Quad_Subject;
   types: string[];
   props: Map<string, Quad_Object[]>;
-  seen: Set<string>;
+  /** Object keys per predicate, made only for long value lists (short ones are scanned). */
+  keys?: Map<string, Set<string>>;
 }
+
+/** Value lists longer than this get a key set for the duplicate check. */
+const SCAN_LIMIT = 16;
 
 /** Key of a node in the unit: blank nodes as `_:label`, IRIs as themselves (an absolute IRI never starts with `_:`). */
 const nodeKey = (t: Quad_Subject | Quad_Object) => (t.termType === 'BlankNode' ? '_:' + t.value : t.value);
 const objectKey = (o: Quad_Object) =>
   o.termType === 'Literal' ? `"${o.value}"${o.language ? '@' + o.language : '^^' + o.datatype.value}` : nodeKey(o);
+
+/** Same object key (see objectKey) without building it: same term, for literals same value, language and datatype. */
+function sameObject(x: Quad_Object, o: Quad_Object): boolean {
+  if (x.value !== o.value || x.termType !== o.termType) return false;
+  if (x.termType !== 'Literal' || o.termType !== 'Literal') return true;
+  return x.language === o.language && (x.language !== '' || x.datatype.value === o.datatype.value);
+}
+
+/** Is `o` already among the subject's values `list` for predicate `p`? */
+function holds(s: Subject, p: string, list: Quad_Object[], o: Quad_Object): boolean {
+  if (list.length <= SCAN_LIMIT) {
+    for (const x of list) if (sameObject(x, o)) return true;
+    return false;
+  }
+  s.keys ??= new Map();
+  let keys = s.keys.get(p);
+  if (!keys) s.keys.set(p, (keys = new Set(list.map(objectKey))));
+  return keys.has(objectKey(o));
+}
 
 /** Groups quads by subject (graph names dropped), dropping duplicate triples (an RDF graph is a set). */
 function group(quads: Quad[]): { subjects: Map<string, Subject>; referenced: Set<string> } {
@@ -31,21 +54,20 @@ function group(quads: Quad[]): { subjects: Map<string, Subject>; referenced: Set
   for (const q of quads) {
     const key = nodeKey(q.subject);
     let s = subjects.get(key);
-    if (!s) subjects.set(key, (s = { term: q.subject, types: [], props: new Map(), seen: new Set() }));
+    if (!s) subjects.set(key, (s = { term: q.subject, types: [], props: new Map() }));
     const o = q.object, p = q.predicate.value;
-    const dup = `${p} ${objectKey(o)}`;
-    if (s.seen.has(dup)) continue;
-    s.seen.add(dup);
+    const isType = p === RDF_TYPE && o.termType === 'NamedNode';
+    const list = isType ? undefined : s.props.get(p);
+    if (isType ? s.types.includes(o.value) : list !== undefined && holds(s, p, list, o)) continue;
     if (o.termType !== 'Literal') {
       const ok = nodeKey(o);
       if (ok !== key) referenced.add(ok);
     }
-    if (p === RDF_TYPE && o.termType === 'NamedNode') s.types.push(o.value);
-    else {
-      const list = s.props.get(p);
-      if (list) list.push(o);
-      else s.props.set(p, [o]);
-    }
+    if (isType) s.types.push(o.value);
+    else if (list) {
+      list.push(o);
+      s.keys?.get(p)?.add(objectKey(o));
+    } else s.props.set(p, [o]);
   }
   return { subjects, referenced };
 }
