@@ -1,6 +1,7 @@
 // RFC 6570 level-1 URI templates (`{work}`, `{image}`): checking a template and expanding it.
 
 const UNRESERVED = /[A-Za-z0-9\-._~]/;
+const ALL_UNRESERVED = /^[A-Za-z0-9\-._~]*$/;
 
 /**
  * Percent-encodes every character outside the unreserved set, as UTF-8 octets
@@ -10,6 +11,7 @@ export function encodeUnreserved(value: string): string {
   // A value of only dots would expand to a "." or ".." path segment, which readers remove (RFC 3986 §5.2.4) and
   // RDF 1.1 Concepts §3.2 asks publishers to avoid: those dots are percent-encoded, a deliberate departure from §3.2.2.
   if (/^\.{1,2}$/.test(value)) return value.replace(/\./g, '%2E');
+  if (ALL_UNRESERVED.test(value)) return value; // the common case: nothing to encode
   let out = '';
   for (const ch of value) {
     if (ch.length === 1 && UNRESERVED.test(ch)) out += ch;
