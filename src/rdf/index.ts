@@ -73,6 +73,9 @@ export class Namer {
   matchIri = (r: number, ra = this.imageIri(this.model.matches.a[r]), rb = this.imageIri(this.model.matches.b[r])) =>
     this.iri('match', { hash: hash(ra, rb, this.model.runs[this.model.matches.run[r]].id) });
   runIri = (r: number) => this.iri('run', { run: this.model.runs[r].id });
+  private runNodes: NamedNode[] = [];
+  /** A run's IRI term, made once and shared (every match of the run points to it). */
+  runNode = (r: number): NamedNode => (this.runNodes[r] ??= nn(this.runIri(r)));
   agentIri = (r: number) => this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
   /** A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters). */
   curatorIri = (c: string) => {
@@ -143,8 +146,8 @@ export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCo
     const l = links.links[li];
     if (inCluster[li] || !isPublished(l)) continue;
     const quads: Quad[] = [];
-    linkQuads(l, view, namer, quads, described, matchDone, counts);
-    yield { kind: 'link', id: namer.linkIri(l), quads, partners: new Set([model.works[l.a].partner, model.works[l.b].partner]) };
+    const id = linkQuads(l, view, namer, quads, described, matchDone, counts);
+    yield { kind: 'link', id, quads, partners: new Set([model.works[l.a].partner, model.works[l.b].partner]) };
   }
 }
 
@@ -177,7 +180,7 @@ function matchIrisCanRepeat(model: Model, namer: Namer): boolean {
   return false;
 }
 
-function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string> | null, counts: LinksetCounts): void {
+function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string> | null, counts: LinksetCounts): string {
   const { model } = view;
   const claims = inGraph(namer.graph('claims'), quads);
   const prov = inGraph(namer.graph('provenance'), quads);
@@ -226,15 +229,16 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
     ev(M, term('cx', 'targetImage'), nn(rb));
     ev(M, term('cx', 'score'), dec(matches.score[r]));
     ev(M, term('cx', 'overlap'), dec(matches.overlap[r]));
-    ev(M, term('prov', 'wasGeneratedBy'), nn(namer.runIri(matches.run[r])));
+    ev(M, term('prov', 'wasGeneratedBy'), namer.runNode(matches.run[r]));
   }
   if (l.decision !== undefined) {
     prov(L, term('prov', 'wasGeneratedBy'), nn(namer.reviewIri(l.decision)));
     prov(L, term('prov', 'wasAttributedTo'), nn(namer.curatorIri(model.decisions[l.decision].curator)));
   } else {
-    for (const r of l.runs) prov(L, term('prov', 'wasGeneratedBy'), nn(namer.runIri(r)));
+    for (const r of l.runs) prov(L, term('prov', 'wasGeneratedBy'), namer.runNode(r));
     for (const agent of new Set(l.runs.map(namer.agentIri))) prov(L, term('prov', 'wasAttributedTo'), nn(agent));
   }
+  return L.value;
 }
 
 /** Runs, software agents, plans, curator reviews and curators: shared by every cluster. */
