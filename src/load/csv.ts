@@ -1,7 +1,5 @@
-// Delimited text file → rows of fields with the 1-based physical line each record starts on (fast-csv underneath).
+// Delimited text file → rows of fields with the 1-based physical line each record starts on (an RFC 4180 parser).
 import { createReadStream } from 'node:fs';
-import { once } from 'node:events';
-import { parse } from 'fast-csv';
 import { UserError, type Problem } from '../errors.js';
 
 export interface CsvRow {
@@ -38,101 +36,122 @@ function firstInvalidUtf8(buf: Uint8Array): { bad: number; tail: number } {
   return { bad: -1, tail: 0 };
 }
 
+const START = 0; // at the start of a field
+const UNQUOTED = 1; // inside an unquoted field
+const QUOTED = 2; // inside a quoted field
+const PENDING = 3; // saw `"` inside a quoted field: the closing quote, or the first half of `""`
+const CLOSED = 4; // after a quoted field's closing quote
+
 /**
- * Tracks record boundaries the way RFC 4180 §2 quoting defines them, to give each record its physical start line
- * and to catch stray quotes (a `"` inside an unquoted field, which fast-csv would keep as text).
+ * An RFC 4180 §2 parser fed text in pieces: records of fields, each with the physical line it starts on (a quoted
+ * newline makes a record span lines; CR, LF and CRLF each end one line). A `"` inside an unquoted field, or text
+ * after a closing quote, is recorded as a stray quote (the caller reports it).
  */
-class LineTracker {
+class CsvParser {
   line = 1;
-  starts: number[] = [];
-  stray: { line: number }[] = [];
-  private inQuotes = false;
-  private quotePending = false; // saw a `"` inside quotes: closing or first half of `""`
-  private fieldStart = true;
-  private recordOpen = false;
+  readonly rows: CsvRow[] = [];
+  /** Line of the first stray quote, 0 if none. */
+  stray = 0;
+  private state = START;
+  private field = '';
+  private fields: string[] = [];
+  /** Line the open record started on, 0 when no record is open. */
+  private recordLine = 0;
   private lastCR = false;
+  /** Whether the open record has a quoted field. */
+  private quoted = false;
   constructor(private readonly delim: number) {}
 
   feed(text: string): void {
     const d = this.delim;
+    let state = this.state;
+    let mark = 0; // start of the current field's text not yet copied into `field`
     for (let i = 0; i < text.length; i++) {
       const c = text.charCodeAt(i);
-      if (this.lastCR) {
-        this.lastCR = false;
-        if (c === 10) continue; // CRLF counted once
-      }
-      if (!this.recordOpen) {
-        this.recordOpen = true;
-        this.starts.push(this.line);
-      }
-      if (this.quotePending) {
-        this.quotePending = false;
-        if (c === 34) continue; // escaped quote
-        this.inQuotes = false; // closing quote; fall through to handle c
-        if (c !== d && c !== 10 && c !== 13) this.stray.push({ line: this.line });
-      } else if (this.inQuotes) {
-        if (c === 34) this.quotePending = true;
-        else if (c === 10 || c === 13) { this.line++; this.lastCR = c === 13; }
+      const afterCR = this.lastCR;
+      this.lastCR = c === 13;
+      if (state === QUOTED) {
+        if (c === 34) {
+          this.field += text.slice(mark, i);
+          mark = i + 1;
+          state = PENDING;
+        } else if (c === 13 || (c === 10 && !afterCR)) this.line++;
         continue;
       }
-      if (c === 34) {
-        if (this.fieldStart) { this.inQuotes = true; this.fieldStart = false; }
-        else this.stray.push({ line: this.line });
-        continue;
+      if (state === PENDING) {
+        if (c === 34) { // `""`: one quote of content
+          this.field += '"';
+          mark = i + 1;
+          state = QUOTED;
+          continue;
+        }
+        state = CLOSED;
       }
-      if (c === d) { this.fieldStart = true; continue; }
-      if (c === 10 || c === 13) {
+      if (c === 10 && afterCR) { mark = i + 1; continue; } // the LF of a CRLF that already ended the record
+      if (this.recordLine === 0) this.recordLine = this.line;
+      if (c === d) {
+        this.fields.push(this.field + text.slice(mark, i));
+        this.field = '';
+        mark = i + 1;
+        state = START;
+      } else if (c === 10 || c === 13) {
+        this.fields.push(this.field + text.slice(mark, i));
+        this.endRecord();
         this.line++;
-        this.lastCR = c === 13;
-        this.recordOpen = false;
-        this.fieldStart = true;
-        continue;
-      }
-      this.fieldStart = false;
+        mark = i + 1;
+        state = START;
+      } else if (c === 34 && state === START) {
+        state = QUOTED;
+        this.quoted = true;
+        mark = i + 1;
+      } else if (c === 34 || state === CLOSED) {
+        if (this.stray === 0) this.stray = this.line;
+      } else state = UNQUOTED;
     }
+    if (state === QUOTED || state === UNQUOTED) this.field += text.slice(mark);
+    this.state = state;
   }
-  get unterminated(): boolean {
-    return this.inQuotes && !this.quotePending;
+
+  /** A blank line, or one of unquoted spaces only, is no record. */
+  private endRecord(): void {
+    if (this.quoted || this.fields.length > 1 || this.fields[0].trim() !== '') this.rows.push({ fields: this.fields, line: this.recordLine });
+    this.quoted = false;
+    this.fields = [];
+    this.field = '';
+    this.recordLine = 0;
+  }
+
+  /** Closes the last record at the end of input; returns the start line of an unterminated quoted field, else 0. */
+  finish(): number {
+    if (this.state === QUOTED) return this.recordLine;
+    if (this.recordLine !== 0) {
+      this.fields.push(this.field);
+      this.endRecord();
+    }
+    return 0;
   }
 }
 
 const problem = (file: string, line: number, message: string, hint?: string): Problem => ({ file, line, field: '', message, hint });
 
 /**
- * Streams the records of a CSV/TSV file (RFC 4180 quoting; UTF-8 with or without BOM; CRLF or LF).
- * Blank lines are skipped. Structural faults (invalid UTF-8, stray or unterminated quotes) throw a UserError
- * naming the line; ragged rows are left to the caller, which knows the header.
+ * Streams the records of a CSV/TSV file (RFC 4180 quoting; UTF-8 with or without BOM; CRLF or LF), in batches (one
+ * per chunk read). Blank (or only-space) lines are skipped; spaces inside a field are kept (RFC 4180 §2). Structural faults (invalid UTF-8, stray or unterminated quotes) throw a
+ * UserError naming the line; ragged rows are left to the caller, which knows the header.
  */
-export async function* readCsv(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow> {
-  const tracker = new LineTracker(delimiter.charCodeAt(0));
+export async function* readCsvBatches(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow[]> {
+  const parser = new CsvParser(delimiter.charCodeAt(0));
   const decoder = new TextDecoder('utf-8', { fatal: true });
-  const parser = parse({ delimiter, ignoreEmpty: false, quote: '"', escape: '"' });
-  const rows: string[][] = [];
-  let parseError: Error | undefined;
-  parser.on('data', (r: string[]) => rows.push(r));
-  parser.on('error', (e: Error) => (parseError = e));
-  const ended = new Promise<void>((res) => parser.on('end', res));
-  let emitted = 0;
   let carry = new Uint8Array(0);
 
-  const drain = function* (): Generator<CsvRow> {
-    if (tracker.stray.length) {
-      throw new UserError(problem(file, tracker.stray[0].line, 'stray quote inside an unquoted field', 'quote the whole field and double any quote inside it: "a ""b"" c"'));
-    }
-    if (parseError) throw new UserError(problem(file, tracker.line, `malformed CSV: ${parseError.message}`, 'check quoting on this line'));
-    for (const fields of rows) {
-      const line = tracker.starts[emitted++];
-      if (fields.length === 0 || (fields.length === 1 && fields[0] === '')) continue;
-      yield { fields, line };
-    }
-    rows.length = 0;
-    tracker.starts.splice(0, emitted); // keep only the start lines of records not yet parsed
-    emitted = 0;
+  const drain = (): CsvRow[] => {
+    if (parser.stray) throw new UserError(problem(file, parser.stray, 'stray quote inside an unquoted field', 'quote the whole field and double any quote inside it: "a ""b"" c"'));
+    return parser.rows.splice(0);
   };
 
   let stream;
   try {
-    stream = createReadStream(file);
+    stream = createReadStream(file, { highWaterMark: 1 << 20 });
     let bytesRead = 0;
     for await (const chunk of stream as AsyncIterable<Buffer>) {
       bytesRead += chunk.length;
@@ -140,26 +159,27 @@ export async function* readCsv(file: string, delimiter: string, onBytes?: (bytes
       const buf = carry.length ? Buffer.concat([carry, chunk]) : chunk;
       const { bad, tail } = firstInvalidUtf8(buf);
       if (bad >= 0) {
-        const prefix = decoder.decode(buf.subarray(0, bad), { stream: true });
-        tracker.feed(prefix);
-        throw new UserError(problem(file, tracker.line, `invalid UTF-8 (byte 0x${buf[bad].toString(16)})`, 'save the export as UTF-8'));
+        parser.feed(decoder.decode(buf.subarray(0, bad), { stream: true }));
+        throw new UserError(problem(file, parser.line, `invalid UTF-8 (byte 0x${buf[bad].toString(16)})`, 'save the export as UTF-8'));
       }
       carry = tail ? buf.slice(buf.length - tail) : new Uint8Array(0);
-      const text = decoder.decode(tail ? buf.subarray(0, buf.length - tail) : buf, { stream: true });
-      tracker.feed(text);
-      // wait until fast-csv has parsed what it was given: reading ahead of the parser would queue the whole file
-      if (!parser.write(text)) await Promise.race([once(parser, 'drain'), ended]);
-      else await new Promise<void>((r) => setImmediate(r));
-      yield* drain();
+      parser.feed(decoder.decode(tail ? buf.subarray(0, buf.length - tail) : buf, { stream: true }));
+      const batch = drain();
+      if (batch.length) yield batch;
     }
   } catch (e) {
     if (e instanceof UserError) throw e;
     const code = (e as NodeJS.ErrnoException).code;
     throw new UserError(problem(file, 0, code === 'ENOENT' ? 'file not found' : `cannot read file (${code ?? e})`, 'check the path in concordance.json (paths are relative to it)'));
   }
-  if (carry.length) throw new UserError(problem(file, tracker.line, 'invalid UTF-8 (truncated sequence at end of file)', 'save the export as UTF-8'));
-  if (tracker.unterminated) throw new UserError(problem(file, tracker.starts[tracker.starts.length - 1] ?? 1, 'unterminated quoted field', 'a field opened with " must close with "'));
-  parser.end();
-  await ended;
-  yield* drain();
+  if (carry.length) throw new UserError(problem(file, parser.line, 'invalid UTF-8 (truncated sequence at end of file)', 'save the export as UTF-8'));
+  const unterminated = parser.finish();
+  if (unterminated) throw new UserError(problem(file, unterminated, 'unterminated quoted field', 'a field opened with " must close with "'));
+  const batch = drain();
+  if (batch.length) yield batch;
+}
+
+/** The records of {@link readCsvBatches} one by one. */
+export async function* readCsv(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow> {
+  for await (const batch of readCsvBatches(file, delimiter, onBytes)) yield* batch;
 }

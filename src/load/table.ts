@@ -1,6 +1,6 @@
 // CSV rows → header-checked records: finds the named columns, reports ragged rows and header-only files.
 import type { ProblemList } from '../errors.js';
-import { readCsv } from './csv.js';
+import { readCsvBatches } from './csv.js';
 import { didYouMean } from './did-you-mean.js';
 
 export interface TableRow {
@@ -26,7 +26,7 @@ export async function* readTable(
   let header: string[] | undefined;
   let index = new Map<string, number>();
   let records = 0;
-  for await (const { fields, line } of readCsv(file, delimiter, onBytes)) {
+  for await (const batch of readCsvBatches(file, delimiter, onBytes)) for (const { fields, line } of batch) {
     if (!header) {
       header = fields.map((h) => h.trim());
       const other = [';', '\t', ','].find((d) => d !== delimiter && header!.length === 1 && header![0].split(d).length >= Math.max(2, required.length));
