@@ -1,5 +1,5 @@
 // Small constructors for RDF terms: IRIs from the namespace table, typed literals, decimals, stable hashes.
-import { createHash } from 'node:crypto';
+import * as crypto from 'node:crypto';
 import type { Quad, Quad_Graph, Quad_Object, Quad_Subject, NamedNode, Literal, Term } from '@rdfjs/types';
 import { NS, type Prefix } from '../namespaces.js';
 
@@ -77,9 +77,13 @@ export function dec(n: number): Lit {
 /** xsd:dateTime for a full date-time, xsd:date for a calendar date. */
 export const when = (s: string) => (s.includes('T') ? typed(s, 'dateTime') : typed(s, 'date'));
 
+/** Node's one-shot digest (Node ≥ 20.12; about 3× faster than a Hash object for short inputs), when present. */
+const oneShot = (crypto as unknown as { hash?: (algorithm: string, data: string, encoding: 'hex') => string }).hash;
+
 /** First 16 hex digits of SHA-256 over the parts joined by tabs: short, stable identifiers for pairs. */
 export function hash(...parts: string[]): string {
-  return createHash('sha256').update(parts.join('\t')).digest('hex').slice(0, 16);
+  const text = parts.join('\t');
+  return (oneShot ? oneShot('sha256', text, 'hex') : crypto.createHash('sha256').update(text).digest('hex')).slice(0, 16);
 }
 
 /** A pattern split at its `{name}` slots: literal text at even indices, slot names at odd ones. */
