@@ -62,9 +62,19 @@ export function ntTerm(t: Term): string {
 /** Quads as N-Quads lines (RDF 1.1 N-Quads §2); `graphs: false` gives N-Triples. */
 export function nquadsText(quads: readonly Quad[], graphs = true): string {
   let out = '';
+  let graph: Term | undefined;
+  let ending = '';
   for (const q of quads) {
     out += `${ntTerm(q.subject)} ${ntTerm(q.predicate)} ${ntTerm(q.object)}`;
-    out += graphs && q.graph.termType !== 'DefaultGraph' ? ` ${ntTerm(q.graph)} .\n` : ' .\n';
+    if (!graphs || q.graph.termType === 'DefaultGraph') out += ' .\n';
+    else {
+      // the line ending for a graph, made once per run of quads in that graph
+      if (q.graph !== graph) {
+        graph = q.graph;
+        ending = ` ${ntTerm(graph)} .\n`;
+      }
+      out += ending;
+    }
   }
   return out;
 }
