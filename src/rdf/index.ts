@@ -48,7 +48,12 @@ export class Namer {
     // check rejects unbalanced braces, so no {work} spans an {image}).
     this.image = ps.map((p) => {
       const pieces = p.imageIri.split('{image}').map((piece) => compileTemplate(piece, 'work'));
-      return (id: string, work: string) => pieces.map((f) => f(work)).join(encodeUnreserved(id));
+      return (id: string, work: string) => {
+        const enc = encodeUnreserved(id);
+        let out = pieces[0](work);
+        for (let i = 1; i < pieces.length; i++) out += enc + pieces[i](work);
+        return out;
+      };
     });
     this.page = ps.map((p) => (p.recordPage ? compileTemplate(p.recordPage, 'work') : undefined));
   }
