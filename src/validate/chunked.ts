@@ -122,7 +122,12 @@ export async function validateChunks(
   try {
     for await (const chunk of chunks) {
       const { quads, context = [] } = Array.isArray(chunk) ? { quads: chunk } : chunk;
-      for (const q of quads) { batch.push(q); owned.add(q.subject.value); }
+      // quads come grouped by subject: a set operation only when the subject changes
+      let last = '';
+      for (const q of quads) {
+        batch.push(q);
+        if (q.subject.value !== last) owned.add((last = q.subject.value));
+      }
       for (const q of context) { batch.push(q); contextSubjects.add(q.subject.value); }
       if (batch.length >= batchQuads) {
         await dispatch(batch, foreignOf());
