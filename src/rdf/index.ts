@@ -33,6 +33,14 @@ const T = {
 };
 const STATUS = { confirmed: term('cx', 'Confirmed'), proposed: term('cx', 'Proposed'), rejected: term('cx', 'Rejected'), candidate: term('cx', 'Proposed') };
 const KIND = { same: term('cx', 'Same'), part: term('cx', 'Part'), related: term('cx', 'Related') };
+/** Vocabulary terms used per quad below, looked up once (by prefix: names are prefix + local name). */
+const [cxBridge, cxCoverageObject, cxCoverageSubject, cxDateAsCatalogued, cxKind, cxMeanScore, cxMember, cxMemberCount, cxNote, cxObjectWork, cxOverlap, cxOversized, cxParameter, cxParameterName, cxParameterValue, cxPartner, cxPartnerCount, cxRelation, cxScore, cxSeverity, cxSourceImage, cxStatus, cxSubjectWork, cxSupport, cxTargetImage, cxThroughThirdArchive, cxVerdict, cxWorkA, cxWorkB] = ['bridge', 'coverageObject', 'coverageSubject', 'dateAsCatalogued', 'kind', 'meanScore', 'member', 'memberCount', 'note', 'objectWork', 'overlap', 'oversized', 'parameter', 'parameterName', 'parameterValue', 'partner', 'partnerCount', 'relation', 'score', 'severity', 'sourceImage', 'status', 'subjectWork', 'support', 'targetImage', 'throughThirdArchive', 'verdict', 'workA', 'workB'].map((l) => term('cx', l));
+const [dctermsDate, dctermsTitle] = ['date', 'title'].map((l) => term('dcterms', l));
+const [foafPage] = ['page'].map((l) => term('foaf', l));
+const [owlVersionInfo] = ['versionInfo'].map((l) => term('owl', l));
+const [provAgent, provEndedAtTime, provHadPlan, provQualifiedAssociation, provStartedAtTime, provWasAssociatedWith, provWasAttributedTo, provWasDerivedFrom, provWasGeneratedBy] = ['agent', 'endedAtTime', 'hadPlan', 'qualifiedAssociation', 'startedAtTime', 'wasAssociatedWith', 'wasAttributedTo', 'wasDerivedFrom', 'wasGeneratedBy'].map((l) => term('prov', l));
+const [rdfsLabel] = ['label'].map((l) => term('rdfs', l));
+const [voidInDataset] = ['inDataset'].map((l) => term('void', l));
 
 /** IRIs of everything the release names, built once from the project and the vocab map patterns. */
 export class Namer {
@@ -121,25 +129,25 @@ export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCo
     const cl = nn(namer.iri('cluster', { cluster: c.id }));
     prov(cl, a, T.Cluster);
     for (const w of c.members) {
-      prov(cl, term('cx', 'member'), nn(namer.workIri(w)));
+      prov(cl, cxMember, nn(namer.workIri(w)));
       partners.add(model.works[w].partner);
       describeWork(w, described, claims, namer, model);
     }
-    prov(cl, term('cx', 'memberCount'), int(c.members.length));
-    prov(cl, term('cx', 'partnerCount'), int(partners.size));
-    if (c.oversized) prov(cl, term('cx', 'oversized'), bool(true));
-    for (const li of c.bridges) prov(cl, term('cx', 'bridge'), nn(namer.linkIri(links.links[li])));
+    prov(cl, cxMemberCount, int(c.members.length));
+    prov(cl, cxPartnerCount, int(partners.size));
+    if (c.oversized) prov(cl, cxOversized, bool(true));
+    for (const li of c.bridges) prov(cl, cxBridge, nn(namer.linkIri(links.links[li])));
     /** A pair node of the cluster (implied pair or date conflict), named from the ordered pair of works. */
     const pairNode = (pattern: 'implied' | 'conflict', link: string, type: NamedNode, x: { a: number; b: number }) => {
       const node = nn(namer.iri(pattern, { cluster: c.id, hash: hash(workRef(model, x.a), workRef(model, x.b)) }));
       prov(cl, term('cx', link), node);
       prov(node, a, type);
-      prov(node, term('cx', 'workA'), nn(namer.workIri(x.a)));
-      prov(node, term('cx', 'workB'), nn(namer.workIri(x.b)));
+      prov(node, cxWorkA, nn(namer.workIri(x.a)));
+      prov(node, cxWorkB, nn(namer.workIri(x.b)));
       return node;
     };
-    for (const p of c.implied) prov(pairNode('implied', 'impliedPair', T.Implied, p), term('cx', 'throughThirdArchive'), bool(p.throughThirdArchive));
-    for (const x of c.conflicts) prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), term('cx', 'severity'), str(x.severity));
+    for (const p of c.implied) prov(pairNode('implied', 'impliedPair', T.Implied, p), cxThroughThirdArchive, bool(p.throughThirdArchive));
+    for (const x of c.conflicts) prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), cxSeverity, str(x.severity));
     for (const li of c.links) {
       inCluster[li] = 1;
       const l = links.links[li];
@@ -161,12 +169,12 @@ function describeWork(w: number, described: Uint8Array, emit: ReturnType<typeof 
   described[w] = 1;
   const work = model.works[w];
   const s = nn(namer.workIri(w));
-  if (work.title) emit(s, term('dcterms', 'title'), str(work.title));
-  if (work.date) emit(s, term('cx', 'dateAsCatalogued'), str(work.date));
+  if (work.title) emit(s, dctermsTitle, str(work.title));
+  if (work.date) emit(s, cxDateAsCatalogued, str(work.date));
   const page = namer.recordPage(w);
-  if (page) emit(s, term('foaf', 'page'), nn(page));
-  emit(s, term('void', 'inDataset'), nn(namer.partnerDataset(work.partner)));
-  emit(s, term('cx', 'partner'), str(model.project.partners[work.partner].key));
+  if (page) emit(s, foafPage, nn(page));
+  emit(s, voidInDataset, nn(namer.partnerDataset(work.partner)));
+  emit(s, cxPartner, str(model.project.partners[work.partner].key));
 }
 
 /**
@@ -203,26 +211,26 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
   const L = nn(namer.linkIri(l));
   prov(L, a, T.Link);
   prov(L, a, T.Entity);
-  prov(L, term('cx', 'subjectWork'), S);
-  prov(L, term('cx', 'objectWork'), O);
-  if (predicate) prov(L, term('cx', 'relation'), nn(predicate));
-  prov(L, term('cx', 'kind'), KIND[l.kind]);
-  prov(L, term('cx', 'status'), STATUS[l.status]);
-  prov(L, term('cx', 'support'), int(l.support));
+  prov(L, cxSubjectWork, S);
+  prov(L, cxObjectWork, O);
+  if (predicate) prov(L, cxRelation, nn(predicate));
+  prov(L, cxKind, KIND[l.kind]);
+  prov(L, cxStatus, STATUS[l.status]);
+  prov(L, cxSupport, int(l.support));
   if (l.reliableSupport > 0) {
-    prov(L, term('cx', 'score'), dec(l.best));
-    prov(L, term('cx', 'meanScore'), dec(l.mean));
+    prov(L, cxScore, dec(l.best));
+    prov(L, cxMeanScore, dec(l.mean));
   }
   if (l.support > 0) {
-    prov(L, term('cx', 'coverageSubject'), dec(s === l.a ? l.coverageA : l.coverageB));
-    prov(L, term('cx', 'coverageObject'), dec(s === l.a ? l.coverageB : l.coverageA));
+    prov(L, cxCoverageSubject, dec(s === l.a ? l.coverageA : l.coverageB));
+    prov(L, cxCoverageObject, dec(s === l.a ? l.coverageB : l.coverageA));
   }
   const { matches } = model;
   for (const r of matchesOf(view.links, l)) {
     const ia = matches.a[r], ib = matches.b[r];
     const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
     const id = namer.matchIri(r, ra, rb);
-    prov(L, term('prov', 'wasDerivedFrom'), nn(id));
+    prov(L, provWasDerivedFrom, nn(id));
     if (matchDone) {
       if (matchDone.has(id)) continue; // the same image match named by two rows (see matchIrisCanRepeat)
       matchDone.add(id);
@@ -230,18 +238,18 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
     const M = nn(id);
     ev(M, a, T.ImageMatch);
     ev(M, a, T.Entity);
-    ev(M, term('cx', 'sourceImage'), nn(ra));
-    ev(M, term('cx', 'targetImage'), nn(rb));
-    ev(M, term('cx', 'score'), dec(matches.score[r]));
-    ev(M, term('cx', 'overlap'), dec(matches.overlap[r]));
-    ev(M, term('prov', 'wasGeneratedBy'), namer.runNode(matches.run[r]));
+    ev(M, cxSourceImage, nn(ra));
+    ev(M, cxTargetImage, nn(rb));
+    ev(M, cxScore, dec(matches.score[r]));
+    ev(M, cxOverlap, dec(matches.overlap[r]));
+    ev(M, provWasGeneratedBy, namer.runNode(matches.run[r]));
   }
   if (l.decision !== undefined) {
-    prov(L, term('prov', 'wasGeneratedBy'), nn(namer.reviewIri(l.decision)));
-    prov(L, term('prov', 'wasAttributedTo'), nn(namer.curatorIri(model.decisions[l.decision].curator)));
+    prov(L, provWasGeneratedBy, nn(namer.reviewIri(l.decision)));
+    prov(L, provWasAttributedTo, nn(namer.curatorIri(model.decisions[l.decision].curator)));
   } else {
-    for (const r of l.runs) prov(L, term('prov', 'wasGeneratedBy'), namer.runNode(r));
-    for (const agent of new Set(l.runs.map(namer.agentIri))) prov(L, term('prov', 'wasAttributedTo'), nn(agent));
+    for (const r of l.runs) prov(L, provWasGeneratedBy, namer.runNode(r));
+    for (const agent of new Set(l.runs.map(namer.agentIri))) prov(L, provWasAttributedTo, nn(agent));
   }
   return L.value;
 }
@@ -259,27 +267,27 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
     const assoc = nn(namer.iri('association', { run: run.id }));
     prov(R, a, T.Activity);
     prov(R, a, T.MatchRun);
-    prov(R, term('rdfs', 'label'), str(`${run.software} ${run.version}, run ${run.id}`));
-    prov(R, term('prov', 'startedAtTime'), typed(run.started, 'dateTime'));
-    prov(R, term('prov', 'wasAssociatedWith'), nn(agent));
-    prov(R, term('prov', 'qualifiedAssociation'), assoc);
+    prov(R, rdfsLabel, str(`${run.software} ${run.version}, run ${run.id}`));
+    prov(R, provStartedAtTime, typed(run.started, 'dateTime'));
+    prov(R, provWasAssociatedWith, nn(agent));
+    prov(R, provQualifiedAssociation, assoc);
     prov(assoc, a, T.Association);
-    prov(assoc, term('prov', 'agent'), nn(agent));
-    prov(assoc, term('prov', 'hadPlan'), plan);
+    prov(assoc, provAgent, nn(agent));
+    prov(assoc, provHadPlan, plan);
     prov(plan, a, T.Plan);
     prov(plan, a, T.Entity);
     for (const name of Object.keys(run.parameters).sort()) {
       const P = nn(namer.iri('parameter', { run: run.id, name }));
       const v = run.parameters[name];
-      prov(plan, term('cx', 'parameter'), P);
-      prov(P, term('cx', 'parameterName'), str(name));
-      prov(P, term('cx', 'parameterValue'), typeof v === 'number' ? (Number.isInteger(v) ? int(v) : dec(v)) : typeof v === 'boolean' ? bool(v) : str(String(v)));
+      prov(plan, cxParameter, P);
+      prov(P, cxParameterName, str(name));
+      prov(P, cxParameterValue, typeof v === 'number' ? (Number.isInteger(v) ? int(v) : dec(v)) : typeof v === 'boolean' ? bool(v) : str(String(v)));
     }
     if (!agents.has(agent)) {
       agents.add(agent);
       prov(nn(agent), a, T.SoftwareAgent);
-      prov(nn(agent), term('rdfs', 'label'), str(run.software));
-      prov(nn(agent), term('owl', 'versionInfo'), str(run.version));
+      prov(nn(agent), rdfsLabel, str(run.software));
+      prov(nn(agent), owlVersionInfo, str(run.version));
     }
   });
   const people = new Set<string>();
@@ -290,14 +298,14 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
     const person = namer.curatorIri(x.curator);
     prov(R, a, T.Activity);
     prov(R, a, T.Review);
-    prov(R, term('prov', 'wasAssociatedWith'), nn(person));
-    prov(R, x.date.includes('T') ? term('prov', 'endedAtTime') : term('dcterms', 'date'), when(x.date));
-    prov(R, term('cx', 'verdict'), str(x.verdict));
-    if (x.note) prov(R, term('cx', 'note'), str(x.note));
+    prov(R, provWasAssociatedWith, nn(person));
+    prov(R, x.date.includes('T') ? provEndedAtTime : dctermsDate, when(x.date));
+    prov(R, cxVerdict, str(x.verdict));
+    if (x.note) prov(R, cxNote, str(x.note));
     if (!people.has(person)) {
       people.add(person);
       prov(nn(person), a, T.Person);
-      if (person !== x.curator) prov(nn(person), term('rdfs', 'label'), str(x.curator));
+      if (person !== x.curator) prov(nn(person), rdfsLabel, str(x.curator));
     }
   }
   return { kind: 'provenance', id: 'provenance', quads, partners: 'all' };
