@@ -98,15 +98,16 @@ export class TurtleEncoder {
     // longest namespace first, so nested namespaces pick the most specific prefix
     this.spaces = Object.entries(prefixes).sort((a, b) => b[1].length - a[1].length);
   }
-  private name(iri: string): string {
+  /** A prefixed name when one fits, else the IRIREF (taken from the term's N-Triples text when it has one). */
+  private name(iri: string, t?: Iri): string {
     for (const [p, ns] of this.spaces) if (iri.startsWith(ns) && SAFE_LOCAL.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
-    return iriRef(iri);
+    return t ? (t.nt ??= iriRef(iri)) : iriRef(iri);
   }
   /** An IRI's Turtle text, kept on IRIs made by src/rdf/terms.ts (for this encoder's prefix table). */
   private iri(t: Term): string {
     if (!(t instanceof Iri)) return this.name(t.value);
     if (t.ttlFor !== this.spaces) {
-      t.ttl = this.name(t.value);
+      t.ttl = this.name(t.value, t);
       t.ttlFor = this.spaces;
     }
     return t.ttl!;
