@@ -5,6 +5,7 @@ import type { Column } from '../util/columns.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { progress } from '../util/progress.js';
+import { detached } from './csv.js';
 import { readTable } from './table.js';
 import { checkCatalogueDate } from './dates.js';
 
@@ -38,12 +39,12 @@ export async function loadCatalogue(
   const rows = readTable(file, delimiter, required, [], problems, `partner "${partner.key}"`, (b) => bar.update(Math.round(b / 1048576)));
   try {
     for await (const row of rows) {
-      const workId = row.get(c.work).trim();
-      const imageId = row.get(c.image).trim();
+      const workId = detached(row.get(c.work).trim());
+      const imageId = detached(row.get(c.image).trim());
       if (!workId) { problems.add({ file, line: row.line, field: c.work, message: 'empty work ID', hint: 'every row needs the ID of the work it shows' }); continue; }
       if (!imageId) { problems.add({ file, line: row.line, field: c.image, message: 'empty image ID', hint: 'every row is one photo and needs its ID' }); continue; }
-      const title = c.title ? row.get(c.title).trim() : '';
-      const date = c.date ? row.get(c.date).trim() : '';
+      const title = c.title ? detached(row.get(c.title).trim()) : '';
+      const date = c.date ? detached(row.get(c.date).trim()) : '';
       if (date) {
         const bad = checkCatalogueDate(date, partner.centuryConvention);
         if (bad?.kind === 'impossible') problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
