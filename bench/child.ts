@@ -22,10 +22,17 @@ const JOBS: Record<string, Job> = {
       if (current) stages[`stage:${current}`] = now - since;
       [current, since] = [stage, now];
     };
+    // the largest resident set seen in each stage, sampled every 100 ms (MiB)
+    const sampler = setInterval(() => {
+      const key = `rss:${current}`;
+      stages[key] = Math.max(stages[key] ?? 0, process.memoryUsage.rss() / 2 ** 20);
+    }, 100);
+    sampler.unref();
     let r;
     try {
       r = await build(project, out, { validate: v !== '0', progress });
       progress('');
+      clearInterval(sampler);
     } catch (e) {
       // A non-conforming release still ran every stage: report the time and how many problems were listed.
       if (e instanceof UserError && e.exitCode === EXIT.failure) return { ms: performance.now() - t, nonConforming: 1, problemsListed: e.problems.length };

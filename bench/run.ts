@@ -75,6 +75,7 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
   const { ms, triples, evidenceRows } = nv.out;
   say('build without SHACL: time / peak RSS', `${s(ms)} (process ${s(nv.wallMs)}, CPU ${s(nv.cpuMs)}) / ${mib(nv.peakKiB)}`);
   say('  by stage', Object.entries(nv.out).filter(([k]) => k.startsWith('stage:')).map(([k, v]) => `${k.slice(6)} ${s(v)}`).join(', '));
+  say('  peak RSS by stage (sampled)', Object.entries(nv.out).filter(([k]) => k.startsWith('rss:') && k !== 'rss:').map(([k, v]) => `${k.slice(4)} ${v.toFixed(0)} MiB`).join(', '));
   say('  evidence rows/s, output triples/s', `${rate(evidenceRows, ms)}, ${rate(triples, ms)} (${triples} triples)`);
 
   const nvNq = path.join(dir, 'release-nv', 'concordance.nq');

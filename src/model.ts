@@ -112,9 +112,8 @@ export interface Model {
   works: Work[];
   /** per partner: catalogue work ID → work number */
   workIndex: Map<string, number>[];
+  /** (The per-partner image ID → image number maps are the load stage's own: nothing later looks images up by ID.) */
   images: Images;
-  /** per partner: image ID → image number */
-  imageIndex: Map<string, number>[];
   matches: Matches;
   runs: RunConfig[];
   evidenceFiles: string[];

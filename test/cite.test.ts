@@ -44,7 +44,7 @@ test('a citation\'s image matches are exactly the evidence rows behind the link 
   const workOfImage = (ref: string) => {
     const [key, id] = [ref.slice(0, ref.indexOf(':')), ref.slice(ref.indexOf(':') + 1)];
     const pi = p.partners.findIndex((x) => x.key === key);
-    const w = model.images.work[model.imageIndex[pi].get(id)!];
+    const w = model.images.work[model.images.id.findIndex((x, i) => x === id && model.works[model.images.work[i]].partner === pi)];
     return `${key}:${model.works[w].id}`;
   };
   const iriOf = (ref: string) => expandTemplate(imageIri.get(ref.slice(0, ref.indexOf(':')))!, { image: ref.slice(ref.indexOf(':') + 1) });

@@ -71,7 +71,6 @@ export async function load(projectFile: string): Promise<Loaded> {
     works,
     workIndex,
     images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim() },
-    imageIndex,
     matches: { count: m.a.length, a: m.a.trim(), b: m.b.trim(), score: m.score.trim(), overlap: m.overlap.trim(), run: m.run.trim(), file: m.file.trim(), line: m.line.trim() },
     runs,
     evidenceFiles,

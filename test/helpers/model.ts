@@ -87,7 +87,6 @@ export function tinyModel(spec: TinySpec): Model {
     works,
     workIndex,
     images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2) },
-    imageIndex,
     matches: {
       count: m.length,
       a: Int32Array.from(m, (r) => imageNo(r[0])),
