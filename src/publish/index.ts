@@ -48,8 +48,11 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const writer = new ReleaseWriter(dir, view.model.project.release.partnerDumps === false ? null : view.model.project.partners.map((p) => p.key));
   let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
-  const inClusters = new Set(view.clusters.flatMap((c) => c.links));
-  const stray = view.links.links.filter((l, i) => isPublished(l) && !inClusters.has(i)).length;
+  // links outside every cluster become units of their own: counted for the progress bar (a byte per link)
+  const inClusters = new Uint8Array(view.links.links.length);
+  for (const c of view.clusters) for (const li of c.links) inClusters[li] = 1;
+  let stray = 0;
+  view.links.links.forEach((l, i) => { if (!inClusters[i] && isPublished(l)) stray++; });
   const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
   let done = 0;
   /** Validation chunks are only built when SHACL runs. */
