@@ -1,6 +1,8 @@
-#!/usr/bin/env -S node --max-semi-space-size=64
+#!/usr/bin/env -S node --max-semi-space-size=64 --heap-growing-percent=30
 // Command-line entry: registers one subcommand per file in src/cli/ and maps errors to exit codes. The shebang gives V8 a
-// larger young generation: the build makes many short-lived objects (measured: a 10k-work build ran about 30% faster).
+// larger young generation: the build makes many short-lived objects (measured: a 10k-work build ran about 30% faster);
+// and lets the old generation grow by 30% over what survived the last full collection instead of V8's own, larger
+// factor (measured at 1M works: peak RSS 4.4 → 3.3 GiB at the same build time).
 import { Command, CommanderError } from 'commander';
 import { UserError, EXIT } from '../errors.js';
 import { commands } from './commands.js';
