@@ -51,6 +51,8 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
     throw new UserError({ file: label, line: 0, field: ID(node), message, hint });
   };
 
+  /** Whether a shape is itself an rdfs:Class (then it has an implicit class target, SHACL §2.1.3.3). */
+  const isClass = (node: N3.Term) => store.getQuads(node, RDF_TYPE, iri('rdfs', 'Class'), null).length > 0;
   const list = (head: N3.Term): N3.Term[] => {
     const items: N3.Term[] = [];
     for (let n: N3.Term | null = head; n && n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0] ?? null) {
@@ -89,7 +91,7 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
         classes: [
           ...objects(node, 'targetClass').map(ID),
           // implicit class target (SHACL §2.1.3.3): the shape is itself an rdfs:Class
-          ...(store.has(N3.DataFactory.quad(node as N3.Quad_Subject, N3.DataFactory.namedNode(RDF_TYPE), N3.DataFactory.namedNode(iri('rdfs', 'Class')))) ? [key] : []),
+          ...(isClass(node) ? [key] : []),
         ],
         subjectsOf: objects(node, 'targetSubjectsOf').map(ID),
         objectsOf: objects(node, 'targetObjectsOf').map(ID),
@@ -130,7 +132,7 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
   }
   for (const type of ['NodeShape', 'PropertyShape']) {
     for (const s of store.getSubjects(RDF_TYPE, sh(type), null)) {
-      if (store.has(N3.DataFactory.quad(s as N3.Quad_Subject, N3.DataFactory.namedNode(RDF_TYPE), N3.DataFactory.namedNode(iri('rdfs', 'Class'))))) starts.set(ID(s), s);
+      if (isClass(s)) starts.set(ID(s), s);
       compile(s); // checked for refused parameters even when nothing targets it
     }
   }
