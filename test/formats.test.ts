@@ -8,7 +8,7 @@ import N3 from 'n3';
 import { build } from '../src/pipeline.js';
 import { DUMP_FORMATS, FORMATS } from '../src/rdf/formats.js';
 import { READ_FORMATS } from '../src/rdf/read.js';
-import { releaseSummary, releaseSummaryText } from '../src/publish/summary.js';
+import { releaseSummary, releaseSummaryText } from '../src/cli/build-summary.js';
 import { iri } from '../src/namespaces.js';
 import { fixtureCopy, json, repoRoot, tempDir } from './helpers/fixture.js';
 
