@@ -9,7 +9,7 @@ import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
 import { analyse, type Analysis } from './analyse/index.js';
 import { writeReports } from './report/index.js';
-import { loadVocabMap } from './rdf/vocab-map.js';
+import { loadVocabMap, type VocabMap } from './rdf/vocab-map.js';
 import { releaseView } from './rdf/view.js';
 import { releaseStream } from './rdf/stream.js';
 import { shaclGate } from './validate/gate.js';
@@ -44,6 +44,8 @@ export interface BuildResult {
   links: LinkSet;
   clustering: Clustering;
   analysis: Analysis;
+  /** The vocab map the release was written with (claim kind + status → predicate). */
+  vocab: VocabMap;
   publish: PublishResult;
   /** Changes against the previous release, when there is one. */
   changes?: Changes;
@@ -111,6 +113,6 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     await writeChanges(dir, history);
     await writeChecksums(dir, dumps.hashes);
     const publish: PublishResult = { triples: dumps.triples, claims: units.claims(), validation, hashes: dumps.hashes };
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, publish, changes: history.changes };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab: view.vocab, publish, changes: history.changes };
   });
 }
