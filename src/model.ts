@@ -39,6 +39,12 @@ export interface Policy {
   minOverlap: number;
 }
 
+/** A decisions file as the project names it: `delimiter` absent = detected from the header line. */
+export interface DecisionFile {
+  file: string;
+  delimiter?: string;
+}
+
 /** The project file after validation, with every path resolved against the project file's folder. */
 export interface ProjectConfig {
   title: string;
@@ -47,7 +53,7 @@ export interface ProjectConfig {
   publisher: { name: string; homepage?: string };
   partners: PartnerConfig[];
   evidence: { file: string; run?: RunConfig }[];
-  decisions: string[];
+  decisions: DecisionFile[];
   gold?: string;
   policy: Policy;
   previous?: string;

@@ -111,7 +111,7 @@ test('a filled-in review queue is a valid decisions file (read by header name, e
   const keys = m.project.partners.map((p) => p.key);
   const out: Decision[] = [];
   const problems = new ProblemList();
-  await loadDecisions(file, { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex }, out, problems);
+  await loadDecisions({ file }, { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex }, out, problems);
   assert.deepEqual(problems.items, []);
   assert.equal(out.length, rows.length - 1);
   out.forEach((d, i) => {

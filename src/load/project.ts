@@ -40,6 +40,18 @@ const PartnerSchema = z.strictObject({
   }),
 });
 
+/** Column separators a decisions file may use (a spreadsheet saves with "," ";" or tab, by locale). */
+export const DECISION_DELIMITERS = [',', ';', '\t', '|'] as const;
+
+/** A decisions file: a path, or `{ "file", "delimiter" }` to set the separator instead of detecting it. */
+const DecisionFileSchema = z.preprocess(
+  (v) => (typeof v === 'string' ? { file: v } : v),
+  z.strictObject({
+    file: nonEmpty,
+    delimiter: z.enum(DECISION_DELIMITERS, { message: 'delimiter must be one of "," ";" "\\t" "|" (leave it out to detect it from the header)' }).optional(),
+  }),
+);
+
 const RunSchema = z.strictObject({
   id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, { message: 'run id: letters, digits, . _ - only' }),
   software: nonEmpty,
@@ -68,7 +80,7 @@ export const ProjectSchema = z.strictObject({
   publisher: z.strictObject({ name: nonEmpty, homepage: iri('homepage').optional() }),
   partners: z.array(PartnerSchema).min(1, { message: 'at least one partner is needed' }),
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
-  decisions: z.array(nonEmpty).default([]),
+  decisions: z.array(DecisionFileSchema).default([]),
   gold: nonEmpty.optional(),
   policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 }),
   previous: nonEmpty.optional(),
@@ -91,7 +103,7 @@ function keysAt(pathParts: PropertyKey[]): string[] {
   const unwrap = () => {
     for (;;) {
       if (s && wrappers.has(s.def?.type)) s = s.def.innerType;
-      else if (s?.def?.type === 'pipe') s = s.def.in;
+      else if (s?.def?.type === 'pipe') s = s.def.in?.def?.type === 'transform' ? s.def.out : s.def.in; // z.preprocess: the schema after the transform
       else return;
     }
   };
@@ -189,7 +201,7 @@ export function loadProjectFile(file: string): ProjectConfig {
     ...p,
     partners: p.partners.map((x) => ({ ...x, catalogue: { ...x.catalogue, file: abs(x.catalogue.file) } })),
     evidence: p.evidence.map((e) => ({ ...e, file: abs(e.file) })),
-    decisions: p.decisions.map(abs),
+    decisions: p.decisions.map((d) => ({ ...d, file: abs(d.file) })),
     gold: p.gold === undefined ? undefined : abs(p.gold),
     previous: p.previous === undefined ? undefined : abs(p.previous),
     vocabMap: p.vocabMap === undefined ? undefined : abs(p.vocabMap),
