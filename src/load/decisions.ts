@@ -1,10 +1,10 @@
 // Curators' decision files (as spreadsheets save them) and the hand-made gold concordance → work pairs.
 import type { Problem, ProblemList } from '../errors.js';
 import type { Decision, DecisionFile, GoldPair, Verdict } from '../model.js';
-import { firstLine, sniffDelimiter } from './delimiter.js';
+import { firstLine, sniffDelimiter } from '../io/delimiter.js';
 import { readTable } from './table.js';
 import { resolveRef, type RefResolver } from './refs.js';
-import { didYouMean } from './did-you-mean.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 export const VERDICTS: readonly Verdict[] = ['same', 'part', 'related', 'distinct'];
 

@@ -1,7 +1,7 @@
 // A catalogue export → its delimiter (tab, ';', ',' or '|'), header and a sample of rows.
-export { DELIMITERS, sniffDelimiter } from '../load/delimiter.js';
-import { firstLine, sniffDelimiter } from '../load/delimiter.js';
-import { readCsv } from '../load/csv.js';
+export { DELIMITERS, sniffDelimiter } from '../io/delimiter.js';
+import { firstLine, sniffDelimiter } from '../io/delimiter.js';
+import { readCsv } from '../io/csv-read.js';
 import { UserError } from '../errors.js';
 
 function headerLine(file: string): string {
