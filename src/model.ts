@@ -20,6 +20,8 @@ export interface PartnerConfig {
   workIri: string;
   imageIri: string;
   recordPage?: string;
+  /** Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service). */
+  imageView?: string;
   centuryConvention: CenturyConvention;
   catalogue: { file: string; delimiter: string; columns: ColumnMap };
 }
@@ -59,7 +61,8 @@ export interface ProjectConfig {
   previous?: string;
   vocabMap?: string;
   /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
-  release: { version: string; issued?: string; partnerDumps?: boolean };
+  /** `csv`: how review-queue.csv, conflicts.csv and clusters.csv are written (absent = spreadsheet: BOM, CRLF). */
+  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain' };
   description?: string;
 }
 

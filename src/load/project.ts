@@ -32,6 +32,7 @@ const PartnerSchema = z.strictObject({
   workIri: z.string(),
   imageIri: z.string(),
   recordPage: z.string().optional(),
+  imageView: z.string().optional(),
   centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
   catalogue: z.strictObject({
     file: nonEmpty,
@@ -91,8 +92,10 @@ export const ProjectSchema = z.strictObject({
       issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional(),
       /** Write partners/<key>.{ttl,nq,jsonld} (default true). Each slice repeats the clusters its partner takes part in. */
       partnerDumps: z.boolean().default(true),
+      /** CSV files for spreadsheets (UTF-8 with BOM, CRLF; the default) or plain (LF, no BOM) for pipelines. */
+      csv: z.enum(['spreadsheet', 'plain']).default('spreadsheet'),
     })
-    .default({ version: '0', partnerDumps: true }),
+    .default({ version: '0', partnerDumps: true, csv: 'spreadsheet' }),
 });
 
 /** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */
@@ -179,6 +182,7 @@ export function loadProjectFile(file: string): ProjectConfig {
       ['workIri', partner.workIri, 'work', ['work']],
       ['imageIri', partner.imageIri, 'image', ['image', 'work']],
       ['recordPage', partner.recordPage, 'work', ['work']],
+      ['imageView', partner.imageView, 'image', ['image', 'work']],
     ];
     for (const [field, tpl, req, allowed] of templates) {
       if (tpl === undefined) continue;
