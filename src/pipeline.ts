@@ -35,6 +35,8 @@ export interface BuildOptions {
   progress?: (stage: string) => void;
   /** Folder of the previous release; overrides the project's "previous". */
   previous?: string;
+  /** CSV files plain (LF, no BOM) instead of for spreadsheets; overrides the project's `release.csv`. */
+  csvPlain?: boolean;
 }
 
 export interface BuildResult {
@@ -84,6 +86,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   say('load');
   const { model, stats } = await load(projectFile);
   if (opts.previous) model.project.previous = path.resolve(opts.previous);
+  if (opts.csvPlain) model.project.release.csv = 'plain';
   say('link and cluster');
   const { links, clustering } = await derive(model);
   say('analyse');
@@ -109,7 +112,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
         EXIT.failure,
       );
     }
-    await writeReports(dir, model, links, clustering, analysis);
+    await writeReports(dir, model, links, clustering, analysis, view.namer);
     await writeChanges(dir, history);
     await writeChecksums(dir, dumps.hashes);
     const publish: PublishResult = { triples: dumps.triples, claims: units.claims(), validation, hashes: dumps.hashes };
