@@ -23,7 +23,7 @@ export interface PartnerConfig {
   imageIri: string;
   recordPage?: string;
   centuryConvention: CenturyConvention;
-  /** Language of the partner's date phrases; absent: every language is tried (see analyse/dates/languages.ts). */
+  /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
   language?: DateLanguage;
   catalogue: { file: string; delimiter: string; columns: ColumnMap };
 }

@@ -9,10 +9,10 @@ import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
 import { analyse, type Analysis } from './analyse/index.js';
 import { writeReports } from './report/index.js';
-import { loadVocabMap } from './rdf/vocab-map.js';
+import { loadVocabMap, type VocabMap } from './rdf/vocab-map.js';
 import type { ClusterView, ReleaseView } from './rdf/view.js';
 import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
-import { writeFolderAtomically } from './publish/atomic.js';
+import { writeFolderAtomically } from './io/atomic.js';
 import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
 import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';
@@ -42,6 +42,8 @@ export interface BuildResult {
   links: LinkSet;
   clustering: Clustering;
   analysis: Analysis;
+  /** The vocab map the release was written with (claim kind + status → predicate). */
+  vocab: VocabMap;
   publish: PublishResult;
   /** Changes against the previous release, when there is one. */
   changes?: Changes;
@@ -117,6 +119,6 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     await writeReports(dir, model, links, clustering, analysis);
     await writeChanges(dir, history);
     await writeChecksums(dir, publish.hashes);
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, publish, changes: history.changes };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab, publish, changes: history.changes };
   });
 }

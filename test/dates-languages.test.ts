@@ -1,8 +1,8 @@
 // Worked examples: date phrases in the partners' languages (en, de, fr, it, es, nl) → year intervals, and the language setting.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { type CenturyConvention, type DateForm, type DateLanguage, parseDate } from '../src/analyse/dates.js';
-import { canonicalPhrase, numeral } from '../src/analyse/dates/languages.js';
+import { type CenturyConvention, type DateForm, type DateLanguage, parseDate } from '../src/dates/index.js';
+import { canonicalPhrase, numeral } from '../src/dates/languages.js';
 
 type Row = [text: string, start: number, end: number, form: DateForm, approximate?: boolean];
 
@@ -16,7 +16,7 @@ function reads(language: DateLanguage | undefined, convention: CenturyConvention
 }
 
 // Every interval below is common practice, no source: what the words mean is the languages' ordinary use in
-// catalogues; the widths are those of src/analyse/dates/calendar.ts (ca. a year ±10, before/after 50 years,
+// catalogues; the widths are those of src/dates/calendar.ts (ca. a year ±10, before/after 50 years,
 // early/mid/late and thirds = 33/34/33 years, halves, quarters; ca. with a part of a century ±tolerance of its
 // length). Centuries with the convention unknown read as the union of ordinal (15th = 1401–1500) and ISO 8601-2
 // (1400–1499) counting, 1400–1500; the parts follow the same union (late 15th = 1467–1500).

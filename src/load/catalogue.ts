@@ -5,10 +5,10 @@ import type { Column } from '../util/columns.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { progress } from '../util/progress.js';
-import { detached } from './csv.js';
+import { detached } from '../io/csv-read.js';
 import { readTable } from './table.js';
 import { checkCatalogueDate } from './dates.js';
-import { DATE_LANGUAGES } from '../analyse/dates.js';
+import { DATE_LANGUAGES } from '../dates/index.js';
 
 /** Below this many pixels on the shorter side, visual matching gets unreliable (rule of thumb of the trade, no published source). */
 export const MIN_IMAGE_SIDE = 300;

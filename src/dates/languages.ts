@@ -1,5 +1,5 @@
 // Date phrases in the partners' own languages (de, fr, it, es, nl, en) → the canonical English phrase the parser reads.
-import type { DateLanguage } from '../../model.js';
+import type { DateLanguage } from '../model.js';
 
 export type { DateLanguage };
 
