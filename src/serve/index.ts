@@ -46,12 +46,6 @@ export function answer(root: string, m: SiteManifest, rawRel: string, accept: st
     const f = inside(path.join(root, ...segs, 'index.html'));
     return f ? { kind: 'file', file: f, type: FILE_TYPES['.html'], vary: false } : { kind: 'error', status: 404 };
   }
-  const ext = path.extname(rel);
-  const rep = REPRESENTATIONS.find((r) => r.ext === ext);
-  if (rep) {
-    const f = inside(path.join(root, ...segs).slice(0, -ext.length) + rep.file);
-    return f ? { kind: 'file', file: f, type: rep.type === 'text/html' || rep.type === 'text/turtle' ? `${rep.type}; charset=utf-8` : rep.type, vary: true } : { kind: 'error', status: 404 };
-  }
   const route = routeOf(rel);
   if (route) {
     const chosen = negotiate(accept);
@@ -61,6 +55,12 @@ export function answer(root: string, m: SiteManifest, rawRel: string, accept: st
     const base = new URL(m.base).pathname;
     const enc = (s: string) => s.split('/').map(encodeURIComponent).join('/');
     return { kind: 'redirect', location: `${base}${enc(doc)}${chosen.ext}${FRAGMENT_KINDS.has(route.kind) ? `#${enc(rel)}` : ''}` };
+  }
+  const ext = path.extname(rel);
+  const rep = REPRESENTATIONS.find((r) => r.ext === ext);
+  if (rep) {
+    const f = inside(path.join(root, ...segs).slice(0, -ext.length) + rep.file);
+    return f ? { kind: 'file', file: f, type: rep.type === 'text/html' || rep.type === 'text/turtle' ? `${rep.type}; charset=utf-8` : rep.type, vary: true } : { kind: 'error', status: 404 };
   }
   const f = inside(path.join(root, ...segs));
   return f ? { kind: 'file', file: f, type: FILE_TYPES[ext] ?? 'application/octet-stream', vary: false } : { kind: 'error', status: 404 };

@@ -46,6 +46,8 @@ export interface PageInput {
   iri?: string;
   main: Safe;
   licence?: string;
+  /** The heading's id: the path of the resource the page is about, so `#<path>` lands on it. */
+  anchor?: string;
 }
 
 /** Relative path from the page at `doc` to the site root (`work/c1` → `../`). */
@@ -78,7 +80,7 @@ ${alts.map((a) => html`<link rel="alternate" type="${a.type}" href="${a.href}" t
 </ul></nav>
 </header>
 <main id="main" tabindex="-1">
-<h1>${p.title}</h1>
+<h1${p.anchor ? html` id="${p.anchor}"` : ''}>${p.title}</h1>
 ${p.iri ? html`<p class="iri">Identifier: <code>${p.iri}</code></p>` : ''}
 ${p.main}
 </main>

@@ -1,6 +1,6 @@
 // Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
-import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync } from 'node:fs';
+import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync } from 'node:fs';
 import path from 'node:path';
 import { writeFolderAtomically } from '../publish/atomic.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
@@ -154,6 +154,9 @@ ${rs.map((r) => new Safe(r[3]))}`;
     writeFileSync(path.join(dir, 'site.json'), JSON.stringify({ base: info.base, version: info.version, dataset: info.dataset, widths: ctx.widths }, null, 2) + '\n');
     for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths))) writeFileSync(path.join(dir, name), body);
     rmSync(spoolDir, { recursive: true, force: true });
+    // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700
+    const mask = process.umask();
+    chmodSync(dir, 0o755 & ~mask);
     const { files, bytes } = measure(dir);
     return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files, bytes, widths: ctx.widths };
   });

@@ -12,6 +12,9 @@ export interface RouteRule {
   shardFolder?: string;
 }
 
+/** A segment naming a document of its own: anything but a document's file name (`2027.1.html` is the page, not a thing). */
+const NAME = '(?![^/]*\\.(?:html|ttl|jsonld|nt)$)[^/]+';
+
 /**
  * The table. Order matters (first match). Own documents: the path in group 1. Sharded kinds (millions of links,
  * matches and reviews at the largest scales; one file each would be millions of files): the first `k` hex digits
@@ -22,14 +25,15 @@ export const ROUTES: readonly RouteRule[] = [
   { kind: 'link', pattern: '^link/([0-9a-f]+)(?:/.*)?$', shardFolder: 'link' },
   { kind: 'match', pattern: '^match/([0-9a-f]+)$', shardFolder: 'match' },
   { kind: 'review', pattern: '^review/([0-9a-f]+)$', shardFolder: 'review' },
-  { kind: 'run', pattern: '^(run/[^/]+)(?:/.*)?$' },
-  { kind: 'agent', pattern: '^(agent/[^/]+/[^/]+)$' },
-  { kind: 'curator', pattern: '^(curator/[^/]+)$' },
-  { kind: 'release', pattern: '^(release/[^/]+)$' },
-  { kind: 'partner', pattern: '^(dataset/partner/[^/]+)$' },
+  { kind: 'run', pattern: `^(run/${NAME})(?:/.*)?$` },
+  { kind: 'agent', pattern: `^(agent/[^/]+/${NAME})$` },
+  { kind: 'curator', pattern: `^(curator/${NAME})$` },
+  { kind: 'release', pattern: `^(release/${NAME})$` },
+  { kind: 'partner', pattern: `^(dataset/partner/${NAME})$` },
   { kind: 'publisher', pattern: '^(dataset/publisher)$' },
-  { kind: 'dataset', pattern: '^(dataset/[^/]+)(?:/.*)?$' },
-  { kind: 'graph', pattern: '^(graph/[^/]+)$' },
+  // partner datasets and the publisher have documents of their own under dataset/ (rules above)
+  { kind: 'dataset', pattern: `^(dataset/(?!partner/|publisher$)${NAME})(?:/.*)?$` },
+  { kind: 'graph', pattern: `^(graph/${NAME})$` },
 ];
 const COMPILED = ROUTES.map((r) => ({ ...r, re: new RegExp(r.pattern) }));
 

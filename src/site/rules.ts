@@ -56,6 +56,7 @@ ${nginxHeaders({ Vary: 'Accept', 'Cache-Control': CACHE.redirect })}
     charset_types text/html text/turtle text/css text/javascript text/plain application/n-triples;
     index index.html;
     error_page 404 ${P}404.html;
+${redirects}
     location ~ "^(${P}.+)\\.nt$" {
         types { }
         default_type application/n-triples;
@@ -70,7 +71,6 @@ ${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
         try_files $uri =404;
 ${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
     }
-${redirects}
     location ${P} {
         try_files $uri $uri/ =404;
 ${nginxHeaders({ 'Cache-Control': CACHE.document })}

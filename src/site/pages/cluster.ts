@@ -38,7 +38,7 @@ export function clusterPage(ctx: SiteContext, u: ClusterUnit): string {
   if (earlier.length) sections.push(earlierSection(ctx, earlier, wv, u.doc));
   const citation = clusterCitation(ctx, u.iri, all, links.map((l) => l.node.iri));
   if (citation) sections.push(citeSection(citation));
-  return page({ doc: u.doc, title, siteTitle: ctx.info.title, alternates: true, iri: u.iri, main: html`${sections}`, licence: ctx.info.licence });
+  return page({ doc: u.doc, title, siteTitle: ctx.info.title, alternates: true, iri: u.iri, anchor: u.doc, main: html`${sections}`, licence: ctx.info.licence });
 }
 
 function recordsSection(ctx: SiteContext, works: WorkView[], doc: string): Safe {

@@ -2,6 +2,9 @@
 import { html, text, type Safe } from '../html.js';
 import { refOfWorkIri } from '../../history/names.js';
 import { V, curie, type Node, type SiteContext } from '../context.js';
+import { iri as nsIri } from '../../namespaces.js';
+
+const REVIEW = nsIri('cx', 'CuratorReview');
 
 export interface WorkView { iri: string; partner: string; partnerName: string; id: string; title?: string; date?: string; page?: string }
 
@@ -28,7 +31,8 @@ export function assertion(ctx: SiteContext, link: Node, doc: string): Safe {
   const parts: Safe[] = [];
   for (const g of link.all(V.generatedBy)) {
     const n = ctx.prov.get(g);
-    const curator = n?.one(V.associatedWith);
+    const review = n?.all(V.type).includes(REVIEW);
+    const curator = review ? n?.one(V.associatedWith) : undefined;
     const when = n?.one(V.endedAt) ?? n?.one(V.date) ?? n?.one(V.startedAt);
     const who = curator ? html`<a href="${ctx.href(curator, doc)}">${text(ctx.label(curator))}</a> (curator review <a href="${ctx.href(g, doc)}">${g.replace(/^.*\//, '')}</a>)` : html`<a href="${ctx.href(g, doc)}">${text(ctx.label(g))}</a>`;
     parts.push(html`${who}${when ? html`, <time datetime="${when}">${when}</time>` : ''}`);
