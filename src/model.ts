@@ -20,6 +20,8 @@ export interface PartnerConfig {
   workIri: string;
   imageIri: string;
   recordPage?: string;
+  /** Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service). */
+  imageView?: string;
   centuryConvention: CenturyConvention;
   catalogue: { file: string; delimiter: string; columns: ColumnMap };
 }
@@ -39,6 +41,12 @@ export interface Policy {
   minOverlap: number;
 }
 
+/** A decisions file as the project names it: `delimiter` absent = detected from the header line. */
+export interface DecisionFile {
+  file: string;
+  delimiter?: string;
+}
+
 /** The project file after validation, with every path resolved against the project file's folder. */
 export interface ProjectConfig {
   title: string;
@@ -47,13 +55,14 @@ export interface ProjectConfig {
   publisher: { name: string; homepage?: string };
   partners: PartnerConfig[];
   evidence: { file: string; run?: RunConfig }[];
-  decisions: string[];
+  decisions: DecisionFile[];
   gold?: string;
   policy: Policy;
   previous?: string;
   vocabMap?: string;
   /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
-  release: { version: string; issued?: string; partnerDumps?: boolean };
+  /** `csv`: how review-queue.csv, conflicts.csv and clusters.csv are written (absent = spreadsheet: BOM, CRLF). */
+  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain' };
   description?: string;
 }
 
