@@ -2,7 +2,7 @@
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
 import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync } from 'node:fs';
 import path from 'node:path';
-import { writeFolderAtomically } from '../publish/atomic.js';
+import { writeFolderAtomically } from '../io/atomic.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
 import { streamNQuads, type Statement } from './nquads.js';
 import { Grouper, type ClusterUnit, type Entry, type LinkEntry } from './group.js';
