@@ -12,7 +12,7 @@ import { writeReports } from './report/index.js';
 import { loadVocabMap } from './rdf/vocab-map.js';
 import type { ClusterView, ReleaseView } from './rdf/view.js';
 import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
-import { writeFolderAtomically } from './publish/atomic.js';
+import { writeFolderAtomically } from './io/atomic.js';
 import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
 import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';

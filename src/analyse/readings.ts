@@ -1,7 +1,7 @@
 // Works → their catalogued dates read as year intervals (per partner convention), and record pages; cached per work.
 import type { Model } from '../model.js';
-import { compileTemplate } from '../load/template.js';
-import { parseDate, type DateReading } from './dates.js';
+import { compileTemplate } from '../io/template.js';
+import { parseDate, type DateReading } from '../dates/index.js';
 
 /** Date reading of a work under its partner's century convention (design: centuryConvention), parsed once. */
 export function dateReader(model: Model): (w: number) => DateReading {

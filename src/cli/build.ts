@@ -17,7 +17,7 @@ export function register(program: Command): void {
     .action(async (project: string, opts: { out: string; shapes?: string; json?: boolean; previous?: string; shaclEngine: ShaclEngine }) => {
       const progress = process.stderr.isTTY ? (s: string) => process.stderr.write(`concordat: ${s}…\n`) : undefined;
       const { build } = await import('../pipeline.js'); // loaded on use: keeps --help fast
-      const { releaseSummary, releaseSummaryText } = await import('../publish/summary.js');
+      const { releaseSummary, releaseSummaryText } = await import('./build-summary.js');
       const r = await build(project, opts.out, { shapesDir: opts.shapes, progress, previous: opts.previous, shaclEngine: opts.shaclEngine });
       const s = releaseSummary(r);
       process.stdout.write(opts.json ? JSON.stringify(s, null, 2) + '\n' : releaseSummaryText(s, displayPath(r.outDir)));

@@ -10,8 +10,8 @@
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import { UserError, type Problem } from '../errors.js';
-import { readCsv } from '../load/csv.js';
-import { CsvFile } from '../util/csv-write.js';
+import { readCsv } from '../io/csv-read.js';
+import { CsvFile } from '../io/csv-write.js';
 import { clusterIdNumber } from './ids.js';
 import type { ClusterRegistry, Clustering, RetiredId } from './types.js';
 

@@ -5,7 +5,7 @@ import type { Column } from '../util/columns.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { progress } from '../util/progress.js';
-import { detached } from './csv.js';
+import { detached } from '../io/csv-read.js';
 import { readTable } from './table.js';
 import { checkCatalogueDate } from './dates.js';
 

@@ -1,5 +1,5 @@
-// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in analyse/dates).
-import { parseDate } from '../analyse/dates.js';
+// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in src/dates).
+import { parseDate } from '../dates/index.js';
 import type { CenturyConvention } from '../model.js';
 
 /**

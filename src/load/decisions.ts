@@ -3,7 +3,7 @@ import type { ProblemList } from '../errors.js';
 import type { Decision, GoldPair, Verdict } from '../model.js';
 import { readTable } from './table.js';
 import { resolveRef, type RefResolver } from './refs.js';
-import { didYouMean } from './did-you-mean.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 export const VERDICTS: readonly Verdict[] = ['same', 'part', 'related', 'distinct'];
 

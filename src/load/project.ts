@@ -4,8 +4,8 @@ import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, UserError, type Problem } from '../errors.js';
 import type { ProjectConfig } from '../model.js';
-import { checkTemplate } from './template.js';
-import { didYouMean } from './did-you-mean.js';
+import { checkTemplate } from '../io/template.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
 const iri = (what: string) =>

@@ -1,7 +1,7 @@
 // CSV rows → header-checked records: finds the named columns, reports ragged rows and header-only files.
 import type { ProblemList } from '../errors.js';
-import { readCsvBatches } from './csv.js';
-import { didYouMean } from './did-you-mean.js';
+import { readCsvBatches } from '../io/csv-read.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 export interface TableRow {
   line: number;

@@ -3,7 +3,7 @@ import type { Model } from '../model.js';
 import type { LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import { REVIEW_REASONS, formatInterval, type Analysis } from '../analyse/index.js';
-import { CsvFile } from '../util/csv-write.js';
+import { CsvFile } from '../io/csv-write.js';
 import { num, type WorkContext } from './context.js';
 
 export const CONFLICTS_HEADER = ['cluster', 'severity', 'work_a', 'work_b', 'title_a', 'title_b', 'date_a', 'date_b', 'interval_a', 'interval_b', 'page_a', 'page_b'] as const;

@@ -1,6 +1,6 @@
 // A catalogue export → its delimiter (tab, ';' or ','), header and a sample of rows.
 import { openSync, readSync, closeSync } from 'node:fs';
-import { readCsv } from '../load/csv.js';
+import { readCsv } from '../io/csv-read.js';
 import { UserError } from '../errors.js';
 
 /** Candidates in order of preference on a tie. */

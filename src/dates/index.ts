@@ -1,12 +1,12 @@
 // Catalogued date text → an interval of astronomical years (or empty / invalid); two readings → agreement.
-import { type CenturyConvention, type DateReading, EMPTY, LATEST_YEAR, invalid } from './dates/types.js';
-import { parseEdtf } from './dates/edtf.js';
-import { APPROX_PREFIX, HINT, interval, parseYearForms } from './dates/freetext.js';
-import { parseCentury } from './dates/century.js';
+import { type CenturyConvention, type DateReading, EMPTY, LATEST_YEAR, invalid } from './types.js';
+import { parseEdtf } from './edtf.js';
+import { APPROX_PREFIX, HINT, interval, parseYearForms } from './freetext.js';
+import { parseCentury } from './century.js';
 
-export type { CenturyConvention, DateForm, DateReading, EmptyReading, IntervalReading, InvalidReading, YearSpan } from './dates/types.js';
-export { LATEST_YEAR } from './dates/types.js';
-export { type DateAgreement, compareDates } from './dates/compare.js';
+export type { CenturyConvention, DateForm, DateReading, EmptyReading, IntervalReading, InvalidReading, YearSpan } from './types.js';
+export { LATEST_YEAR } from './types.js';
+export { type DateAgreement, compareDates } from './compare.js';
 
 const YEAR4 = /^\d{4}$/;
 /** `1520-22`: EDTF month/season or an abbreviated range. */
