@@ -5,7 +5,7 @@ import type { Quad } from '@rdfjs/types';
 import { UserError } from '../errors.js';
 import { compileShapes, type ValidateOptions } from './shacl.js';
 import { outcomeOf, RowMerger, type ResultRow, type ValidationOutcome } from './report.js';
-import { encodeQuads, type WorkerInit, type WorkerReply } from './wire.js';
+import { encodeQuads, type WorkerInit, type WorkerReply, type WorkerTask } from './wire.js';
 
 export { writeValidationReport } from './report.js';
 
@@ -24,7 +24,7 @@ interface Slot {
 }
 
 /** A fixed set of workers, each validating one batch at a time. */
-class Pool {
+export class Pool {
   private readonly slots: Slot[] = [];
   private readonly free: Slot[] = [];
   private readonly waiting: Array<(slot: Slot) => void> = [];
@@ -49,19 +49,24 @@ class Pool {
 
   /** Runs one batch on an acquired worker and frees it afterwards. */
   run(slot: Slot, quads: string): Promise<ResultRow[]> {
+    return this.reply(slot, (id) => ({ id, quads })).then((r) => r.rows);
+  }
+
+  /** Sends one task on an acquired worker, frees it afterwards and resolves with its rows. */
+  reply(slot: Slot, task: (id: number) => WorkerTask): Promise<{ rows: ResultRow[]; ownTriples?: number }> {
     const id = this.nextId++;
-    return new Promise<ResultRow[]>((resolve, reject) => {
+    return new Promise((resolve, reject) => {
       slot.settle = (reply) => {
         slot.settle = undefined;
         const next = this.waiting.shift();
         if (next) next(slot);
         else this.free.push(slot);
         if (reply instanceof Error) reject(reply);
-        else if ('rows' in reply && reply.id === id) resolve(reply.rows);
+        else if ('rows' in reply && reply.id === id) resolve(reply);
         else if ('problems' in reply) reject(new UserError(reply.problems));
         else reject(new Error('error' in reply ? reply.error : 'validation worker answered out of turn'));
       };
-      slot.worker.postMessage({ id, quads });
+      slot.worker.postMessage(task(id));
     });
   }
 
