@@ -9,10 +9,11 @@ import { progress } from '../util/progress.js';
 import { datasetUnit } from '../rdf/dataset.js';
 import type { ReleaseView } from '../rdf/view.js';
 import { writeQuads } from '../rdf/serialize.js';
-import { validateChunks, writeValidationReport, type ValidationChunk } from '../validate/chunked.js';
+import { BoundedValidation } from '../validate/bounded.js';
+import { writeValidationReport } from '../validate/report.js';
 import type { ShaclEngine, ValidationOutcome } from '../validate/shacl.js';
 import { outcomeOf } from '../validate/report.js';
-import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
+import { ReleaseWriter } from './rdf-files.js';
 
 export interface PublishOptions {
   shapes: Quad[];
@@ -21,7 +22,7 @@ export interface PublishOptions {
   /** Extra units appended before the dataset description (e.g. changes against the previous release). */
   extraUnits?: Unit[];
   workers?: number;
-  /** Quads per SHACL batch (default: validateChunks' own). */
+  /** Own triples per SHACL batch (default: BoundedValidation's own). */
   validationBatch?: number;
   /** SHACL engine (default: the built-in core engine). */
   shaclEngine?: ShaclEngine;
@@ -46,7 +47,6 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const namer = new Namer(view.model, view.vocab.iris);
   const counts: LinksetCounts = new Map();
   const writer = new ReleaseWriter(dir, view.model.project.release.partnerDumps === false ? null : view.model.project.partners.map((p) => p.key));
-  let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
   // links outside every cluster become units of their own: counted for the progress bar (a byte per link)
   const inClusters = new Uint8Array(view.links.links.length);
@@ -55,34 +55,26 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   view.links.links.forEach((l, i) => { if (!inClusters[i] && isPublished(l)) stray++; });
   const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
   let done = 0;
-  /** Validation chunks are only built when SHACL runs. */
-  const validating = opts.validate !== false;
-  async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
-    for (const unit of releaseUnits(view, namer, counts)) {
-      bar.update(++done);
-      if (unit.kind === 'provenance' && validating) typeIndex = typeIndexOf(unit);
-      await writer.add(unit);
-      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
-    }
-    for (const unit of opts.extraUnits ?? []) {
-      bar.update(++done);
-      await writer.add(unit);
-      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
-    }
-    const ds = datasetUnit(view.model, namer, counts, opts.previousVersion);
-    datasetQuads = ds.quads;
-    await writer.add(ds);
-    yield ds.quads;
+  // SHACL sees exactly the published triples (the whole graph of concordance.nq plus dataset.ttl), in bounded memory
+  const shacl = opts.validate === false ? null
+    : new BoundedValidation(opts.shapes, { workers: opts.workers, batchTriples: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine, dataLabel: 'the release' });
+  async function write(unit: Unit): Promise<void> {
+    bar.update(++done);
+    await writer.add(unit);
+    if (shacl) for (const q of unit.quads) shacl.add(q);
   }
   let validation: ValidationOutcome;
   let hashes: Map<string, string>;
   try {
-    if (opts.validate === false) {
-      for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
-      validation = outcomeOf([]);
-    } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
+    for (const unit of releaseUnits(view, namer, counts)) await write(unit);
+    for (const unit of opts.extraUnits ?? []) await write(unit);
+    const ds = datasetUnit(view.model, namer, counts, opts.previousVersion);
+    datasetQuads = ds.quads;
+    await write(ds);
+    validation = shacl ? await shacl.finish() : outcomeOf([]);
     hashes = await writer.close();
   } catch (e) {
+    shacl?.cleanup();
     await writer.abort();
     throw e;
   } finally {

@@ -21,17 +21,10 @@ export interface BatchData {
 /** Reads a batch's files: own triples first (counted once each), then context and subclass triples. */
 export function readBatch(task: BatchTask): BatchData {
   const ids: string[] = [];
-  const seen = new Set<string>();
-  for (const b of task.owned) {
-    for (const t of readLines<Triple>(fileOf(task.dir, 'own', b))) {
-      const key = `${t[0]}\u0000${t[1]}\u0000${t[2]}`;
-      if (seen.has(key)) continue;
-      seen.add(key);
-      ids.push(t[0], t[1], t[2], '');
-    }
-  }
-  const ownTriples = seen.size;
-  seen.clear();
+  // a triple's line is the same bytes wherever it was read, and it lies in its subject's bucket only: distinct lines
+  // per bucket are distinct triples
+  for (const b of task.owned) for (const t of readLines<Triple>(fileOf(task.dir, 'own', b), true)) ids.push(t[0], t[1], t[2], '');
+  const ownTriples = ids.length / 4;
   for (const b of task.owned) for (const t of readLines<Triple>(fileOf(task.dir, 'ctx', b))) ids.push(t[0], t[1], t[2], '');
   for (const t of task.subclass) ids.push(t[0], t[1], t[2], '');
   const owned = new Set(task.owned);

@@ -7,7 +7,7 @@ import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
 import { UserError } from '../errors.js';
 import { readBatch, type BatchTask } from './batch.js';
-import { Pool } from './chunked.js';
+import { Pool } from './pool.js';
 import { footprintOf, type Footprint } from './footprint.js';
 import { outcomeOf, type ResultRow, type ValidationOutcome } from './report.js';
 import { compileShapes, type CompiledShapes, type ValidateOptions } from './shacl.js';

@@ -64,65 +64,83 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
   let stop = false;
   const unbounded = (why: string) => { result.unbounded ??= why; stop = true; };
 
-  /** Depths the values of `path` are found at, from nodes at `depths` (SHACL §2.3.1), recording each lookup. */
-  function walk(path: PathTree, depths: Set<number>, shape: string): Set<number> {
-    const out = new Set<number>();
-    if (stop) return out;
+  /**
+   * Where a path leads: a depth, and `commit`, which records the moves that lead there. Moves are recorded only when
+   * something is read at the node they reach, so a value that is only compared (sh:datatype, sh:in, …) costs no context.
+   */
+  type Pos = { depth: number; commit: () => void };
+  const reached = (from: Pos, move: 'fwd' | 'inv', p: string): Pos => {
+    let done = false;
+    return { depth: from.depth + 1, commit: () => { if (!done) { done = true; from.commit(); at(from.depth)[move].add(p); } } };
+  };
+
+  /** The positions the values of `path` are found at from `from` (SHACL §2.3.1), recording each lookup. */
+  function walk(path: PathTree, from: Pos[], shape: string): Pos[] {
+    if (stop) return [];
+    let out: Pos[] = [];
     if (typeof path === 'string') {
-      for (const d of depths) { at(d).out.add(path); at(d).fwd.add(path); out.add(d + 1); }
+      for (const f of from) { at(f.depth).out.add(path); f.commit(); out.push(reached(f, 'fwd', path)); }
     } else if ('inverse' in path) {
-      if (typeof path.inverse === 'string') {
-        for (const d of depths) { at(d).in.add(path.inverse); at(d).inv.add(path.inverse); out.add(d + 1); }
-      } else return walk(flip(path.inverse), depths, shape);
+      if (typeof path.inverse !== 'string') return walk(flip(path.inverse), from, shape);
+      for (const f of from) { at(f.depth).in.add(path.inverse); f.commit(); out.push(reached(f, 'inv', path.inverse)); }
     } else if ('sequence' in path) {
-      let current = depths;
-      for (const step of path.sequence) current = walk(step, current, shape);
-      return current;
+      out = from;
+      for (const step of path.sequence) out = walk(step, out, shape);
     } else if ('alternative' in path) {
-      for (const alt of path.alternative) for (const d of walk(alt, depths, shape)) out.add(d);
+      for (const alt of path.alternative) out.push(...walk(alt, from, shape));
     } else if ('zeroOrOne' in path) {
-      for (const d of depths) out.add(d);
-      for (const d of walk(path.zeroOrOne, depths, shape)) out.add(d);
+      out = [...from, ...walk(path.zeroOrOne, from, shape)];
     } else unbounded(`${shape} uses a path of any length (sh:zeroOrMorePath or sh:oneOrMorePath)`);
-    for (const d of out) if (d > MAX_DEPTH) unbounded(`${shape} reads data more than ${MAX_DEPTH} hops from its focus node`);
+    if (out.some((p) => p.depth > MAX_DEPTH) || out.length > 10_000) {
+      unbounded(`${shape} reads data more than ${MAX_DEPTH} hops from its focus node`);
+      return [];
+    }
     return out;
   }
 
-  const done = new Set<string>();
+  /** Per (shape, depth) visited: whether validating a node there reads anything at or beyond it. */
+  const done = new Map<string, boolean>();
   const onStack = new Map<string, number>();
-  /** Records what validating a node at `depth` against `node` reads (SHACL §3.4), recursing into referenced shapes. */
-  function visit(node: N3.Term, depth: number): void {
+  /** Records what validating the node at `pos` against shape `node` reads (SHACL §3.4), recursing into referenced
+   *  shapes; returns whether anything is read at or beyond `pos` (then its moves are committed). */
+  function visit(node: N3.Term, pos: Pos): void {
     const key = ID(node);
-    if (stop || done.has(`${key} ${depth}`)) return;
-    if (objects(node, 'deactivated').some((t) => t.value === 'true')) return;
+    if (stop || objects(node, 'deactivated').some((t) => t.value === 'true')) return;
+    const memo = done.get(`${key} ${pos.depth}`);
+    if (memo !== undefined) { if (memo) pos.commit(); return; }
     const shallower = onStack.get(key);
     if (shallower !== undefined) {
-      // a shape reached from itself: at the same depth it adds nothing; deeper it would go on for ever
-      if (shallower < depth) unbounded(`${key} reaches itself through a path, so its reach has no bound`);
+      // a shape reached from itself: at the same depth it reads nothing new (its node is kept, to be safe: what the
+      // outer visit reads is not known yet); deeper it would go on for ever
+      if (shallower < pos.depth) unbounded(`${key} reaches itself through a path, so its reach has no bound`);
+      pos.commit();
       return;
     }
-    done.add(`${key} ${depth}`);
-    onStack.set(key, depth);
+    onStack.set(key, pos.depth);
+    let reads = false;
+    const probe: Pos = { depth: pos.depth, commit: () => { reads = true; pos.commit(); } };
+    const read = (p: Pos, what: (l: Level) => void) => { what(at(p.depth)); p.commit(); };
     const pathNode = objects(node, 'path')[0];
-    const values = pathNode ? walk(readPath(store, pathNode), new Set([depth]), key) : new Set([depth]);
-    for (const d of values) {
-      if (objects(node, 'class').length > 0) { at(d).out.add(RDF_TYPE); }
-      if (objects(node, 'closed').some((t) => t.value === 'true')) at(d).all = true;
-      for (const local of SHAPE_PARAMS) for (const s of objects(node, local)) visit(s, d);
-      for (const local of LIST_PARAMS) for (const head of objects(node, local)) for (const s of list(head)) visit(s, d);
+    const values = pathNode ? walk(readPath(store, pathNode), [probe], key) : [probe];
+    for (const v of values) {
+      if (objects(node, 'class').length > 0) read(v, (l) => l.out.add(RDF_TYPE));
+      if (objects(node, 'closed').some((t) => t.value === 'true')) read(v, (l) => { l.all = true; });
+      for (const local of SHAPE_PARAMS) for (const s of objects(node, local)) visit(s, v);
+      for (const local of LIST_PARAMS) for (const head of objects(node, local)) for (const s of list(head)) visit(s, v);
       for (const s of objects(node, 'property')) {
         if (pathNode) result.nestedFocus ??= key;
-        visit(s, d);
+        visit(s, v);
       }
       // sh:qualifiedValueShapesDisjoint: value nodes are also checked against the siblings' qualified shapes
       if (objects(node, 'qualifiedValueShapesDisjoint').some((t) => t.value === 'true')) {
         for (const parent of store.getSubjects(sh('property'), node, null))
           for (const sibling of store.getObjects(parent, sh('property'), null))
-            for (const q of objects(sibling, 'qualifiedValueShape')) visit(q, d);
+            for (const q of objects(sibling, 'qualifiedValueShape')) visit(q, v);
       }
     }
-    for (const local of PAIR_PARAMS) for (const p of objects(node, local)) at(depth).out.add(p.value);
+    for (const local of PAIR_PARAMS) for (const p of objects(node, local)) read(probe, (l) => l.out.add(p.value));
     onStack.delete(key);
+    done.set(`${key} ${pos.depth}`, reads);
   }
 
   const starts = new Map<string, N3.Term>();
@@ -135,12 +153,7 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     if (objects(s, 'deactivated').some((t) => t.value === 'true')) continue;
     for (const p of objects(s, 'targetObjectsOf')) result.objectsOf.add(p.value);
     // targetClass and the implicit class target read the focus node's own rdf:type (level 0 holds every own triple)
-    visit(s, 0);
-  }
-  // a lookup at the deepest level leads nowhere: drop moves into levels nothing is read at
-  for (let d = 0; d < result.levels.length; d++) {
-    const next = result.levels[d + 1];
-    if (!next || (next.out.size === 0 && !next.all && next.in.size === 0)) { result.levels[d].fwd.clear(); result.levels[d].inv.clear(); }
+    visit(s, { depth: 0, commit: () => undefined });
   }
   while (result.levels.length > 1 && isEmpty(result.levels[result.levels.length - 1])) result.levels.pop();
   return result;

@@ -23,8 +23,10 @@ export function bucketOf(id: string, buckets: number): number {
   return (h >>> 0) % buckets;
 }
 
-/** File kinds of one bucket: own triples, context triples, triples by object (inverse lookups), requests of round k. */
-export const fileOf = (dir: string, kind: 'own' | 'ctx' | 'inv' | `req${number}`, bucket: number) => join(dir, `${kind}-${bucket}.jsonl`);
+/** File kinds of one bucket: own triples, context triples, own triples looked up beyond level 0 (by subject) and
+ *  triples pointing at its nodes (by object, for inverse paths), requests of round k. */
+export type FileKind = 'own' | 'ctx' | 'look' | 'inv' | `req${number}`;
+export const fileOf = (dir: string, kind: FileKind, bucket: number) => join(dir, `${kind}-${bucket}.jsonl`);
 
 /** Appends JSON lines to many files through per-file buffers. */
 class Appender {
@@ -49,13 +51,15 @@ class Appender {
   }
 }
 
-/** Reads a JSON-lines file written by {@link Appender} (each line an array) into arrays; a missing file is empty. */
-export function readLines<T>(file: string): T[] {
+/** Reads a JSON-lines file written by {@link Appender} (each line an array) into arrays; a missing file is empty.
+ *  With `distinct`, repeated lines are read once. */
+export function readLines<T>(file: string, distinct = false): T[] {
   if (!existsSync(file)) return [];
   const text = readFileSync(file, 'utf8');
   if (text.length === 0) return [];
   // raw newlines only separate lines: JSON escapes those inside strings
-  return JSON.parse(`[${text.slice(0, -1).replace(/\n/g, ',')}]`) as T[];
+  const body = distinct ? [...new Set(text.slice(0, -1).split('\n'))].join(',') : text.slice(0, -1).replace(/\n/g, ',');
+  return JSON.parse(`[${body}]`) as T[];
 }
 
 /** Limits that bound memory; exceeding one is refused with a message naming it. */
@@ -71,9 +75,20 @@ export class Spill {
   readonly subclass: Triple[] = [];
   readonly bucketTriples: number[];
   private readonly deeperIn: Set<string>;
+  private readonly deeperOut: Set<string> | 'all';
+  private readonly paths = new Map<FileKind, string[]>();
   constructor(readonly dir: string, readonly buckets: number, readonly footprint: Footprint) {
     this.bucketTriples = new Array<number>(buckets).fill(0);
-    this.deeperIn = new Set(footprint.levels.slice(1).flatMap((l) => [...l.in]));
+    const deeper = footprint.levels.slice(1);
+    this.deeperIn = new Set(deeper.flatMap((l) => [...l.in]));
+    this.deeperOut = deeper.some((l) => l.all) ? 'all' : new Set(deeper.flatMap((l) => [...l.out]));
+  }
+
+  /** The file of a kind and bucket (names made once). */
+  private file(kind: FileKind, bucket: number): string {
+    let names = this.paths.get(kind);
+    if (!names) this.paths.set(kind, (names = Array.from({ length: this.buckets }, (_, b) => fileOf(this.dir, kind, b))));
+    return names[bucket];
   }
 
   /** Files one triple: to its subject's bucket, as context of its object's bucket where level 0 reads it, and as requests. */
@@ -81,14 +96,15 @@ export class Spill {
     const [s, p, o] = t;
     const line = JSON.stringify(t) + '\n';
     const bs = bucketOf(s, this.buckets);
-    this.out.write(fileOf(this.dir, 'own', bs), line);
+    this.out.write(this.file('own', bs), line);
     this.bucketTriples[bs]++;
+    if (this.deeperOut !== 'all' && this.deeperOut.has(p)) this.out.write(this.file('look', bs), line);
     const l0 = this.footprint.levels[0];
-    const bo = p === SUBCLASS_OF || l0.in.has(p) || this.footprint.objectsOf.has(p) || this.deeperIn.has(p) || l0.inv.has(p) || l0.fwd.has(p) ? bucketOf(o, this.buckets) : -1;
-    if (l0.in.has(p) || this.footprint.objectsOf.has(p)) this.out.write(fileOf(this.dir, 'ctx', bo), line);
-    if (this.deeperIn.has(p)) this.out.write(fileOf(this.dir, 'inv', bo), line);
-    if (l0.fwd.has(p) && this.leadsTo(1, o)) this.out.write(fileOf(this.dir, 'req1', bo), JSON.stringify([o, bs]) + '\n');
-    if (l0.inv.has(p)) this.out.write(fileOf(this.dir, 'req1', bs), JSON.stringify([s, bo]) + '\n');
+    const bo = l0.in.has(p) || this.footprint.objectsOf.has(p) || this.deeperIn.has(p) || l0.inv.has(p) || l0.fwd.has(p) ? bucketOf(o, this.buckets) : -1;
+    if (l0.in.has(p) || this.footprint.objectsOf.has(p)) this.out.write(this.file('ctx', bo), line);
+    if (this.deeperIn.has(p)) this.out.write(this.file('inv', bo), line);
+    if (l0.fwd.has(p) && this.leadsTo(1, o)) this.out.write(this.file('req1', bo), JSON.stringify([o, bs]) + '\n');
+    if (l0.inv.has(p)) this.out.write(this.file('req1', bs), JSON.stringify([s, bo]) + '\n');
     if (p === SUBCLASS_OF) {
       if (this.subclass.length >= SUBCLASS_LIMIT) throw new RangeError('subclass');
       this.subclass.push(t);
@@ -112,12 +128,12 @@ export class Spill {
     for (let k = 1; k < levels.length; k++) {
       const level = levels[k];
       for (let c = 0; c < this.buckets; c++) {
-        const requests = readLines<[string, number]>(fileOf(this.dir, `req${k}`, c));
+        const requests = readLines<[string, number]>(this.file(`req${k}`, c));
         if (requests.length === 0) continue;
         const bySubject = new Map<string, Triple[]>();
         const byObject = new Map<string, Triple[]>();
-        for (const t of readLines<Triple>(fileOf(this.dir, 'own', c))) push(bySubject, t[0], t);
-        if (level.in.size > 0) for (const t of readLines<Triple>(fileOf(this.dir, 'inv', c))) push(byObject, t[2], t);
+        for (const t of readLines<Triple>(this.file(this.deeperOut === 'all' ? 'own' : 'look', c))) push(bySubject, t[0], t);
+        if (level.in.size > 0) for (const t of readLines<Triple>(this.file('inv', c))) push(byObject, t[2], t);
         const answered = new Set<string>();
         for (const [n, b] of requests) {
           const key = `${b} ${n}`;
@@ -125,13 +141,13 @@ export class Spill {
           answered.add(key);
           for (const t of bySubject.get(n) ?? []) {
             if (!level.all && !level.out.has(t[1])) continue;
-            this.out.write(fileOf(this.dir, 'ctx', b), JSON.stringify(t) + '\n');
-            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2])) this.out.write(fileOf(this.dir, `req${k + 1}`, bucketOf(t[2], this.buckets)), JSON.stringify([t[2], b]) + '\n');
+            this.out.write(this.file('ctx', b), JSON.stringify(t) + '\n');
+            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2])) this.out.write(this.file(`req${k + 1}`, bucketOf(t[2], this.buckets)), JSON.stringify([t[2], b]) + '\n');
           }
           for (const t of byObject.get(n) ?? []) {
             if (!level.in.has(t[1])) continue;
-            this.out.write(fileOf(this.dir, 'ctx', b), JSON.stringify(t) + '\n');
-            if (level.inv.has(t[1])) this.out.write(fileOf(this.dir, `req${k + 1}`, bucketOf(t[0], this.buckets)), JSON.stringify([t[0], b]) + '\n');
+            this.out.write(this.file('ctx', b), JSON.stringify(t) + '\n');
+            if (level.inv.has(t[1])) this.out.write(this.file(`req${k + 1}`, bucketOf(t[0], this.buckets)), JSON.stringify([t[0], b]) + '\n');
           }
         }
       }
