@@ -68,7 +68,7 @@ test('a citation\'s image matches are exactly the evidence rows behind the link 
 test('a curator-confirmed claim names the curator and date of the deciding row of the decisions file', async () => {
   await ready;
   const p = loadProjectFile(project);
-  const decisions = await rows(p.decisions[0]);
+  const decisions = await rows(p.decisions[0].file);
   const last = new Map<string, string[]>();
   for (const d of decisions) last.set([d[0], d[1]].sort().join('|'), d);
   const same = [...last.values()].filter((d) => d[2] === 'same').slice(0, 5);

@@ -1,4 +1,4 @@
-// Publish stage: release view → RDF files (whole and per partner), SHACL-validated chunk by chunk, plus checksums.
+// Publish stage: release view → RDF files (whole and per partner), SHACL-validated in bounded memory, plus checksums.
 import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { readdir, writeFile } from 'node:fs/promises';
@@ -41,7 +41,7 @@ export interface PublishResult {
 
 /**
  * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld}, dataset.ttl and validation.ttl into `dir`
- * (design, "Outputs"), validating each unit with the shared provenance it points to (SHACL per chunk keeps memory flat).
+ * (design, "Outputs"); SHACL validates the published triples with the whole-graph outcome in bounded memory (bounded.ts).
  */
 export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOptions): Promise<PublishResult> {
   const namer = new Namer(view.model, view.vocab.iris);
