@@ -64,10 +64,17 @@ export class BoundedValidation {
   private dir: string | null = null;
   private refused: UserError | null = null;
   private readonly removeOnExit = () => this.cleanup();
+  private readonly compiled: CompiledShapes;
 
+  /** Compiles the shapes at once, so a shapes graph the engine refuses fails before any data is read. */
   constructor(private readonly shapes: Quad[], private readonly opts: BoundedOptions = {}) {
+    this.compiled = compileShapes(shapes, this.options);
     this.footprint = footprintOf(shapes);
     this.whole = wholeReason(this.footprint, opts);
+  }
+
+  private get options(): ValidateOptions {
+    return { shapesLabel: this.opts.shapesLabel, maxErrors: this.opts.maxErrors, engine: this.opts.engine };
   }
 
   private get limit(): number {
@@ -125,13 +132,12 @@ export class BoundedValidation {
   async finish(): Promise<BoundedOutcome> {
     try {
       if (this.refused) throw this.refused;
-      const options = { shapesLabel: this.opts.shapesLabel, maxErrors: this.opts.maxErrors, engine: this.opts.engine };
       if (!this.spill) {
-        const rows = await compileShapes(this.shapes, options).rowsOfIds(this.ids);
+        const rows = await this.compiled.rowsOfIds(this.ids);
         return { ...outcomeOf(rows), triples: this.keys.size, mode: 'whole' };
       }
       this.spill.gather();
-      const { rows, triples } = await this.batches(this.spill, options);
+      const { rows, triples } = await this.batches(this.spill);
       return { ...outcomeOf(rows), triples, mode: 'batches' };
     } finally {
       this.cleanup();
@@ -139,7 +145,7 @@ export class BoundedValidation {
   }
 
   /** Groups consecutive buckets into batches of at least `batchTriples` own triples and validates each once. */
-  private async batches(spill: Spill, options: ValidateOptions): Promise<{ rows: ResultRow[]; triples: number }> {
+  private async batches(spill: Spill): Promise<{ rows: ResultRow[]; triples: number }> {
     const target = this.opts.batchTriples ?? 100_000;
     const tasks: BatchTask[] = [];
     let owned: number[] = [];
@@ -161,14 +167,13 @@ export class BoundedValidation {
     };
     const workers = this.opts.workers ?? 2;
     if (workers === 0) {
-      const compiled: CompiledShapes = compileShapes(this.shapes, options);
       for (const task of tasks) {
         const { ids, ownTriples, owns } = readBatch(task);
-        collect({ rows: await compiled.rowsOfIds(ids, owns), ownTriples });
+        collect({ rows: await this.compiled.rowsOfIds(ids, owns), ownTriples });
       }
       return { rows, triples };
     }
-    const pool = new Pool(Math.min(workers, tasks.length), { shapes: encodeQuads(this.shapes), options });
+    const pool = new Pool(Math.min(workers, tasks.length), { shapes: encodeQuads(this.shapes), options: this.options });
     try {
       const pending: Promise<void>[] = [];
       let failure: unknown = null;
