@@ -74,19 +74,26 @@ test('confidence: part links keep their best score; curators\' decisions keep wi
 });
 
 /**
- * `artworks` artworks of three records each (a photo of the painting each); the records of the first three also have
- * a mount back scan, and the nine mount backs all match each other.
+ * `artworks` artworks of three records each (a photo of the painting each, all three matching). With `dense`, the
+ * nine records of the first three artworks also have a mount back scan and the nine scans all match each other;
+ * otherwise one record of each of the first nine artworks has one, and each scan matches its four nearest in a ring
+ * (offsets ±1 and ±3), as a nearest-neighbour matcher reports look-alike scans: few triangles.
  */
-function mountBacks(hubBound: number | null, artworks = 3): Model {
+function mountBacks(hubBound: number | null, artworks = 3, dense = true): Model {
   const works: { ref: string; images: number }[] = [];
   const matches: [string, string, number][] = [];
   const partners = ['a', 'b', 'c'];
+  const backs: string[] = [];
   for (let art = 1; art <= artworks; art++) {
-    for (const p of partners) works.push({ ref: `${p}:${art}`, images: art <= 3 ? 2 : 1 });
+    partners.forEach((p, k) => {
+      const back = dense ? art <= 3 : art <= 9 && k === art % 3;
+      works.push({ ref: `${p}:${art}`, images: back ? 2 : 1 });
+      if (back) backs.push(`${p}:${art}#1`);
+    });
     matches.push([`a:${art}#0`, `b:${art}#0`, 0.9], [`b:${art}#0`, `c:${art}#0`, 0.9], [`a:${art}#0`, `c:${art}#0`, 0.9]);
   }
-  const backs = works.slice(0, 9).map((w) => `${w.ref}#1`);
-  for (let i = 0; i < backs.length; i++) for (let j = i + 1; j < backs.length; j++) matches.push([backs[i], backs[j], 0.95]);
+  for (let i = 0; i < backs.length; i++)
+    for (let j = i + 1; j < backs.length; j++) if (dense || [1, 3, 6, 8].includes(j - i)) matches.push([backs[i], backs[j], 0.95]);
   return tinyModel({ partners, works, matches, policy: { indiscriminateAbove: hubBound } });
 }
 
@@ -108,15 +115,22 @@ test('hub: a mount back matching more works than one artwork can have is indiscr
   assert.ok(c.clusters.every((k) => k.members.length === 3));
 });
 
-test('suspect: an image well above the usual number of matched works, not confirmed by the other photos, is set aside', () => {
-  // with the hub bound raised to 20, the mount backs are no hubs; they are far above the mean k-occurrence and no
-  // other photograph of their works confirms any of their eight matches
-  const m = mountBacks(20, 12);
+test('suspect: an image far above the usual number of matched works whose matched works do not match each other is set aside', () => {
+  // four matched works each: no hub (bound 6), but above mean + 2 sd. b:1's scan matches those of c:2, b:4, a:6 and
+  // c:8 (ring offsets ±1, ±3); of those six pairs of works only b:4–a:6 match (neighbours on the ring): 1/6; none of
+  // the four shares a row with b:1 through other photographs
+  const m = mountBacks(null, 12, false);
   const w = weighEvidence(m);
-  assert.equal(w.suspectFrom, 8, 'mean 2.6, sd 2.4: suspects from ⌈2.6 + 2 × 2.4⌉ = 8');
-  assert.equal(verdictOf(m, 'a:1#1'), 'uncorroborated');
-  assert.equal(w.stats.corroborated[m.images.work.indexOf(workNo(m, 'a:1')) + 1], 2, 'a:1–b:1 and a:1–c:1 share the painting photo too');
-  assert.equal(cluster(m, link(m)).clusters.length, 12);
+  assert.equal(w.suspectFrom, 4, 'mean 2.22, sd 0.63: suspects from max(4, ⌈2.22 + 2 × 0.63⌉ = 4)');
+  const back = m.images.work.indexOf(workNo(m, 'b:1')) + 1;
+  assert.equal(w.stats.works[back], 4);
+  assert.equal(w.stats.triangles[back].toFixed(3), '0.167');
+  assert.equal(w.stats.corroborated[back], 0);
+  assert.equal(verdictOf(m, 'b:1#1'), 'uncorroborated');
+  assert.equal(cluster(m, link(m)).clusters.length, 12, 'twelve artworks, twelve clusters');
+  // the same images in a dense clique are no suspects by triangles (the records of one artwork look like that too):
+  // with more of them than an artwork has records, the hub rule takes them
+  assert.equal(verdictOf(mountBacks(null, 12, true), 'a:1#1'), 'hub');
 });
 
 test('role: an image the catalogue calls a verso or a chart links nothing, whatever its score', () => {

@@ -6,7 +6,7 @@ import { findBridges } from './bridges.js';
 import { UnionFind } from './union-find.js';
 
 /** A bridge joining two groups of two or more works is kept only at this confidence or above (see coherentClaims). */
-export const BRIDGE_KEEP_AT = 0.75;
+export const BRIDGE_KEEP_AT = 0.6;
 
 export const CUT_REASONS = ['oversize', 'weak-bridge'] as const;
 export type CutReason = (typeof CUT_REASONS)[number];

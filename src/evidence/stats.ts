@@ -9,15 +9,28 @@ export interface ImageRows {
   other: Int32Array;
 }
 
-/** Every evidence row under both its images (two passes of counting, typed arrays only). */
-export function imageRows(model: Model): ImageRows {
+/**
+ * Rows that could propose a link on their own: score ≥ proposeAt and overlap ≥ minOverlap. The statistics count only
+ * these, the match graph at the proposal threshold; the low-scoring background every run reports says nothing.
+ */
+export function proposing(model: Model, proposeAt: number, minOverlap: number): Uint8Array {
+  const m = model.matches;
+  const out = new Uint8Array(m.count);
+  for (let r = 0; r < m.count; r++) out[r] = m.score[r] >= proposeAt && m.overlap[r] >= minOverlap ? 1 : 0;
+  return out;
+}
+
+/** The proposing evidence rows under both their images (two passes of counting, typed arrays only). */
+export function imageRows(model: Model, use: Uint8Array): ImageRows {
   const { matches, images } = model;
   const offset = new Int32Array(images.count + 1);
-  for (let r = 0; r < matches.count; r++) { offset[matches.a[r] + 1]++; offset[matches.b[r] + 1]++; }
+  let used = 0;
+  for (let r = 0; r < matches.count; r++) if (use[r]) { used++; offset[matches.a[r] + 1]++; offset[matches.b[r] + 1]++; }
   for (let i = 0; i < images.count; i++) offset[i + 1] += offset[i];
   const fill = offset.slice(0, images.count);
-  const row = new Int32Array(2 * matches.count), other = new Int32Array(2 * matches.count);
+  const row = new Int32Array(2 * used), other = new Int32Array(2 * used);
   for (let r = 0; r < matches.count; r++) {
+    if (!use[r]) continue;
     const a = matches.a[r], b = matches.b[r];
     row[fill[a]] = r; other[fill[a]++] = images.work[b];
     row[fill[b]] = r; other[fill[b]++] = images.work[a];
@@ -61,7 +74,7 @@ function countingSort(items: Int32Array, key: Int32Array, buckets: number): Int3
  * `ignore`: another photograph of the two works agrees. Rows are grouped by work pair with two counting sorts;
  * each group is scanned with a per-image tally, so the cost is linear in the rows. Bit 1: end a, bit 2: end b.
  */
-export function corroboration(model: Model, ignore: Uint8Array): Uint8Array {
+export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array): Uint8Array {
   const { matches, images } = model;
   const n = model.works.length;
   const lo = new Int32Array(matches.count), hi = new Int32Array(matches.count);
@@ -83,7 +96,7 @@ export function corroboration(model: Model, ignore: Uint8Array): Uint8Array {
     tally.clear();
     for (let k = s; k < e; k++) {
       const r = rows[k], a = matches.a[r], b = matches.b[r];
-      if (ignore[a] || ignore[b]) continue;
+      if (ignore[a] || ignore[b] || !use[r]) continue;
       eligible++;
       tally.set(a, (tally.get(a) ?? 0) + 1);
       tally.set(b, (tally.get(b) ?? 0) + 1);
@@ -113,4 +126,52 @@ export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array,
     if (last && (keys[k] & 1)) count++;
   }
   return count;
+}
+
+/** Sorted distinct work-pair keys (pairKey) of rows whose two images are both kept (`ignore` 0): binary-searchable. */
+export function workPairs(model: Model, ignore: Uint8Array, use: Uint8Array): Float64Array {
+  const { matches, images } = model;
+  const keys = new Float64Array(matches.count);
+  let k = 0;
+  for (let r = 0; r < matches.count; r++) {
+    if (ignore[matches.a[r]] || ignore[matches.b[r]] || !use[r]) continue;
+    const x = images.work[matches.a[r]], y = images.work[matches.b[r]];
+    keys[k++] = x < y ? x * 67108864 + y : y * 67108864 + x;
+  }
+  const sorted = keys.subarray(0, k).sort();
+  let d = 0;
+  for (let i = 0; i < k; i++) if (i === 0 || sorted[i] !== sorted[i - 1]) sorted[d++] = sorted[i];
+  return sorted.slice(0, d);
+}
+
+function has(keys: Float64Array, key: number): boolean {
+  let lo = 0, hi = keys.length - 1;
+  while (lo <= hi) {
+    const mid = (lo + hi) >>> 1;
+    if (keys[mid] === key) return true;
+    if (keys[mid] < key) lo = mid + 1;
+    else hi = mid - 1;
+  }
+  return false;
+}
+
+/** Matched works of one image sampled for the triangle test, at most (120 work pairs). */
+export const TRIANGLE_SAMPLE = 16;
+
+/**
+ * Triangle support of image `i`: the share of pairs of its matched works (the first TRIANGLE_SAMPLE of them) that
+ * match each other too. The records of one artwork match each other; the works a mount back or a colour chart
+ * matches are unrelated and do not (a nearest-neighbour graph of look-alike scans has a low clustering coefficient).
+ */
+export function triangleSupport(ir: ImageRows, pairs: Float64Array, i: number): number {
+  const s = Int32Array.from(ir.other.subarray(ir.offset[i], ir.offset[i + 1])).sort();
+  const works: number[] = [];
+  for (let k = 0; k < s.length && works.length < TRIANGLE_SAMPLE; k++) if (k === 0 || s[k] !== s[k - 1]) works.push(s[k]);
+  let pairsSeen = 0, closed = 0;
+  for (let x = 0; x < works.length; x++)
+    for (let y = x + 1; y < works.length; y++) {
+      pairsSeen++;
+      if (has(pairs, works[x] * 67108864 + works[y])) closed++;
+    }
+  return pairsSeen ? closed / pairsSeen : 1;
 }

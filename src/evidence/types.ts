@@ -4,7 +4,7 @@
 export const IMAGE_VERDICTS = ['discriminating', 'hub', 'uncorroborated', 'role'] as const;
 export type ImageVerdict = (typeof IMAGE_VERDICTS)[number];
 
-/** Per-image statistics as columns (index = image number), over every evidence row. */
+/** Per-image statistics as columns (index = image number), over the rows that could propose (score ≥ proposeAt). */
 export interface ImageStats {
   /** Evidence rows naming the image (matched images, repeats included). */
   matchedImages: Int32Array;
@@ -17,6 +17,8 @@ export interface ImageStats {
    * agreement of the other images); computed for suspects only, -1 elsewhere.
    */
   corroborated: Int32Array;
+  /** Share of pairs of its matched works that match each other (triangle support); suspects only, -1 elsewhere. */
+  triangles: Float64Array;
 }
 
 /** The evidence stage's output, read by the link stage and the report. */
