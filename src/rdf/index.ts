@@ -4,7 +4,7 @@ import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
 import { matchesOf } from '../link/index.js';
-import { compileTemplate, encodeUnreserved } from '../load/template.js';
+import { compileTemplate, encodeUnreserved } from '../io/template.js';
 import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
 import type { ReleaseView } from './view.js';
 
@@ -113,8 +113,8 @@ export function claimEnds(l: Link): [number, number] {
 export const isPublished = (l: Link) => l.status !== 'candidate';
 
 /** Generates the release's units in a fixed order: shared provenance, clusters by ID, then links outside clusters. */
-export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts): Generator<Unit> {
-  const { model, links } = view;
+export function* releaseUnits(view: ReleaseView, counts: LinksetCounts): Generator<Unit> {
+  const { model, links, namer } = view;
   const described = new Uint8Array(model.works.length);
   const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
 
