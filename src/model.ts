@@ -2,6 +2,8 @@
 import type { Problem } from './errors.js';
 
 export type CenturyConvention = 'ordinal' | 'iso' | 'unknown';
+/** Languages whose date phrases concordat reads (ISO 639-1 codes). */
+export type DateLanguage = 'en' | 'de' | 'fr' | 'it' | 'es' | 'nl';
 export type Verdict = 'same' | 'part' | 'related' | 'distinct';
 
 export interface ColumnMap {
@@ -23,6 +25,8 @@ export interface PartnerConfig {
   /** Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service). */
   imageView?: string;
   centuryConvention: CenturyConvention;
+  /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
+  language?: DateLanguage;
   catalogue: { file: string; delimiter: string; columns: ColumnMap };
 }
 

@@ -34,6 +34,7 @@ const PartnerSchema = z.strictObject({
   recordPage: z.string().optional(),
   imageView: z.string().optional(),
   centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
+  language: z.enum(['en', 'de', 'fr', 'it', 'es', 'nl'], { message: 'language: one of en, de, fr, it, es, nl (the language of the date phrases)' }).optional(),
   catalogue: z.strictObject({
     file: nonEmpty,
     delimiter: z.string().length(1, { message: 'delimiter must be one character, e.g. "," ";" or "\\t"' }).default(','),
