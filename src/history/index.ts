@@ -1,7 +1,7 @@
 // History stage: the previous release + the release being built → changes, their RDF units, changes.md and changes.ttl.
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import type { Namer, Unit } from '../rdf/index.js';
+import type { Unit } from '../rdf/index.js';
 import type { ReleaseView } from '../rdf/view.js';
 import type { Clustering } from '../cluster/types.js';
 import { retiredUnit, type Invalidation } from '../rdf/retired.js';
@@ -35,7 +35,8 @@ export interface ReleaseHistory {
  * cluster ID (those retired now invalidated by this release, older ones keeping their recorded invalidation), and,
  * with a previous release, the changes against it and their provenance units.
  */
-export async function releaseHistory(view: ReleaseView, clustering: Clustering, namer: Namer, previous?: PreviousRelease): Promise<ReleaseHistory> {
+export async function releaseHistory(view: ReleaseView, clustering: Clustering, previous?: PreviousRelease): Promise<ReleaseHistory> {
+  const { namer } = view;
   const units: Unit[] = [];
   let changes: Changes | undefined;
   let madeBy: Quad[] | undefined;

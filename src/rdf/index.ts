@@ -113,8 +113,8 @@ export function claimEnds(l: Link): [number, number] {
 export const isPublished = (l: Link) => l.status !== 'candidate';
 
 /** Generates the release's units in a fixed order: shared provenance, clusters by ID, then links outside clusters. */
-export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts): Generator<Unit> {
-  const { model, links } = view;
+export function* releaseUnits(view: ReleaseView, counts: LinksetCounts): Generator<Unit> {
+  const { model, links, namer } = view;
   const described = new Uint8Array(model.works.length);
   const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
 
