@@ -1,9 +1,10 @@
-// The whole flow, top to bottom: load → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
+// The whole flow, top to bottom: load → weigh evidence → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 import v8 from 'node:v8';
 import type { Quad } from '@rdfjs/types';
 import { load, type LoadStats } from './load/index.js';
+import { weighEvidence } from './evidence/index.js';
 import { link } from './link/index.js';
 import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
@@ -55,7 +56,8 @@ export interface BuildResult {
 
 /** Link, cluster and per-cluster views: the part of the pipeline that needs no output folder. */
 export async function derive(model: Model): Promise<{ links: LinkSet; clustering: Clustering }> {
-  const links = link(model);
+  const evidence = weighEvidence(model);
+  const links = link(model, model.project.policy, evidence);
   const previous = model.project.previous ? await readClusterRegistry(registryFile(model.project.previous)) : undefined;
   const clustering = cluster(model, links, previous);
   return { links, clustering };
