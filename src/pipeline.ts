@@ -112,7 +112,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
     releaseGcPolicy();
-    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate, shaclEngine: opts.shaclEngine });
+    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, attached: history.attached, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate, shaclEngine: opts.shaclEngine });
     if (!publish.validation.conforms) {
       const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(

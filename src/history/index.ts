@@ -1,6 +1,7 @@
 // History stage: the previous release + the release being built → changes, their RDF units, changes.md and changes.ttl.
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
+import type { Quad } from '@rdfjs/types';
 import type { Namer, Unit } from '../rdf/index.js';
 import type { ReleaseView } from '../rdf/view.js';
 import type { Clustering } from '../cluster/types.js';
@@ -22,6 +23,8 @@ export type { Changes, PreviousRelease, ReleaseSnapshot } from './types.js';
 export interface ReleaseHistory {
   /** Units to publish after the clusters: release activity, earlier link states, tombstones. */
   units: Unit[];
+  /** Quads about links still published (by link IRI), written in each link's own unit (releaseUnits `attached`). */
+  attached: Map<string, Quad[]>;
   /** Changes against the previous release; undefined for a first release. */
   changes?: Changes;
 }
@@ -33,6 +36,7 @@ export interface ReleaseHistory {
  */
 export async function releaseHistory(view: ReleaseView, clustering: Clustering, namer: Namer, previous?: PreviousRelease): Promise<ReleaseHistory> {
   const units: Unit[] = [];
+  let attached = new Map<string, Quad[]>();
   let changes: Changes | undefined;
   const invalidations = new Map<string, Invalidation>();
   if (previous) {
@@ -44,7 +48,9 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
     const changed = changedLinks(previous.snapshot, current);
     const evidence = await readLinkEvidence(previous.folder, new Set(changed.map(([old]) => old.iri)));
     const matchesNow = currentMatchIris(view, namer, new Set(changed.filter(([, now]) => now).map(([old]) => old.iri)));
-    units.push(...historyUnits(view.model, namer, previous, current, changed, evidence, matchesNow));
+    const made = historyUnits(view.model, namer, previous, current, changed, evidence, matchesNow);
+    units.push(...made.units);
+    attached = made.attached;
     for (const r of view.retired) {
       const carried = previous.clusterInvalidations.get(namer.iri('cluster', { cluster: r.id }));
       if (carried) invalidations.set(r.id, carried);
@@ -54,12 +60,12 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
     for (const r of changes.clusters.retired) invalidations.set(r.id, { activity, ...(time ? { time } : {}) });
   }
   if (view.retired.length) units.push(retiredUnit(view.retired, namer, invalidations));
-  return { units, changes };
+  return { units, attached, changes };
 }
 
-/** Writes changes.md and changes.ttl (the history units' quads as Turtle) into the release folder. */
+/** Writes changes.md and changes.ttl (the history units' quads and those attached to links, as Turtle) into the release folder. */
 export async function writeChanges(dir: string, history: ReleaseHistory): Promise<void> {
   if (!history.changes) return;
   await writeFile(path.join(dir, 'changes.md'), changesMarkdown(history.changes));
-  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', history.units.flatMap((u) => u.quads));
+  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [...history.units.flatMap((u) => u.quads), ...[...history.attached.values()].flat()]);
 }

@@ -4,7 +4,7 @@ import { createReadStream } from 'node:fs';
 import { readdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
-import { releaseUnits, Namer, isPublished, type LinksetCounts, type Unit } from '../rdf/index.js';
+import { releaseUnits, strayPlan, Namer, type LinksetCounts, type Unit } from '../rdf/index.js';
 import { progress } from '../util/progress.js';
 import { datasetUnit } from '../rdf/dataset.js';
 import type { ReleaseView } from '../rdf/view.js';
@@ -20,6 +20,8 @@ export interface PublishOptions {
   previousVersion?: string;
   /** Extra units appended before the dataset description (e.g. changes against the previous release). */
   extraUnits?: Unit[];
+  /** More quads about published links, by link IRI, written in each link's own unit (see releaseUnits). */
+  attached?: ReadonlyMap<string, Quad[]>;
   workers?: number;
   /** Quads per SHACL batch (default: validateChunks' own). */
   validationBatch?: number;
@@ -48,17 +50,14 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
   const writer = new ReleaseWriter(dir, view.model.project.release.partnerDumps === false ? null : view.model.project.partners.map((p) => p.key));
   let typeIndex = new Map<string, Quad[]>();
   let datasetQuads: Quad[] = [];
-  // links outside every cluster become units of their own: counted for the progress bar (a byte per link)
-  const inClusters = new Uint8Array(view.links.links.length);
-  for (const c of view.clusters) for (const li of c.links) inClusters[li] = 1;
-  let stray = 0;
-  view.links.links.forEach((l, i) => { if (!inClusters[i] && isPublished(l)) stray++; });
-  const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
+  // links outside every cluster go with their subject's cluster or into one unit per subject: counted for the progress bar
+  const plan = strayPlan(view);
+  const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + plan.bySubject.size + (opts.extraUnits?.length ?? 0) + 2, 'units');
   let done = 0;
   /** Validation chunks are only built when SHACL runs. */
   const validating = opts.validate !== false;
   async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
-    for (const unit of releaseUnits(view, namer, counts)) {
+    for (const unit of releaseUnits(view, namer, counts, { plan, attached: opts.attached })) {
       bar.update(++done);
       if (unit.kind === 'provenance' && validating) typeIndex = typeIndexOf(unit);
       await writer.add(unit);
