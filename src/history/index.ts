@@ -2,7 +2,7 @@
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
-import type { Namer, Unit } from '../rdf/index.js';
+import type { Unit } from '../rdf/index.js';
 import type { ReleaseView } from '../rdf/view.js';
 import type { Clustering } from '../cluster/types.js';
 import { retiredUnit, type Invalidation } from '../rdf/retired.js';
@@ -34,7 +34,8 @@ export interface ReleaseHistory {
  * cluster ID (those retired now invalidated by this release, older ones keeping their recorded invalidation), and,
  * with a previous release, the changes against it and their provenance units.
  */
-export async function releaseHistory(view: ReleaseView, clustering: Clustering, namer: Namer, previous?: PreviousRelease): Promise<ReleaseHistory> {
+export async function releaseHistory(view: ReleaseView, clustering: Clustering, previous?: PreviousRelease): Promise<ReleaseHistory> {
+  const { namer } = view;
   const units: Unit[] = [];
   let attached = new Map<string, Quad[]>();
   let changes: Changes | undefined;

@@ -176,8 +176,8 @@ export interface UnitOptions {
  * is described in one unit only; `attached` gives more quads about a published link (by its IRI: e.g. its earlier
  * state), written in that link's unit.
  */
-export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts, opts: UnitOptions = {}): Generator<Unit> {
-  const { model, links } = view;
+export function* releaseUnits(view: ReleaseView, counts: LinksetCounts, opts: UnitOptions = {}): Generator<Unit> {
+  const { model, links, namer } = view;
   const { attached, plan = strayPlan(view) } = opts;
   const described = new Uint8Array(model.works.length);
   const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
