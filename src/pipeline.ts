@@ -1,9 +1,10 @@
-// The whole flow, top to bottom: load → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
+// The whole flow, top to bottom: load → weigh evidence → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 import v8 from 'node:v8';
 import type { Quad } from '@rdfjs/types';
 import { load, type LoadStats } from './load/index.js';
+import { weighEvidence } from './evidence/index.js';
 import { link } from './link/index.js';
 import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
@@ -55,7 +56,8 @@ export interface BuildResult {
 
 /** Link, cluster and per-cluster views: the part of the pipeline that needs no output folder. */
 export async function derive(model: Model): Promise<{ links: LinkSet; clustering: Clustering }> {
-  const links = link(model);
+  const evidence = weighEvidence(model);
+  const links = link(model, model.project.policy, evidence);
   const previous = model.project.previous ? await readClusterRegistry(registryFile(model.project.previous)) : undefined;
   const clustering = cluster(model, links, previous);
   return { links, clustering };
@@ -101,7 +103,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     releaseGcPolicy();
     // units are made, validated and written one at a time: each step below reads the one before it as a stream
     const units = releaseStream(view, history.units, previous?.snapshot.dataset, history.attached);
-    const gate = shaclGate(shapes, { validate: validating, workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
+    const gate = shaclGate(shapes, { validate: validating, workers: opts.workers, batchTriples: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
     const dumps = await writeDumps(dir, model, gate.pass(units.units), units.size, validating ? 'writing + SHACL' : 'writing release');
     const validation = await gate.outcome();
     if (validating) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);

@@ -18,8 +18,6 @@ export interface Unit {
   quads: Quad[];
   /** Partner numbers whose records the unit touches; 'all' for shared provenance and the dataset description. */
   partners: Set<number> | 'all';
-  /** Quads validated with the unit but not written (e.g. types of nodes described in other units). */
-  context?: Quad[];
 }
 
 /** Claim-triple counts per (subject partner, object partner, predicate), for the VoID linksets. */
