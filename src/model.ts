@@ -43,6 +43,8 @@ export interface Policy {
   autoConfirmAt: number | null;
   partOverlapBelow: number;
   minOverlap: number;
+  /** Years two dates of one artwork may lie apart before they are listed as a date conflict (default DATE_TOLERANCE). */
+  dateTolerance?: number;
 }
 
 /** A decisions file as the project names it: `delimiter` absent = detected from the header line. */

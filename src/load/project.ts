@@ -68,6 +68,7 @@ const PolicySchema = z
     autoConfirmAt: unit.nullable().default(null),
     partOverlapBelow: z.number().gt(0).max(1).default(0.7),
     minOverlap: unit.default(0.3),
+    dateTolerance: z.number().int({ message: 'dateTolerance: whole years, e.g. 25' }).min(0).optional(),
   })
   .refine((p) => p.autoConfirmAt === null || p.autoConfirmAt >= p.proposeAt, {
     message: 'autoConfirmAt must be at least proposeAt (or null)',
