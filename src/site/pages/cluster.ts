@@ -90,8 +90,8 @@ ${earlier.map((e) => { const s = wv(e.one(V.subjectWork)), o = wv(e.one(V.object
 
 function citeSection(c: NonNullable<ReturnType<typeof clusterCitation>>): Safe {
   return html`<section aria-labelledby="cite"><h2 id="cite">Cite these claims</h2>
-${CITATION_FORMATS.map((f) => html`<div class="citation"><h3 id="cite-${f.id}-h">${f.label}</h3>
-<button type="button" class="copy" data-copy="cite-${f.id}" hidden>Copy ${f.label.toLowerCase()} citation</button>
-<pre id="cite-${f.id}" tabindex="0" aria-labelledby="cite-${f.id}-h">${f.render(c)}</pre></div>
+${CITATION_FORMATS.map((f, i) => html`<div class="citation"><button type="button" class="copy" data-copy="cite-${f.id}" hidden>Copy the ${f.label.toLowerCase()} citation</button>
+<details${i === 0 ? ' open' : ''}><summary id="cite-${f.id}-h">${f.label}</summary>
+<pre id="cite-${f.id}" tabindex="0" aria-labelledby="cite-${f.id}-h">${f.render(c)}</pre></details></div>
 `)}</section>`;
 }
