@@ -19,6 +19,7 @@ import { datasetSummary } from './pages/dataset.js';
 import { SearchIndex } from './search.js';
 import { writeStaticPages } from './pages/static.js';
 import { serverRules } from './rules.js';
+import { readEarlierSite, carryDocuments, earlierLinks } from './carry.js';
 
 export interface SiteSummary {
   out: string;
@@ -56,12 +57,15 @@ const ntOf = (sts: readonly Statement[]) => sts.map((s) => s.nt).join('');
  * matches and reviews spooled to disk by hash prefix and written as shard documents afterwards), so memory holds one
  * cluster, the shared provenance and one spool file at a time. Written to a temp folder renamed at the end.
  */
-export async function writeSite(release: string, out: string): Promise<SiteSummary> {
+export async function writeSite(release: string, out: string, opts: { previous?: string } = {}): Promise<SiteSummary> {
   const info = await readSiteInfo(release);
+  const earlier = opts.previous ? readEarlierSite(opts.previous, info.base) : undefined;
   const nq = path.join(release, RELEASE_FILES.nquads);
   return writeFolderAtomically(out, async (dir) => {
     const ctx = new SiteContext(info);
     ctx.widths = widthsFor(statSync(nq).size);
+    for (const d of earlier?.ownDocs ?? []) ctx.carried.add(d);
+    const linkHashes = new Set<string>();
     const spoolDir = path.join(dir, '.spool');
     const spool = new Spool(spoolDir);
     const docs = new DocWriter(dir);
@@ -72,6 +76,7 @@ export async function writeSite(release: string, out: string): Promise<SiteSumma
 
     const spoolLink = (l: LinkEntry, cluster: string | null) => {
       const doc = shardDoc('link', l.hash);
+      linkHashes.add(l.hash);
       spool.add(`link-${l.hash.slice(0, 2)}`, [l.hash, ntOf(l.statements), jsonldNodes(l.statements), linkSection(ctx, l, doc, cluster)]);
       for (const m of l.matches) spoolEntry(m, l.iri);
     };
@@ -120,6 +125,17 @@ export async function writeSite(release: string, out: string): Promise<SiteSumma
       docs.write(doc, ntOf(d.statements), [jsonldNodes(d.statements)], genericPage(ctx, doc, d.kind, d.statements, extra));
     }
 
+    // Claims of an earlier site that this release no longer describes: kept as that site described them.
+    if (earlier) {
+      for (const e of earlierLinks(earlier, info.base)) {
+        if (linkHashes.has(e.hash)) continue;
+        const entry: LinkEntry = { kind: 'link', hash: e.hash, iri: `${info.base}link/${e.hash}`, statements: e.statements, matches: [] };
+        const note = `<p class="aside">This claim is not in release ${info.version}; it is shown as the site of release ${earlier.version} described it.</p>\n`;
+        spool.add(`link-${e.hash.slice(0, 2)}`, [e.hash, ntOf(e.statements), jsonldNodes(e.statements), linkSection(ctx, entry, shardDoc('link', e.hash), null).replace(/(<\/h2>\n)/, `$1${note}`)]);
+      }
+      spool.close();
+    }
+
     // Shard documents: every spool bucket holds whole shards when the width is 2 or more; width 1 joins 16 buckets.
     for (const rule of ROUTES.filter((r) => r.shardFolder)) {
       const kind = rule.kind;
@@ -143,6 +159,7 @@ ${rs.map((r) => new Safe(r[3]))}`;
       }
     }
     search.finish(dir);
+    if (earlier) carryDocuments(earlier, dir);
     writeStaticPages(ctx, dir, own);
     const downloads = path.join(dir, 'releases', info.version);
     for (const f of info.files) {
