@@ -14,6 +14,6 @@ export function register(program: Command): void {
       const { writeSite } = await import('../site/index.js');
       const s = await writeSite(release, opts.out, { previous: opts.previous });
       if (opts.json) process.stdout.write(JSON.stringify(s, null, 2) + '\n');
-      else process.stdout.write(`site of release ${s.version} written to ${s.out}: ${s.documents} documents, ${s.files} files, ${(s.bytes / 2 ** 20).toFixed(1)} MiB\npreview: concordat serve ${opts.out}\nweb servers: nginx-http.conf + nginx-server.conf, apache.htaccess in the folder\n`);
+      else process.stdout.write(`site of release ${s.version} written to ${s.out}: ${s.documents} documents, ${s.files} files, ${(s.bytes / 2 ** 20).toFixed(1)} MiB (and ${(s.downloadBytes / 2 ** 20).toFixed(1)} MiB of downloads, hard-linked from the release)\npreview: concordat serve ${opts.out}\nweb servers: nginx-http.conf + nginx-server.conf, apache.htaccess in the folder\n`);
     });
 }

@@ -1,6 +1,6 @@
 // Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
-import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync } from 'node:fs';
+import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { writeFolderAtomically } from '../io/atomic.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
@@ -13,7 +13,7 @@ import { jsonldDocument, jsonldNodes } from './jsonld.js';
 import { page, html, Safe } from './html.js';
 import { Spool } from './spool.js';
 import { clusterPage } from './pages/cluster.js';
-import { linkSection, matchSection, genericSection } from './pages/entries.js';
+import { linkSection, matchSection, genericSection, MATCH_TABLE_HEAD, MATCH_TABLE_TAIL } from './pages/entries.js';
 import { genericPage } from './pages/generic.js';
 import { datasetSummary } from './pages/dataset.js';
 import { SearchIndex } from './search.js';
@@ -27,7 +27,9 @@ export interface SiteSummary {
   version: string;
   documents: number;
   files: number;
+  /** Bytes of the site without the downloads (the release's own files, hard-linked under releases/). */
   bytes: number;
+  downloadBytes: number;
   widths: ShardWidths;
 }
 
@@ -151,8 +153,8 @@ export async function writeSite(release: string, out: string, opts: { previous?:
           const doc = `${rule.shardFolder}/${key}`;
           const label = kind === 'link' ? 'Claims' : kind === 'match' ? 'Image matches' : 'Curator reviews';
           const main = html`<p>${rs.length} ${label.toLowerCase()} whose identifier begins with <code>${key}</code>.</p>
-<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
-${rs.map((r) => new Safe(r[3]))}`;
+${kind === 'match' ? new Safe(MATCH_TABLE_HEAD + rs.map((r) => r[3]).join('') + MATCH_TABLE_TAIL) : html`<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
+${rs.map((r) => new Safe(r[3]))}`}`;
           const text = page({ doc, title: `${label} ${key}…`, siteTitle: info.title, alternates: true, main: html`${main}`, licence: info.licence });
           docs.write(doc, rs.map((r) => r[1]).join(''), rs.map((r) => r[2]), text);
         }
@@ -174,8 +176,8 @@ ${rs.map((r) => new Safe(r[3]))}`;
     // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700
     const mask = process.umask();
     chmodSync(dir, 0o755 & ~mask);
-    const { files, bytes } = measure(dir);
-    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files, bytes, widths: ctx.widths };
+    const all = measure(dir), dl = measure(path.join(dir, "releases"));
+    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files: all.files, bytes: all.bytes - dl.bytes, downloadBytes: dl.bytes, widths: ctx.widths };
   });
 }
 
@@ -183,6 +185,7 @@ ${rs.map((r) => new Safe(r[3]))}`;
 function measure(dir: string): { files: number; bytes: number } {
   let files = 0, bytes = 0;
   const walk = (d: string) => {
+    if (!existsSync(d)) return;
     for (const e of readdirSync(d, { withFileTypes: true })) {
       const p = path.join(d, e.name);
       if (e.isDirectory()) walk(p);
