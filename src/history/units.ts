@@ -60,8 +60,9 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
  *   the link `prov:wasRevisionOf` that state when it is still published;
  * - a claim that is gone or now rejected: `prov:wasInvalidatedBy` the release activity, `prov:invalidatedAtTime` its date;
  * - the previous release's descriptions of runs, reviews and agents the earlier states name and this release does not.
+ * What is said about a link still published goes into `attached` (by link IRI), to be written with the link itself.
  */
-export function historyUnits(model: Model, namer: Namer, previous: PreviousRelease, current: ReleaseSnapshot, changed: [LinkState, LinkState | undefined][], evidence: LinkEvidence, matchesNow: Set<string>): Unit[] {
+export function historyUnits(model: Model, namer: Namer, previous: PreviousRelease, current: ReleaseSnapshot, changed: [LinkState, LinkState | undefined][], evidence: LinkEvidence, matchesNow: Set<string>): { units: Unit[]; attached: Map<string, Quad[]> } {
   const prev = previous.snapshot;
   const version = model.project.release.version;
   const R = nn(namer.iri('release', { version }));
@@ -86,14 +87,13 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
   const matchRuns = (m: string) => (evidence.quads.get(m) ?? []).filter((q) => q.predicate.value === P.generatedBy).map((q) => q.object.value);
   const seeds = changed.flatMap(([old]) => [...old.generatedBy, ...old.attributedTo, ...(evidence.matches.get(old.iri) ?? []).flatMap(matchRuns)]);
   const copied = closure(seeds, previous.provenance, describedNow);
-  const types = new Map<string, Quad[]>();
   for (const s of copied)
     for (const q of previous.provenance.get(s)!) {
       const copy = N3.DataFactory.quad(q.subject, q.predicate, q.object, G) as Quad;
       shared.push(copy);
-      if (q.predicate.value === P.type) (types.get(s) ?? types.set(s, []).get(s)!).push(copy);
     }
   const units: Unit[] = [{ kind: 'provenance', id: 'history', quads: shared, partners: 'all' }];
+  const attached = new Map<string, Quad[]>();
 
   for (const [old, now] of changed) {
     const quads: Quad[] = [];
@@ -109,30 +109,31 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     p(E, term('cx', 'status'), STATUS[old.status]);
     p(E, term('cx', 'support'), int(old.support));
     if (old.score !== undefined) p(E, term('cx', 'score'), dec(old.score));
-    const context: Quad[] = [];
     const matchQuads: Quad[] = [];
     for (const m of evidence.matches.get(old.iri) ?? []) {
       p(E, term('prov', 'wasDerivedFrom'), nn(m));
-      if (matchesNow.has(m)) { context.push(N3.DataFactory.quad(nn(m), a, term('cx', 'ImageMatch'), namer.graph('evidence')) as Quad); continue; }
+      if (matchesNow.has(m)) continue;
       for (const q of evidence.quads.get(m) ?? []) matchQuads.push(N3.DataFactory.quad(q.subject, q.predicate, q.object, namer.graph('evidence')) as Quad);
-      for (const r of matchRuns(m)) context.push(...(types.get(r) ?? []));
     }
     for (const x of old.generatedBy) p(E, term('prov', 'wasGeneratedBy'), nn(x));
     for (const x of old.attributedTo) p(E, term('prov', 'wasAttributedTo'), nn(x));
     p(E, term('dcterms', 'isVersionOf'), L);
-    if (now) p(L, term('prov', 'wasRevisionOf'), E);
-    else p(L, a, term('prov', 'Entity'));
+    // about the link itself: with its description when it is still published (one unit per subject), else here
+    const about: Quad[] = [];
+    const l = now ? inGraph(G, about) : p;
+    if (now) l(L, term('prov', 'wasRevisionOf'), E);
+    else l(L, a, term('prov', 'Entity'));
     if (isClaim(old) && (!now || !isClaim(now))) {
-      p(L, term('prov', 'wasInvalidatedBy'), R);
-      if (time) p(L, term('prov', 'invalidatedAtTime'), typed(time, 'dateTime'));
+      l(L, term('prov', 'wasInvalidatedBy'), R);
+      if (time) l(L, term('prov', 'invalidatedAtTime'), typed(time, 'dateTime'));
     }
-    context.push(...[...old.generatedBy, ...old.attributedTo].flatMap((x) => types.get(x) ?? []));
+    if (about.length) attached.set(L.value, about);
     const partners = new Set<number>();
     for (const w of [old.subject, old.object]) {
       const n = partnerNo.get(prev.works.get(w)?.partner ?? '');
       if (n !== undefined) partners.add(n);
     }
-    units.push({ kind: 'link', id: old.iri, quads: quads.concat(matchQuads), partners, context });
+    units.push({ kind: 'link', id: old.iri, quads: quads.concat(matchQuads), partners });
   }
-  return units;
+  return { units, attached };
 }

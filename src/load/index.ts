@@ -4,6 +4,7 @@ import { ProblemList, type Problem } from '../errors.js';
 import type { Model, Work, Decision, GoldPair, RunConfig } from '../model.js';
 import { int32 } from '../util/columns.js';
 import { loadProjectFile } from './project.js';
+import { placeholderWarnings } from './placeholders.js';
 import { loadCatalogue, type ImageColumns } from './catalogue.js';
 import { loadEvidence, newMatchColumns } from './evidence.js';
 import { loadDecisions, loadGold } from './decisions.js';
@@ -28,11 +29,11 @@ export interface Loaded {
 export async function load(projectFile: string): Promise<Loaded> {
   const project = loadProjectFile(projectFile);
   const problems = new ProblemList();
-  const warnings: Problem[] = [];
+  const warnings: Problem[] = placeholderWarnings(project, projectFile);
   const works: Work[] = [];
   const workIndex = project.partners.map(() => new Map<string, number>());
   const imageIndex = project.partners.map(() => new Map<string, number>());
-  const images: ImageColumns = { work: int32(), line: int32(), id: [] };
+  const images: ImageColumns = { work: int32(), line: int32(), id: [], role: [] };
 
   for (const [i, partner] of project.partners.entries()) {
     await loadCatalogue(i, partner, works, workIndex[i], images, imageIndex[i], problems, warnings);
@@ -72,7 +73,7 @@ export async function load(projectFile: string): Promise<Loaded> {
     project,
     works,
     workIndex,
-    images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim() },
+    images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim(), role: Uint8Array.from(images.role) },
     matches: { count: m.a.length, a: m.a.trim(), b: m.b.trim(), score: m.score.trim(), overlap: m.overlap.trim(), run: m.run.trim(), file: m.file.trim(), line: m.line.trim() },
     runs,
     evidenceFiles,
