@@ -5,7 +5,7 @@ import { existsSync, linkSync, copyFileSync, mkdirSync, readdirSync, readFileSyn
 import path from 'node:path';
 import { parseLine, type Statement } from './nquads.js';
 import { relPath, routeOf, ROUTES } from './routes.js';
-import { readManifest } from '../serve/index.js';
+import { readManifest } from './manifest.js';
 import { UserError } from '../errors.js';
 
 const OWN_FOLDERS = ['run', 'agent', 'curator', 'release', 'dataset', 'graph'];
