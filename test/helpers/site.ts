@@ -6,7 +6,7 @@ import N3 from 'n3';
 import { build } from '../../src/pipeline.js';
 import { writeSite } from '../../src/site/index.js';
 import { streamRdfFile } from '../../src/rdf/read.js';
-import { jsonldToNQuads } from '../../src/rdf/jsonld-read.js';
+import { jsonldToNQuads } from '../../src/rdf/jsonld.js';
 import { relPath, routeOf } from '../../src/site/routes.js';
 import { repoRoot, tempDir } from './fixture.js';
 
