@@ -184,3 +184,43 @@ test('adding indiscriminate images (each matching more works than an artwork has
     }
   }), { numRuns: 150, seed: 20261203 });
 });
+
+// ---- coherent clusters ----
+
+test('coherent clusters: a chain longer than one artwork can be is cut at its weakest link; the cut link is held for review', () => {
+  // three partners: at most 6 members; seven works chained by single photographs, the weakest 0.9 × 2/3 = 0.6 in the middle
+  const works = ['a:1', 'b:1', 'c:1', 'a:2', 'b:2', 'c:2', 'a:3'];
+  const scores = [0.99, 0.98, 0.97, 0.9, 0.96, 0.95];
+  const m = tinyModel({ partners: ['a', 'b', 'c'], works, matches: scores.map((s, i) => [works[i], works[i + 1], s] as [string, string, number]) });
+  const ls = link(m);
+  const c = cluster(m, ls);
+  assert.deepEqual(c.clusters.map((k) => Array.from(k.members, (w) => m.works[w].partner + ':' + m.works[w].id).length), [4, 3]);
+  const cut = ls.links[c.cut[0]];
+  assert.equal(c.cut.length, 1);
+  assert.deepEqual([cut.a, cut.b].map((w) => workNo(m, works[3]) === w || workNo(m, works[4]) === w), [true, true], 'the 0.9 link a:2–b:2');
+  assert.equal(cut.status, 'candidate');
+  assert.equal(cut.held, 'split');
+  assert.deepEqual(c.splits, [{ works: 7, clusters: ['c000001', 'c000002'], alone: 0, cutLinks: 1 }]);
+  assert.equal(c.before.largest, 7);
+});
+
+test('coherent clusters: a weak bridge between two groups is cut; a strong one and a curator\'s same stay', () => {
+  const spec = (bridge: number, decided = false): TinySpec => ({
+    partners: ['a', 'b', 'c'], works: ['a:1', 'b:1', 'c:1', 'a:2'],
+    matches: [['a:1', 'b:1', 0.95], ['c:1', 'a:2', 0.95], ['b:1', 'c:1', bridge]],
+    decisions: decided ? [['b:1', 'c:1', 'same']] : [],
+  });
+  const sizes = (s: TinySpec) => { const m = tinyModel(s); return cluster(m, link(m)).clusters.map((k) => k.members.length); };
+  assert.deepEqual(sizes(spec(0.85)), [2, 2], '0.85 × 2/3 = 0.567 < 0.6: cut');
+  assert.deepEqual(sizes(spec(0.9)), [4], '0.9 × 2/3 = 0.6: kept');
+  assert.deepEqual(sizes(spec(0.85, true)), [4], 'a curator said same');
+});
+
+test('coherent clusters: stable IDs through a split: the old ID stays on the part with most former members', () => {
+  const works = ['a:1', 'b:1', 'c:1', 'a:2', 'b:2', 'c:2', 'a:3'];
+  const m = tinyModel({ partners: ['a', 'b', 'c'], works, matches: works.slice(1).map((w, i) => [works[i], w, i === 3 ? 0.9 : 0.97] as [string, string, number]) });
+  const previous = { active: new Map([['c000007', works]]), retired: [] };
+  const c = cluster(m, link(m), previous);
+  assert.deepEqual(c.clusters.map((k) => [k.id, k.members.length]), [['c000007', 4], ['c000008', 3]]);
+  assert.deepEqual(c.retired, []);
+});

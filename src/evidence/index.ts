@@ -10,8 +10,8 @@ export { IMAGE_VERDICTS, type ImageStats, type ImageVerdict, type WeighedEvidenc
  * as there are partners (common practice, no source; the same bound flags oversized clusters).
  */
 export const HUB_PER_PARTNER = 2;
-/** Suspects are images at least this many standard deviations above the mean k-occurrence (Tomašev et al. 2014). */
-export const SUSPECT_SD = 2;
+/** Suspects are images at least this many (scaled) median absolute deviations above the median k-occurrence. */
+export const SUSPECT_MADS = 2;
 /** No image matching fewer works than this is a suspect: the triangle test over three works (three pairs) says too little. */
 export const SUSPECT_MIN = 4;
 
@@ -25,11 +25,16 @@ const V = (v: ImageVerdict) => IMAGE_VERDICTS.indexOf(v);
  *    HUB_PER_PARTNER × partners). Hubness: Radovanović, Nanopoulos & Ivanović, "Hubs in space: popular nearest
  *    neighbors in high-dimensional data", JMLR 11 (2010), where points that appear among the neighbours of very many
  *    others are shown to be uninformative for similarity; or
- * 3. it is a **suspect** (k-occurrence ≥ max(SUSPECT_MIN, mean + SUSPECT_SD·sd): the μ + 2σ hub rule of the
- *    hubness literature, from memory Tomašev et al., IEEE TKDE 26(3), 2014) whose matches nothing else confirms:
- *    fewer than half of the pairs of works it matched match each other (triangle consistency: the records of one
- *    artwork match each other, the works a mount back matched do not), and fewer than half of its matched works
- *    share a row with its own work through two other photographs (neither of them a role-excluded image or a hub).
+ * 3. it is a **suspect** (k-occurrence ≥ max(SUSPECT_MIN, median + SUSPECT_MADS × 1.4826 × MAD): an outlier by
+ *    the median absolute deviation, which the outliers themselves cannot inflate as they inflate a mean and standard
+ *    deviation (Hampel's identifier; Rousseeuw & Croux, "Alternatives to the median absolute deviation", JASA 88,
+ *    1993); the hub rule of the hubness literature is the same idea with μ + 2σ) whose matches nothing else confirms:
+ *    a. fewer than half of the pairs of works it matched match each other (triangle consistency: the records of one
+ *       artwork match each other, the works a mount back matched do not) and fewer than half of its matched works
+ *       share a row with its own work through two other photographs (neither a role-excluded image nor a hub); or
+ *    b. the other photographs disagree: of the matched works where both records have other usable photographs (at
+ *       least SUSPECT_MIN such), fewer than a quarter share a row through them. A small set of look-alike scans that
+ *       all match each other passes the triangle test, but the paintings beside them never match.
  * Matches of such images stay evidence (the link stage keeps and publishes them) but count for nothing in a link's
  * confidence. Linear in the evidence rows plus a sort of each image's rows: no pair list of any image's works.
  */
@@ -40,11 +45,8 @@ export function weighEvidence(model: Model, policy: Policy = model.project.polic
   const ir = imageRows(model, use);
   const { works, partners } = distinctCounts(model, ir);
   const hubAbove = policy.indiscriminateAbove ?? HUB_PER_PARTNER * model.project.partners.length;
-  let count = 0, sum = 0, sq = 0;
-  for (let i = 0; i < n; i++) if (works[i] > 0) { count++; sum += works[i]; sq += works[i] * works[i]; }
-  const mean = count ? sum / count : 0;
-  const sd = count ? Math.sqrt(Math.max(0, sq / count - mean * mean)) : 0;
-  const suspectFrom = Math.max(SUSPECT_MIN, Math.ceil(mean + SUSPECT_SD * sd - 1e-9));
+  const { median, mad } = robustSpread(works);
+  const suspectFrom = Math.max(SUSPECT_MIN, Math.ceil(median + SUSPECT_MADS * 1.4826 * mad - 1e-9));
 
   const verdict = new Uint8Array(n);
   for (let i = 0; i < n; i++) {
@@ -59,11 +61,16 @@ export function weighEvidence(model: Model, policy: Policy = model.project.polic
   if (suspects > 0) {
     const corr = corroboration(model, verdict, use);
     const pairs = workPairs(model, verdict, use);
+    const usable = new Int32Array(model.works.length);
+    for (let i = 0; i < n; i++) if (verdict[i] === 0) usable[images.work[i]]++;
     for (let i = 0; i < n; i++) {
       if (verdict[i] !== 0 || works[i] < suspectFrom) continue;
-      corroborated[i] = corroboratedWorks(model, ir, corr, i);
+      const c = corroboratedWorks(model, ir, corr, usable, i);
+      corroborated[i] = c.corroborated;
       triangles[i] = triangleSupport(ir, pairs, i);
-      if (2 * corroborated[i] < works[i] && 2 * triangles[i] < 1) verdict[i] = V('uncorroborated');
+      const noTriangles = 2 * triangles[i] < 1 && 2 * c.corroborated < works[i];
+      const noOtherPhotos = c.opportunities >= SUSPECT_MIN && 4 * c.corroborated < c.opportunities;
+      if (noTriangles || noOtherPhotos) verdict[i] = V('uncorroborated');
     }
   }
 
@@ -76,6 +83,16 @@ export function weighEvidence(model: Model, policy: Policy = model.project.polic
   flagged.sort((x, y) => works[y] - works[x] || x - y);
   return {
     stats: { matchedImages: Int32Array.from({ length: n }, (_, i) => ir.offset[i + 1] - ir.offset[i]), works, partners, corroborated, triangles },
-    verdict, setAside, hubAbove, suspectFrom, mean, sd, indiscriminate: Int32Array.from(flagged), rowsSetAside,
+    verdict, setAside, hubAbove, suspectFrom, median, mad, indiscriminate: Int32Array.from(flagged), rowsSetAside,
   };
+}
+
+/** Median and median absolute deviation of the k-occurrences of images with at least one match (counting sort). */
+function robustSpread(works: Int32Array): { median: number; mad: number } {
+  const values = works.filter((x) => x > 0).sort();
+  if (values.length === 0) return { median: 0, mad: 0 };
+  const mid = (v: ArrayLike<number>) => (v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2);
+  const median = mid(values);
+  const dev = Float64Array.from(values, (x) => Math.abs(x - median)).sort();
+  return { median, mad: mid(dev) };
 }

@@ -111,8 +111,11 @@ export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array)
   return out;
 }
 
-/** Distinct matched works of image `i` with at least one corroborated row (see corroboration). */
-export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array, i: number): number {
+/**
+ * Distinct matched works of image `i` with at least one corroborated row (see corroboration), and the *opportunities*:
+ * matched works where both works have another usable photograph (`usable[w]` ≥ 2), so that agreement could be seen.
+ */
+export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array, usable: Int32Array, i: number): { corroborated: number; opportunities: number } {
   const keys: number[] = [];
   for (let k = ir.offset[i]; k < ir.offset[i + 1]; k++) {
     const r = ir.row[k];
@@ -120,12 +123,15 @@ export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array,
     keys.push(ir.other[k] * 2 + bit);
   }
   keys.sort((x, y) => x - y);
-  let count = 0;
+  let count = 0, opportunities = 0;
+  const own = usable[model.images.work[i]] >= 2;
   for (let k = 0; k < keys.length; k++) {
     const last = k + 1 === keys.length || keys[k + 1] >> 1 !== keys[k] >> 1;
-    if (last && (keys[k] & 1)) count++;
+    if (!last) continue;
+    if (keys[k] & 1) count++;
+    if (own && usable[keys[k] >> 1] >= 2) opportunities++;
   }
-  return count;
+  return { corroborated: count, opportunities };
 }
 
 /** Sorted distinct work-pair keys (pairKey) of rows whose two images are both kept (`ignore` 0): binary-searchable. */

@@ -32,9 +32,9 @@ export interface WeighedEvidence {
   hubAbove: number;
   /** An image matching at least this many works is a suspect, kept only when most of them are corroborated. */
   suspectFrom: number;
-  /** Mean and standard deviation of `works` over images with at least one match. */
-  mean: number;
-  sd: number;
+  /** Median and median absolute deviation of `works` over images with at least one match. */
+  median: number;
+  mad: number;
   /** Images that are not discriminating, most works matched first (then image number). */
   indiscriminate: Int32Array;
   /** Rows set aside. */

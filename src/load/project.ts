@@ -1,11 +1,11 @@
 // concordance.json → ProjectConfig: JSON syntax, zod schema, did-you-mean hints, paths resolved.
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, UserError, type Problem } from '../errors.js';
 import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
 import { didYouMean } from '../io/did-you-mean.js';
+import { lineColumn, readJsonFile } from '../io/json-file.js';
 
 const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
 const iri = (what: string) =>
@@ -129,40 +129,17 @@ function keysAt(pathParts: PropertyKey[]): string[] {
 const jsonPath = (p: PropertyKey[]) =>
   p.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
 
-/** Line and column (1-based) of a character offset. */
-function lineCol(text: string, pos: number): { line: number; column: number } {
-  const before = text.slice(0, pos);
-  const line = before.split('\n').length;
-  return { line, column: pos - before.lastIndexOf('\n') };
-}
-
 /** Finds the line where a JSON path's value starts, by a light scan for its last key; 1 when unknown. */
 function lineOfPath(text: string, p: PropertyKey[]): number {
   const lastKey = [...p].reverse().find((k) => typeof k === 'string');
   if (lastKey === undefined) return 1;
   const idx = text.indexOf(JSON.stringify(lastKey));
-  return idx < 0 ? 1 : lineCol(text, idx).line;
+  return idx < 0 ? 1 : lineColumn(text, idx).line;
 }
 
 /** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
 export function loadProjectFile(file: string): ProjectConfig {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `cannot read project file: ${(e as NodeJS.ErrnoException).code ?? e}`, hint: 'give the path to concordance.json' });
-  }
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    const msg = (e as Error).message;
-    const m = /position (\d+)/.exec(msg);
-    const pos = m ? Number(m[1]) : text.length;
-    const { line, column } = lineCol(text, pos);
-    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${msg.replace(/ in JSON at position \d+.*$/, '')}`, hint: 'check commas, quotes and brackets near here' });
-  }
+  const { text, value: raw } = readJsonFile(file, 'project file', 'give the path to concordance.json');
   const problems = new ProblemList();
   const parsed = ProjectSchema.safeParse(raw);
   if (!parsed.success) {

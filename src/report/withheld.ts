@@ -19,7 +19,7 @@ export function withheldData(model: Model, linkSet: LinkSet, clustering: Cluster
   }
   const largest = clustering.clusters.reduce((m, c) => Math.max(m, c.members.length), 0);
   return {
-    method: { hubAbove: ev.hubAbove, suspectFrom: ev.suspectFrom, meanWorksMatched: Number(num(ev.mean)), sdWorksMatched: Number(num(ev.sd)) },
+    method: { hubAbove: ev.hubAbove, suspectFrom: ev.suspectFrom, medianWorksMatched: ev.median, madWorksMatched: ev.mad },
     indiscriminateImages: ev.indiscriminate.length,
     byVerdict,
     rowsSetAside: ev.rowsSetAside,
