@@ -24,7 +24,7 @@ export function demoSitesOnce(): Promise<DemoSites> {
     await build(path.join(demo, 'release-2', 'concordance.json'), release2, { previous: release1 });
     const site1 = path.join(tmp, 'site', '2026.1'), site2 = path.join(tmp, 'site', '2027.1');
     await writeSite(release1, site1);
-    await writeSite(release2, site2);
+    await writeSite(release2, site2, { previous: site1 });
     return { tmp, release1, release2, site1, site2 };
   })();
   return demoSites;
