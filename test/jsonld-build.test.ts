@@ -10,7 +10,7 @@ import type { Unit } from '../src/rdf/index.js';
 import { releaseView } from '../src/rdf/view.js';
 import { releaseStream } from '../src/rdf/stream.js';
 import { loadVocabMap } from '../src/rdf/vocab-map.js';
-import { isomorphic } from '../src/rdf/isomorphic.js';
+import { isomorphic } from './helpers/isomorphic.js';
 import { JSONLD_CONTEXT, jsonldToNQuads } from '../src/rdf/jsonld.js';
 import { unitNodes } from '../src/publish/jsonld.js';
 import { NS } from '../src/namespaces.js';

@@ -10,7 +10,7 @@ import N3 from 'n3';
 import { Store } from 'oxigraph';
 import { build } from '../src/pipeline.js';
 import { NS, iri } from '../src/namespaces.js';
-import { isomorphic } from '../src/rdf/isomorphic.js';
+import { isomorphic } from './helpers/isomorphic.js';
 import { validate } from '../src/validate/shacl.js';
 import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';

@@ -11,7 +11,7 @@ import N3 from 'n3';
 import { iri } from '../src/namespaces.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { writeQuads, FORMATS, type RdfFormat } from '../src/rdf/serialize.js';
-import { isomorphic } from '../src/rdf/isomorphic.js';
+import { isomorphic } from './helpers/isomorphic.js';
 import { reference } from './helpers/requires.js';
 import { tempDir } from './helpers/fixture.js';
 

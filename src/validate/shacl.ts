@@ -1,8 +1,7 @@
 // Data quads + shapes quads → ValidationOutcome: the only adapter over rdf-validate-shacl, run over N3.Store.
 import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
-import SHACLValidator from 'rdf-validate-shacl';
-import defaultEnv from 'rdf-validate-shacl/src/defaultEnv.js';
+import type SHACLValidator from 'rdf-validate-shacl';
 import { UserError } from '../errors.js';
 import { iri } from '../namespaces.js';
 import { compileCore } from './engine/index.js';
@@ -26,10 +25,18 @@ export interface ValidateOptions {
 export const SHACL_ENGINES = ['builtin', 'rdf-validate-shacl'] as const;
 export type ShaclEngine = (typeof SHACL_ENGINES)[number];
 
-/** rdf-validate-shacl's default environment with `dataset()` answering an N3.Store (faster indexed matching). */
-const factory = Object.assign(Object.create(defaultEnv) as typeof defaultEnv, {
-  dataset: (quads?: Iterable<Quad>) => new N3.Store(quads ? [...quads] : undefined),
-});
+/**
+ * rdf-validate-shacl and its default environment with `dataset()` answering an N3.Store (faster indexed matching),
+ * imported only when that engine is chosen: the built-in engine never loads it.
+ */
+let reference: Promise<{ Validator: typeof SHACLValidator; factory: object }> | null = null;
+function loadReference() {
+  reference ??= Promise.all([import('rdf-validate-shacl'), import('rdf-validate-shacl/src/defaultEnv.js')]).then(([v, env]) => ({
+    Validator: v.default,
+    factory: Object.assign(Object.create(env.default) as typeof env.default, { dataset: (quads?: Iterable<Quad>) => new N3.Store(quads ? [...quads] : undefined) }),
+  }));
+  return reference;
+}
 
 const SH_RESULT = iri('sh', 'result');
 const ID = N3.termToId as (t: unknown) => string;
@@ -81,15 +88,20 @@ function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): Compil
   const fail = (err: unknown): never => {
     throw new UserError({ file: opts.shapesLabel ?? 'shapes', line: 0, field: '', message: `SHACL validation failed: ${(err as Error).message}`, hint: 'check the shapes graph' });
   };
-  let validator: SHACLValidator;
-  try {
-    validator = new SHACLValidator(toStore(shapes), { factory, maxErrors: opts.maxErrors });
-  } catch (err) {
-    return fail(err);
-  }
+  const shapesStore = toStore(shapes);
+  let validator: Promise<SHACLValidator> | null = null;
+  const compiled = () =>
+    (validator ??= loadReference().then(({ Validator, factory }) => {
+      try {
+        return new Validator(shapesStore, { factory: factory as never, maxErrors: opts.maxErrors });
+      } catch (err) {
+        return fail(err);
+      }
+    }));
   const rows = async (data: Iterable<Quad>) => {
+    const v = await compiled();
     try {
-      const report = await validator.validate(toStore(data));
+      const report = await v.validate(toStore(data));
       return rowsOf(report.dataset as N3.Store, report.term as N3.Term);
     } catch (err) {
       return fail(err);

@@ -7,7 +7,7 @@ import { fileURLToPath } from 'node:url';
 import N3 from 'n3';
 import { iri } from '../../src/namespaces.js';
 import { readRdfFile } from '../../src/rdf/read.js';
-import { isomorphic } from '../../src/rdf/isomorphic.js';
+import { isomorphic } from './isomorphic.js';
 import { validate, type ShaclEngine } from '../../src/validate/shacl.js';
 
 const RDF_TYPE = iri('rdf', 'type');
