@@ -13,6 +13,7 @@ import { validateChunks, writeValidationReport, type ValidationChunk } from '../
 import type { ShaclEngine, ValidationOutcome } from '../validate/shacl.js';
 import { outcomeOf } from '../validate/report.js';
 import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
+import { TEMP_MARKER } from './atomic.js';
 
 export interface PublishOptions {
   shapes: Quad[];
@@ -112,7 +113,7 @@ export async function writeChecksums(dir: string, known: ReadonlyMap<string, str
   const files = (await readdir(dir, { recursive: true, withFileTypes: true }))
     .filter((d) => d.isFile())
     .map((d) => path.relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name)).split(path.sep).join('/'))
-    .filter((f) => f !== 'SHA256SUMS')
+    .filter((f) => f !== 'SHA256SUMS' && f !== TEMP_MARKER)
     .sort();
   const lines: string[] = [];
   for (const f of files) lines.push(`${known.get(f) ?? (await sha256(path.join(dir, f)))}  ${f}`);
