@@ -2,6 +2,8 @@
 import type { Problem } from './errors.js';
 
 export type CenturyConvention = 'ordinal' | 'iso' | 'unknown';
+/** Languages whose date phrases concordat reads (ISO 639-1 codes). */
+export type DateLanguage = 'en' | 'de' | 'fr' | 'it' | 'es' | 'nl';
 export type Verdict = 'same' | 'part' | 'related' | 'distinct';
 
 export interface ColumnMap {
@@ -20,7 +22,11 @@ export interface PartnerConfig {
   workIri: string;
   imageIri: string;
   recordPage?: string;
+  /** Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service). */
+  imageView?: string;
   centuryConvention: CenturyConvention;
+  /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
+  language?: DateLanguage;
   catalogue: { file: string; delimiter: string; columns: ColumnMap };
 }
 
@@ -39,6 +45,12 @@ export interface Policy {
   minOverlap: number;
 }
 
+/** A decisions file as the project names it: `delimiter` absent = detected from the header line. */
+export interface DecisionFile {
+  file: string;
+  delimiter?: string;
+}
+
 /** The project file after validation, with every path resolved against the project file's folder. */
 export interface ProjectConfig {
   title: string;
@@ -47,13 +59,14 @@ export interface ProjectConfig {
   publisher: { name: string; homepage?: string };
   partners: PartnerConfig[];
   evidence: { file: string; run?: RunConfig }[];
-  decisions: string[];
+  decisions: DecisionFile[];
   gold?: string;
   policy: Policy;
   previous?: string;
   vocabMap?: string;
   /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
-  release: { version: string; issued?: string; partnerDumps?: boolean };
+  /** `csv`: how review-queue.csv, conflicts.csv and clusters.csv are written (absent = spreadsheet: BOM, CRLF). */
+  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain' };
   description?: string;
 }
 

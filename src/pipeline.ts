@@ -9,10 +9,10 @@ import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
 import { analyse, type Analysis } from './analyse/index.js';
 import { writeReports } from './report/index.js';
-import { loadVocabMap } from './rdf/vocab-map.js';
+import { loadVocabMap, type VocabMap } from './rdf/vocab-map.js';
 import type { ClusterView, ReleaseView } from './rdf/view.js';
 import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
-import { writeFolderAtomically } from './publish/atomic.js';
+import { writeFolderAtomically } from './io/atomic.js';
 import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
 import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';
@@ -33,6 +33,8 @@ export interface BuildOptions {
   progress?: (stage: string) => void;
   /** Folder of the previous release; overrides the project's "previous". */
   previous?: string;
+  /** CSV files plain (LF, no BOM) instead of for spreadsheets; overrides the project's `release.csv`. */
+  csvPlain?: boolean;
 }
 
 export interface BuildResult {
@@ -42,6 +44,8 @@ export interface BuildResult {
   links: LinkSet;
   clustering: Clustering;
   analysis: Analysis;
+  /** The vocab map the release was written with (claim kind + status → predicate). */
+  vocab: VocabMap;
   publish: PublishResult;
   /** Changes against the previous release, when there is one. */
   changes?: Changes;
@@ -93,6 +97,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   say('load');
   const { model, stats } = await load(projectFile);
   if (opts.previous) model.project.previous = path.resolve(opts.previous);
+  if (opts.csvPlain) model.project.release.csv = 'plain';
   say('link and cluster');
   const { links, clustering } = await derive(model);
   say('analyse');
@@ -101,7 +106,8 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
   const view: ReleaseView = { model, links, clusters: clusterViews(clustering, analysis), retired: clustering.retired, vocab };
   const previous = model.project.previous ? await readRelease(model.project.previous) : undefined;
-  const history = await releaseHistory(view, clustering, new Namer(model, vocab.iris), previous);
+  const namer = new Namer(model, vocab.iris);
+  const history = await releaseHistory(view, clustering, namer, previous);
   const previousVersion = previous?.snapshot.dataset;
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
@@ -114,9 +120,9 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
         EXIT.failure,
       );
     }
-    await writeReports(dir, model, links, clustering, analysis);
+    await writeReports(dir, model, links, clustering, analysis, namer);
     await writeChanges(dir, history);
     await writeChecksums(dir, publish.hashes);
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, publish, changes: history.changes };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab, publish, changes: history.changes };
   });
 }

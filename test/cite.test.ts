@@ -8,8 +8,8 @@ import { build } from '../src/pipeline.js';
 import { cite, CITE_FORMATS } from '../src/cite/index.js';
 import { citationCsl } from '../src/cite/csl.js';
 import { citationJsonLd } from '../src/cite/jsonld.js';
-import { readCsv } from '../src/load/csv.js';
-import { expandTemplate } from '../src/load/template.js';
+import { readCsv } from '../src/io/csv-read.js';
+import { expandTemplate } from '../src/io/template.js';
 import { loadProjectFile } from '../src/load/project.js';
 import { readRdfFile } from '../src/rdf/read.js';
 import { load } from '../src/load/index.js';
@@ -68,7 +68,7 @@ test('a citation\'s image matches are exactly the evidence rows behind the link 
 test('a curator-confirmed claim names the curator and date of the deciding row of the decisions file', async () => {
   await ready;
   const p = loadProjectFile(project);
-  const decisions = await rows(p.decisions[0]);
+  const decisions = await rows(p.decisions[0].file);
   const last = new Map<string, string[]>();
   for (const d of decisions) last.set([d[0], d[1]].sort().join('|'), d);
   const same = [...last.values()].filter((d) => d[2] === 'same').slice(0, 5);

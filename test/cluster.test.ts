@@ -228,9 +228,10 @@ test('clusters.csv round-trips: written registry reads back to the same registry
   const file = path.join(tmp(), 'clusters.csv');
   await writeClusterRegistry(file, m, c);
   const text = readFileSync(file, 'utf8');
-  assert.equal(text.split('\n')[0], 'cluster,work,status,replaced_by');
-  assert.ok(text.includes('c000004,,retired,c000001\nc000004,,retired,c000002\n'));
-  assert.ok(text.includes('c000002,,retired,\n'));
+  // written for spreadsheets by default (UTF-8 with BOM, CRLF; RFC 4180 §2.1) and read back in that form
+  assert.equal(text.split('\r\n')[0], '\uFEFFcluster,work,status,replaced_by');
+  assert.ok(text.includes('c000004,,retired,c000001\r\nc000004,,retired,c000002\r\n'));
+  assert.ok(text.includes('c000002,,retired,\r\n'));
   assert.deepEqual(await readClusterRegistry(file), registryOf(m, c));
 });
 

@@ -6,7 +6,7 @@ import { writeFileSync } from 'node:fs';
 import path from 'node:path';
 import fc from 'fast-check';
 import { parseString } from 'fast-csv';
-import { readCsv, type CsvRow } from '../src/load/csv.js';
+import { readCsv, type CsvRow } from '../src/io/csv-read.js';
 import { tempDir } from './helpers/fixture.js';
 
 const dir = tempDir('concordat-csv-');

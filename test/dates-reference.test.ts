@@ -1,10 +1,10 @@
-// Offline EDTF reference files (../shared/reference/edtf) → checks of src/analyse/dates.ts, one test per entry.
+// Offline EDTF reference files (../shared/reference/edtf) → checks of src/dates/index.ts, one test per entry.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { existsSync, readFileSync } from 'node:fs';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { type DateReading, type IntervalReading, parseDate } from '../src/analyse/dates.js';
+import { type DateReading, type IntervalReading, parseDate } from '../src/dates/index.js';
 import { reference } from './helpers/requires.js';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../..');

@@ -2,7 +2,7 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
-import { type CenturyConvention, type DateForm, LATEST_YEAR, compareDates, parseDate } from '../src/analyse/dates.js';
+import { type CenturyConvention, type DateForm, LATEST_YEAR, compareDates, parseDate } from '../src/dates/index.js';
 
 type Row = [text: string, convention: CenturyConvention, start: number, end: number, form: DateForm, approximate?: boolean];
 
@@ -24,7 +24,7 @@ function shouldReject(text: string, reason: RegExp): void {
 
 const U = 'unknown', O = 'ordinal', I = 'iso';
 
-// Widths used below (chosen in src/analyse/dates/calendar.ts, common practice, no source): ca. a year ±10,
+// Widths used below (chosen in src/dates/calendar.ts, common practice, no source): ca. a year ±10,
 // a decade ±10, a century ±25; before/after 50 years; early/mid/late = thirds (0–32, 33–66, 67–99), halves, quarters.
 const FREE_TEXT: Row[] = [
   ['1475', U, 1475, 1475, 'year'],
@@ -145,7 +145,7 @@ test('text we cannot read is invalid without claiming impossibility', () => {
 
 type Pair = [a: string, convA: CenturyConvention, b: string, convB: CenturyConvention, expected: ReturnType<typeof compareDates>];
 
-// Definition in src/analyse/dates/compare.ts: disjoint → conflict; overlapping only in the years where ordinal and
+// Definition in src/dates/compare.ts: disjoint → conflict; overlapping only in the years where ordinal and
 // ISO century counting disagree (disjoint when every century label is read by one strict convention) → soft.
 const PAIRS: Pair[] = [
   ['1475', U, 'late 15th century', U, 'agree'],

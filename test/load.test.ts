@@ -94,6 +94,7 @@ const cases: BadCase[] = [
   { name: 'a semicolon evidence file', edits: { 'evidence/run1.csv': (t) => t.replace(/,/g, ';') }, file: 'evidence/run1.csv', line: 1, field: '', message: /looks ";"-separated/, hint: /comma-separated/ },
   { name: 'a decimal comma in a score', edits: { 'evidence/run1.csv': addRow('alpha:a-3,beta:n3,"0,92",1') }, file: 'evidence/run1.csv', line: 6, field: 'score', message: /score "0,92"/, hint: /write a decimal point: 0\.92/ },
   { name: 'a work ID in the wrong case', edits: { 'decisions/d.csv': addRow('alpha:a 1,beta:B2,same,Jo Invented,2026-10-22,') }, file: 'decisions/d.csv', line: 4, field: 'work_a', message: /unknown work "a 1" of partner "alpha"/, hint: /did you mean "alpha:A 1"\?/ },
+  { name: 'unknown date language', edits: { 'concordance.json': json((o) => (o.partners[1].language = 'deu')) }, file: 'concordance.json', line: 0, field: 'partners[1].language', message: /one of en, de, fr, it, es, nl/ },
   { name: 'unknown century convention', edits: { 'concordance.json': json((o) => (o.partners[0].centuryConvention = 'roman')) }, file: 'concordance.json', line: 0, field: 'partners[0].centuryConvention', message: /ordinal|iso/ },
 ];
 
@@ -116,13 +117,26 @@ for (const c of cases) {
   });
 }
 
-test('a date no form reads is a warning, on the first row of its work only', async () => {
-  const dir = fixtureCopy('load/base', { 'catalogues/beta.tsv': addRow('B9\tn9\tX\tRenaissance') });
+test('a date no form reads is one warning per distinct phrase, counting the records that use it', async () => {
+  const rows = ['B9\tn9\tX\tRenaissance', 'B9\tn10\tX\tRenaissance', 'B10\tn11\tY\tRenaissance', 'B11\tn12\tZ\tundatiert', 'B12\tn13\tZ\tum 1480'];
+  const dir = fixtureCopy('load/base', { 'catalogues/beta.tsv': (t) => t + rows.join('\n') + '\n' });
   const { model } = await load(path.join(dir, 'concordance.json'));
-  const w = model.warnings.filter((x) => /"Renaissance" is not a form concordat reads/.test(x.message));
-  assert.equal(w.length, 1);
-  assert.equal(w[0].line, 6);
-  assert.equal(w[0].field, 'Datierung');
+  const unread = model.warnings.filter((x) => /is not a form concordat reads/.test(x.message));
+  assert.deepEqual(unread.map((x) => [x.line, x.field, x.message.replace(/ is not a form.*/, '')]), [
+    [6, 'Datierung', 'date "Renaissance" (2 records, first on this line)'], // B9's two photographs are one record
+    [9, 'Datierung', 'date "undatiert" (1 record on this line)'],
+  ]);
+  assert.match(unread[0].hint ?? '', /"language"/, 'a partner without a language is told it can set one');
+});
+
+test('a partner\'s language decides which phrases are read', async () => {
+  const dir = fixtureCopy('load/base', {
+    'catalogues/beta.tsv': addRow('B9\tn9\tX\tvers 1480'),
+    'concordance.json': json((o) => (o.partners[1].language = 'de')),
+  });
+  const { model } = await load(path.join(dir, 'concordance.json'));
+  assert.equal(model.project.partners[1].language, 'de');
+  assert.equal(model.warnings.filter((x) => /"vers 1480" \(1 record on this line\) is not a form/.test(x.message)).length, 1);
 });
 
 test('JSON syntax errors give line and column', async () => {

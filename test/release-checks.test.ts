@@ -98,7 +98,7 @@ test('every class the release uses is the target class of some shape', () => {
 
 // ---------------------------------------------------------------- SPARQL invariants (SPARQL 1.1 Query, in oxigraph)
 const P = `PREFIX cx: <${NS.cx}> PREFIX prov: <${NS.prov}> PREFIX owl: <${NS.owl}> PREFIX skos: <${NS.skos}> PREFIX dcterms: <${NS.dcterms}> PREFIX void: <${NS.void}> PREFIX rdf: <${NS.rdf}> PREFIX rdfs: <${NS.rdfs}>\n`;
-const CLAIM = 'owl:sameAs, skos:closeMatch, skos:exactMatch, skos:relatedMatch, dcterms:isPartOf, owl:differentFrom';
+const CLAIM = 'owl:sameAs, skos:closeMatch, skos:exactMatch, skos:relatedMatch, dcterms:isPartOf, cx:proposedPartOf, owl:differentFrom';
 const base = release.model.project.base;
 const claimsGraph = `<${base}graph/claims>`;
 const spaces = release.model.project.partners.map((p) => [p.key, p.workIri.slice(0, p.workIri.indexOf('{'))] as const);
@@ -175,6 +175,20 @@ const INVARIANTS: Invariant[] = [
       { inject: `<${base}work/injected> cx:member ${inSpace(1, 'undescribed')} .`, caught: inSpace(1, 'undescribed') },
     ],
   },
+  {
+    // Every kind of claim as cautious as its evidence: a predicate the vocab map gives only to confirmed claims
+    // (owl:sameAs, dcterms:isPartOf) never stands for an unconfirmed one, neither as a claim triple without a confirmed
+    // link behind it nor as the relation of a link that is not confirmed.
+    name: 'no unconfirmed claim uses a confirmed-only predicate',
+    query: `SELECT ?s ?o WHERE { VALUES ?p { ${release.vocab.confirmedOnly.map((p) => `<${p}>`).join(' ')} }
+      { ?s ?p ?o . FILTER NOT EXISTS { ?l a cx:Link ; cx:subjectWork ?s ; cx:objectWork ?o ; cx:relation ?p ; cx:status cx:Confirmed } }
+      UNION { ?l cx:relation ?p ; cx:status ?st ; cx:subjectWork ?s ; cx:objectWork ?o . FILTER(?st != cx:Confirmed) } }`,
+    breaks: [
+      { inject: `${inSpace(0, 'injected-a')} dcterms:isPartOf ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
+      { inject: `<${base}link/injected> cx:relation dcterms:isPartOf ; cx:status cx:Proposed ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
+      { inject: `${inSpace(2, 'injected-c')} owl:sameAs ${inSpace(1, 'injected-b')} .`, caught: inSpace(2, 'injected-c') },
+    ],
+  },
 ];
 const proposed = rows(storeWith(), `SELECT ?s ?o WHERE { ?l cx:status cx:Proposed ; cx:relation skos:closeMatch ; cx:subjectWork ?s ; cx:objectWork ?o } ORDER BY ?s ?o LIMIT 1`)[0];
 INVARIANTS[3].breaks.push(
@@ -183,8 +197,17 @@ INVARIANTS[3].breaks.push(
 );
 
 const demoStore = storeWith();
+test('the vocab map gives owl:sameAs and dcterms:isPartOf to confirmed claims only; proposed part links get cx:proposedPartOf', () => {
+  assert.deepEqual(release.vocab.confirmedOnly, [iri('dcterms', 'isPartOf'), iri('owl', 'sameAs')]);
+  assert.equal(release.vocab.predicate('part', 'proposed'), iri('cx', 'proposedPartOf'));
+  assert.equal(release.vocab.predicate('part', 'confirmed'), iri('dcterms', 'isPartOf'));
+});
+
 test('the demo release holds claims, links, clusters and partner works for the invariants to range over', () => {
   const count = (q: string) => Number(rows(demoStore, q)[0].get('n')!.value);
+  // proposed and confirmed part links both, so the cautious-claims invariant has something to range over
+  assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Proposed ; cx:relation cx:proposedPartOf }`) > 0);
+  assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Confirmed ; cx:relation dcterms:isPartOf }`) > 0);
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?s owl:sameAs ?o }`) > 0);
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l a cx:Link }`) > 50);
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?w cx:partner ?k }`) > 50);

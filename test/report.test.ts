@@ -5,12 +5,12 @@ import assert from 'node:assert/strict';
 import { readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import path from 'node:path';
-import { csvCell, csvLine, neutralise } from '../src/util/csv-write.js';
+import { csvCell, csvLine, neutralise } from '../src/io/csv-write.js';
 import { link } from '../src/link/index.js';
 import { cluster, readClusterRegistry, registryOf } from '../src/cluster/index.js';
 import { analyse } from '../src/analyse/index.js';
 import { writeReports, REPORT_FILES, REVIEW_HEADER } from '../src/report/index.js';
-import { readCsv } from '../src/load/csv.js';
+import { readCsv } from '../src/io/csv-read.js';
 import { loadDecisions } from '../src/load/decisions.js';
 import { load } from '../src/load/index.js';
 import { derive } from '../src/pipeline.js';
@@ -18,6 +18,10 @@ import { ProblemList } from '../src/errors.js';
 import type { Decision, Model } from '../src/model.js';
 import { tinyModel } from './helpers/model.js';
 import { fixtureCopy, tempDir } from './helpers/fixture.js';
+import { Namer } from '../src/rdf/index.js';
+import { loadVocabMap } from '../src/rdf/vocab-map.js';
+
+const namerOf = (m: Model) => new Namer(m, loadVocabMap(undefined).iris);
 
 const tmp = () => tempDir('concordat-report-');
 
@@ -77,25 +81,43 @@ async function reportInto(m: Model): Promise<{ dir: string; files: string[] }> {
   const ls = link(m);
   const c = cluster(m, ls);
   const dir = tmp();
-  return { dir, files: await writeReports(dir, m, ls, c, analyse(m, ls, c)) };
+  return { dir, files: await writeReports(dir, m, ls, c, analyse(m, ls, c), namerOf(m)) };
 }
 
-test('report files: neutralised spreadsheet cells, untouched references, no BOM, LF only', async () => {
+test('report files: neutralised spreadsheet cells, untouched references; CSV files with BOM and CRLF, the rest without', async () => {
   const { dir, files } = await reportInto(richModel());
   assert.deepEqual(files.map((f) => path.basename(f)), [...REPORT_FILES]);
   for (const f of files) {
     const bytes = readFileSync(f);
-    assert.notDeepEqual([...bytes.subarray(0, 3)], [0xef, 0xbb, 0xbf], `${path.basename(f)}: no BOM`);
+    const csv = f.endsWith('.csv');
+    assert.equal(bytes.subarray(0, 3).equals(Buffer.from([0xef, 0xbb, 0xbf])), csv, `${path.basename(f)}: ${csv ? 'a' : 'no'} BOM`);
+    // RFC 4180 §2.1: each record ends with CRLF; a line break inside a quoted cell is content
+    const outside = bytes.toString('utf8').replace(/"(?:[^"]|"")*"/g, '');
+    if (csv) assert.ok(!/[^\r]\n/.test(outside) && outside.endsWith('\r\n'), `${path.basename(f)}: CRLF record ends`);
+    else assert.ok(!outside.includes('\r'), `${path.basename(f)}: LF only`);
   }
   const queue = readFileSync(path.join(dir, 'review-queue.csv'), 'utf8');
-  assert.equal(queue.split('\n')[0], REVIEW_HEADER.join(','));
+  assert.equal(queue.slice(1).split('\r\n')[0], REVIEW_HEADER.join(','));
   assert.ok(queue.includes(`"'=HYPERLINK(""http://evil.example/"",""Madonna"")"`), 'title neutralised and quoted');
   assert.ok(queue.includes(`,'@Madonna,`));
-  assert.ok(!/\r/.test(queue.replace(/"[^"]*"/g, '')), 'LF record ends');
   const conflicts = readFileSync(path.join(dir, 'conflicts.csv'), 'utf8');
   assert.ok(conflicts.includes(",'-0500/-0401,'-0300,'-500/-401,'-300,"), 'dates as catalogued and intervals read neutralised');
   const registry = readFileSync(path.join(dir, 'clusters.csv'), 'utf8');
   assert.ok(!registry.includes("'"), 'clusters.csv is never neutralised');
+});
+
+test('release.csv "plain": the same CSV files with LF and no BOM, and clusters.csv reads back either way', async () => {
+  const m = richModel();
+  const sheet = await reportInto(m);
+  m.project.release.csv = 'plain';
+  const plain = await reportInto(m);
+  for (const name of ['review-queue.csv', 'conflicts.csv', 'clusters.csv']) {
+    const a = readFileSync(path.join(sheet.dir, name), 'utf8'), b = readFileSync(path.join(plain.dir, name), 'utf8');
+    assert.ok(!b.startsWith('\uFEFF') && !b.replace(/"(?:[^"]|"")*"/g, '').includes('\r'), `${name}: plain`);
+    assert.equal(a.slice(1).replace(/\r\n/g, '\n'), b, `${name}: same records`);
+  }
+  const c = cluster(m, link(m));
+  for (const dir of [sheet.dir, plain.dir]) assert.deepEqual(await readClusterRegistry(path.join(dir, 'clusters.csv')), registryOf(m, c));
 });
 
 test('a filled-in review queue is a valid decisions file (read by header name, extra columns ignored)', async () => {
@@ -104,6 +126,7 @@ test('a filled-in review queue is a valid decisions file (read by header name, e
   const queueFile = path.join(dir, 'review-queue.csv');
   const rows: string[][] = [];
   for await (const r of readCsv(queueFile, ',')) rows.push(r.fields);
+  assert.equal(rows[0][4], 'decided_on');
   assert.ok(rows.length > 3, 'the queue has rows');
   const filled = rows.map((r, i) => (i === 0 ? r : [r[0], r[1], i % 2 ? 'same' : 'distinct', 'Jo Curator', '2026-12-01', `row ${i}`, ...r.slice(6)]));
   const file = path.join(dir, 'filled.csv');
@@ -111,7 +134,7 @@ test('a filled-in review queue is a valid decisions file (read by header name, e
   const keys = m.project.partners.map((p) => p.key);
   const out: Decision[] = [];
   const problems = new ProblemList();
-  await loadDecisions(file, { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex }, out, problems);
+  await loadDecisions({ file }, { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex }, out, problems);
   assert.deepEqual(problems.items, []);
   assert.equal(out.length, rows.length - 1);
   out.forEach((d, i) => {
@@ -141,7 +164,7 @@ test('end to end from a project folder: loaded model → reports, clusters.csv r
     const { model } = await load(project);
     const { links, clustering } = await derive(model);
     const dir = tmp();
-    const files = await writeReports(dir, model, links, clustering, analyse(model, links, clustering));
+    const files = await writeReports(dir, model, links, clustering, analyse(model, links, clustering), namerOf(model));
     texts.push(files.map((f) => readFileSync(f, 'utf8')));
     assert.deepEqual(await readClusterRegistry(path.join(dir, 'clusters.csv')), registryOf(model, clustering));
     const report = JSON.parse(readFileSync(path.join(dir, 'report.json'), 'utf8'));

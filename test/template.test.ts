@@ -1,7 +1,7 @@
 // RFC 6570 level-1 templates: expansion and checking.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { checkTemplate, compileTemplate, expandTemplate } from '../src/load/template.js';
+import { checkTemplate, compileTemplate, expandTemplate } from '../src/io/template.js';
 
 // RFC 6570 §1.2 (Level 1 examples) and §3.2.2 (Simple String Expansion examples), with the variable values of §3.2
 // (var := "value", hello := "Hello World!", half := "50%", empty := "", undef undefined). Transcribed from memory

@@ -1,7 +1,7 @@
 // Clusters + catalogued dates → pairs of members whose dates conflict (disjoint) or softly conflict (century label).
 import type { Model } from '../model.js';
 import type { Clustering } from '../cluster/types.js';
-import { compareDates, type DateReading } from './dates.js';
+import { compareDates, type DateReading } from '../dates/index.js';
 import type { DateConflict } from './types.js';
 
 /**

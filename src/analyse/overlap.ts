@@ -4,7 +4,7 @@ import { isClaim } from '../link/index.js';
 import type { LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import { adjacency } from '../cluster/graph.js';
-import type { DateReading } from './dates.js';
+import type { DateReading } from '../dates/index.js';
 import { centuryOf, UNDATED } from './readings.js';
 import type { CenturyCell, OverlapCell, OverlapStats } from './types.js';
 

@@ -1,16 +1,17 @@
 // Works → their catalogued dates read as year intervals (per partner convention), and record pages; cached per work.
 import type { Model } from '../model.js';
-import { compileTemplate } from '../load/template.js';
-import { parseDate, type DateReading } from './dates.js';
+import { compileTemplate } from '../io/template.js';
+import { parseDate, type DateReading } from '../dates/index.js';
 
-/** Date reading of a work under its partner's century convention (design: centuryConvention), parsed once. */
+/** Date reading of a work under its partner's century convention and date language, parsed once. */
 export function dateReader(model: Model): (w: number) => DateReading {
   const cache: (DateReading | undefined)[] = new Array(model.works.length);
   return (w) => {
     let r = cache[w];
     if (r === undefined) {
       const work = model.works[w];
-      r = cache[w] = parseDate(work.date, model.project.partners[work.partner].centuryConvention);
+      const partner = model.project.partners[work.partner];
+      r = cache[w] = parseDate(work.date, partner.centuryConvention, partner.language);
     }
     return r;
   };

@@ -1,5 +1,5 @@
 // What the analyse stage finds: date conflicts, overlap statistics, agreement with the gold concordance, review queue.
-import type { IntervalReading } from './dates.js';
+import type { IntervalReading } from '../dates/index.js';
 import type { LinkKind, LinkStatus } from '../link/types.js';
 
 /** Two members of one cluster whose catalogued dates disagree (compareDates `conflict` or `soft`). */

@@ -1,7 +1,7 @@
 // A citation target as typed (`partner:work`, a work, link or cluster IRI) → the links to cite, or nearest matches.
 import N3 from 'n3';
 import { iri } from '../namespaces.js';
-import { editDistance } from '../load/did-you-mean.js';
+import { editDistance } from '../io/did-you-mean.js';
 import { refOfWorkIri } from '../history/names.js';
 
 const { namedNode } = N3.DataFactory;

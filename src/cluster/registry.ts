@@ -1,6 +1,7 @@
 // The cluster ID registry (clusters.csv) ↔ ClusterRegistry: written with every release, read back from the previous one.
 //
-// Format of clusters.csv (RFC 4180, LF, UTF-8 without BOM; never neutralised: every cell is an ID the tool reads back):
+// Format of clusters.csv (RFC 4180, UTF-8; with BOM and CRLF for spreadsheets unless the project's release.csv is `plain`,
+// then LF without BOM; both read back; never neutralised: every cell is an ID the tool reads back):
 //   cluster,work,status,replaced_by
 //   c000001,harbour:12,active,          one row per member of an active cluster (work = partnerKey:workId)
 //   c000004,,retired,c000001            one row per successor of a retired ID (a merge has one, a split+merge several)
@@ -10,8 +11,8 @@
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import { UserError, type Problem } from '../errors.js';
-import { readCsv } from '../load/csv.js';
-import { CsvFile } from '../util/csv-write.js';
+import { readCsv } from '../io/csv-read.js';
+import { CsvFile } from '../io/csv-write.js';
 import { clusterIdNumber } from './ids.js';
 import type { ClusterRegistry, Clustering, RetiredId } from './types.js';
 
@@ -26,7 +27,7 @@ export function registryOf(model: Model, clustering: Clustering): ClusterRegistr
 
 /** Writes clusters.csv (format in this file's header comment) atomically; returns its path. */
 export async function writeClusterRegistry(file: string, model: Model, clustering: Clustering): Promise<string> {
-  const out = new CsvFile(file, CLUSTERS_CSV_HEADER);
+  const out = new CsvFile(file, CLUSTERS_CSV_HEADER, undefined, model.project.release.csv ?? 'spreadsheet');
   for (const [id, refs] of registryOf(model, clustering).active) for (const r of refs) await out.row([id, r, 'active', '']);
   for (const r of clustering.retired) {
     if (r.replacedBy.length === 0) await out.row([r.id, '', 'retired', '']);

@@ -5,9 +5,10 @@ import type { Column } from '../util/columns.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { progress } from '../util/progress.js';
-import { detached } from './csv.js';
+import { detached } from '../io/csv-read.js';
 import { readTable } from './table.js';
 import { checkCatalogueDate } from './dates.js';
+import { DATE_LANGUAGES } from '../dates/index.js';
 
 /** Below this many pixels on the shorter side, visual matching gets unreliable (rule of thumb of the trade, no published source). */
 export const MIN_IMAGE_SIDE = 300;
@@ -33,6 +34,8 @@ export async function loadCatalogue(
   const optional = [c.title, c.date, c.width, c.height].filter((x): x is string => !!x);
   const required = [c.work, c.image, ...optional];
   const disagreeing = new Set<number>();
+  /** Distinct date phrases we cannot read: one warning each, with the number of records (works) that use it. */
+  const unread = new Map<string, { line: number; records: number; hint: string }>();
   let size = 0;
   try { size = statSync(file).size; } catch { /* a missing file is reported by the reader */ }
   const bar = progress(`catalogue ${path.basename(file)}`, Math.round(size / 1048576), 'MiB');
@@ -46,10 +49,13 @@ export async function loadCatalogue(
       const title = c.title ? detached(row.get(c.title).trim()) : '';
       const date = c.date ? detached(row.get(c.date).trim()) : '';
       if (date) {
-        const bad = checkCatalogueDate(date, partner.centuryConvention);
+        const bad = checkCatalogueDate(date, partner.centuryConvention, partner.language);
         if (bad?.kind === 'impossible') problems.add({ file, line: row.line, field: c.date!, message: `impossible date "${date}": ${bad.reason}`, hint: bad.hint });
-        else if (bad && !workIndex.has(workId))
-          warnings.push({ file, line: row.line, field: c.date!, message: `date "${date}" is not a form concordat reads; it is published as catalogued and left out of date comparisons`, hint: bad.hint });
+        else if (bad && !workIndex.has(workId)) {
+          const seen = unread.get(date);
+          if (seen === undefined) unread.set(date, { line: row.line, records: 1, hint: bad.hint });
+          else seen.records++;
+        }
       }
       let w = workIndex.get(workId);
       if (w === undefined) {
@@ -90,5 +96,9 @@ export async function loadCatalogue(
     }
   } finally {
     bar.stop();
+  }
+  for (const [date, u] of unread) {
+    const records = u.records === 1 ? '1 record' : `${u.records} records, first`;
+    warnings.push({ file, line: u.line, field: c.date!, message: `date "${date}" (${records} on this line) is not a form concordat reads; it is published as catalogued and left out of date comparisons`, hint: partner.language === undefined ? `${u.hint}; or set the partner's "language" (${DATE_LANGUAGES.join(', ')})` : u.hint });
   }
 }

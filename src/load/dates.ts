@@ -1,13 +1,13 @@
-// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in analyse/dates).
-import { parseDate } from '../analyse/dates.js';
-import type { CenturyConvention } from '../model.js';
+// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in src/dates).
+import { parseDate } from '../dates/index.js';
+import type { CenturyConvention, DateLanguage } from '../model.js';
 
 /**
  * Impossible dates are bad input (month 13, 31 April, a range ending before it starts); text we merely cannot read
  * ("undated", "Renaissance") is kept as catalogued and left out of date comparisons. Returns the reason when impossible.
  */
-export function checkCatalogueDate(text: string, convention: CenturyConvention): { kind: 'impossible' | 'unread'; reason: string; hint: string } | undefined {
-  const r = parseDate(text, convention);
+export function checkCatalogueDate(text: string, convention: CenturyConvention, language?: DateLanguage): { kind: 'impossible' | 'unread'; reason: string; hint: string } | undefined {
+  const r = parseDate(text, convention, language);
   if (r.kind !== 'invalid') return undefined;
   return { kind: IMPOSSIBLE.test(r.reason) ? 'impossible' : 'unread', reason: r.reason, hint: r.hint };
 }

@@ -4,7 +4,7 @@ import type { RunConfig } from '../model.js';
 import { float64, int32 } from '../util/columns.js';
 import { readTable } from './table.js';
 import { resolveRef, type RefResolver } from './refs.js';
-import { didYouMean } from './did-you-mean.js';
+import { didYouMean } from '../io/did-you-mean.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { progress } from '../util/progress.js';

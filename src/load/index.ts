@@ -12,6 +12,8 @@ import type { RefResolver } from './refs.js';
 export interface LoadStats {
   evidenceRows: number;
   sameRecordMatches: number;
+  /** Decisions-file rows naming a pair but no verdict (skipped). */
+  undecidedRows: number;
 }
 
 export interface Loaded {
@@ -44,7 +46,7 @@ export async function load(projectFile: string): Promise<Loaded> {
   const runs: RunConfig[] = [];
   for (const e of project.evidence) if (e.run && !runs.some((r) => r.id === e.run!.id)) runs.push(e.run);
   const m = newMatchColumns();
-  const stats: LoadStats = { evidenceRows: 0, sameRecordMatches: 0 };
+  const stats: LoadStats = { evidenceRows: 0, sameRecordMatches: 0, undecidedRows: 0 };
   const evidenceFiles = project.evidence.map((e) => e.file);
   const catalogueOk = problems.size === 0;
   for (const [i, e] of project.evidence.entries()) {
@@ -60,7 +62,7 @@ export async function load(projectFile: string): Promise<Loaded> {
   const decisions: Decision[] = [];
   const gold: GoldPair[] = [];
   if (catalogueOk) {
-    for (const f of project.decisions) await loadDecisions(f, workRefs, decisions, problems);
+    for (const f of project.decisions) stats.undecidedRows += (await loadDecisions(f, workRefs, decisions, problems, warnings)).undecided;
     if (project.gold) await loadGold(project.gold, workRefs, gold, problems);
   }
   problems.throwIfAny();

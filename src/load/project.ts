@@ -4,8 +4,8 @@ import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, UserError, type Problem } from '../errors.js';
 import type { ProjectConfig } from '../model.js';
-import { checkTemplate } from './template.js';
-import { didYouMean } from './did-you-mean.js';
+import { checkTemplate } from '../io/template.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
 const iri = (what: string) =>
@@ -32,13 +32,27 @@ const PartnerSchema = z.strictObject({
   workIri: z.string(),
   imageIri: z.string(),
   recordPage: z.string().optional(),
+  imageView: z.string().optional(),
   centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
+  language: z.enum(['en', 'de', 'fr', 'it', 'es', 'nl'], { message: 'language: one of en, de, fr, it, es, nl (the language of the date phrases)' }).optional(),
   catalogue: z.strictObject({
     file: nonEmpty,
     delimiter: z.string().length(1, { message: 'delimiter must be one character, e.g. "," ";" or "\\t"' }).default(','),
     columns: ColumnsSchema,
   }),
 });
+
+/** Column separators a decisions file may use (a spreadsheet saves with "," ";" or tab, by locale). */
+export const DECISION_DELIMITERS = [',', ';', '\t', '|'] as const;
+
+/** A decisions file: a path, or `{ "file", "delimiter" }` to set the separator instead of detecting it. */
+const DecisionFileSchema = z.preprocess(
+  (v) => (typeof v === 'string' ? { file: v } : v),
+  z.strictObject({
+    file: nonEmpty,
+    delimiter: z.enum(DECISION_DELIMITERS, { message: 'delimiter must be one of "," ";" "\\t" "|" (leave it out to detect it from the header)' }).optional(),
+  }),
+);
 
 const RunSchema = z.strictObject({
   id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, { message: 'run id: letters, digits, . _ - only' }),
@@ -68,7 +82,7 @@ export const ProjectSchema = z.strictObject({
   publisher: z.strictObject({ name: nonEmpty, homepage: iri('homepage').optional() }),
   partners: z.array(PartnerSchema).min(1, { message: 'at least one partner is needed' }),
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
-  decisions: z.array(nonEmpty).default([]),
+  decisions: z.array(DecisionFileSchema).default([]),
   gold: nonEmpty.optional(),
   policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 }),
   previous: nonEmpty.optional(),
@@ -79,8 +93,10 @@ export const ProjectSchema = z.strictObject({
       issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional(),
       /** Write partners/<key>.{ttl,nq,jsonld} (default true). Each slice repeats the clusters its partner takes part in. */
       partnerDumps: z.boolean().default(true),
+      /** CSV files for spreadsheets (UTF-8 with BOM, CRLF; the default) or plain (LF, no BOM) for pipelines. */
+      csv: z.enum(['spreadsheet', 'plain']).default('spreadsheet'),
     })
-    .default({ version: '0', partnerDumps: true }),
+    .default({ version: '0', partnerDumps: true, csv: 'spreadsheet' }),
 });
 
 /** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */
@@ -91,7 +107,7 @@ function keysAt(pathParts: PropertyKey[]): string[] {
   const unwrap = () => {
     for (;;) {
       if (s && wrappers.has(s.def?.type)) s = s.def.innerType;
-      else if (s?.def?.type === 'pipe') s = s.def.in;
+      else if (s?.def?.type === 'pipe') s = s.def.in?.def?.type === 'transform' ? s.def.out : s.def.in; // z.preprocess: the schema after the transform
       else return;
     }
   };
@@ -167,6 +183,7 @@ export function loadProjectFile(file: string): ProjectConfig {
       ['workIri', partner.workIri, 'work', ['work']],
       ['imageIri', partner.imageIri, 'image', ['image', 'work']],
       ['recordPage', partner.recordPage, 'work', ['work']],
+      ['imageView', partner.imageView, 'image', ['image', 'work']],
     ];
     for (const [field, tpl, req, allowed] of templates) {
       if (tpl === undefined) continue;
@@ -189,7 +206,7 @@ export function loadProjectFile(file: string): ProjectConfig {
     ...p,
     partners: p.partners.map((x) => ({ ...x, catalogue: { ...x.catalogue, file: abs(x.catalogue.file) } })),
     evidence: p.evidence.map((e) => ({ ...e, file: abs(e.file) })),
-    decisions: p.decisions.map(abs),
+    decisions: p.decisions.map((d) => ({ ...d, file: abs(d.file) })),
     gold: p.gold === undefined ? undefined : abs(p.gold),
     previous: p.previous === undefined ? undefined : abs(p.previous),
     vocabMap: p.vocabMap === undefined ? undefined : abs(p.vocabMap),

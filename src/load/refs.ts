@@ -1,6 +1,6 @@
 // `partnerKey:id` references (evidence, decisions, gold) → image or work numbers, with hints for near misses.
 import type { Problem } from '../errors.js';
-import { didYouMean } from './did-you-mean.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 export interface RefResolver {
   keys: string[];

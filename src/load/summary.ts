@@ -9,6 +9,8 @@ export interface CheckSummary {
   partners: { key: string; name: string; works: number; images: number }[];
   evidence: { rows: number; matches: number; sameRecordSetAside: number; files: number; runs: string[] };
   decisions: number;
+  /** Decisions-file rows without a verdict, skipped (a review queue's undecided rows). */
+  decisionRowsWithoutVerdict: number;
   goldPairs: number;
   warnings: { file: string; line: number; field: string; message: string; hint?: string }[];
 }
@@ -26,6 +28,7 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
     partners,
     evidence: { rows: stats.evidenceRows, matches: model.matches.count, sameRecordSetAside: stats.sameRecordMatches, files: model.evidenceFiles.length, runs: model.runs.map((r) => r.id) },
     decisions: model.decisions.length,
+    decisionRowsWithoutVerdict: stats.undecidedRows,
     goldPairs: model.gold.length,
     warnings: model.warnings.map((w) => ({ ...w, file: displayPath(w.file) })),
   };
@@ -38,7 +41,7 @@ export function summaryText(s: CheckSummary): string {
   lines.push(
     '',
     `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${s.evidence.runs.join(', ') || 'none'}; ${s.evidence.matches} cross-record image matches`,
-    `decisions: ${s.decisions}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
+    `decisions: ${s.decisions}${s.decisionRowsWithoutVerdict ? ` (${s.decisionRowsWithoutVerdict} rows without a verdict skipped)` : ''}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
   );
   for (const w of s.warnings) lines.push('  warning: ' + formatProblem(w));
   return lines.join('\n') + '\n';

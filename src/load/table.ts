@@ -1,7 +1,7 @@
 // CSV rows → header-checked records: finds the named columns, reports ragged rows and header-only files.
 import type { ProblemList } from '../errors.js';
-import { readCsvBatches } from './csv.js';
-import { didYouMean } from './did-you-mean.js';
+import { readCsvBatches } from '../io/csv-read.js';
+import { didYouMean } from '../io/did-you-mean.js';
 
 export interface TableRow {
   line: number;
@@ -32,7 +32,7 @@ export async function* readTable(
       const other = [';', '\t', ','].find((d) => d !== delimiter && header!.length === 1 && header![0].split(d).length >= Math.max(2, required.length));
       if (other) {
         const name = other === '\t' ? 'tab' : `"${other}"`;
-        problems.add({ file, line, field: '', message: `the header is one column; it looks ${name}-separated`, hint: delimiter === ',' && context === 'evidence' ? 'evidence, decisions and gold files are comma-separated: save the file with ","' : `set "delimiter": ${JSON.stringify(other)} for this file in concordance.json` });
+        problems.add({ file, line, field: '', message: `the header is one column; it looks ${name}-separated`, hint: context === 'evidence' || context === 'gold concordance' ? `${context} files are comma-separated: save the file with ","` : `set "delimiter": ${JSON.stringify(other)} for this file in concordance.json${context === 'decisions' ? ' ({ "file": …, "delimiter": … } in "decisions")' : ''}` });
         return;
       }
       index = new Map(header.map((h, i) => [h, i]));

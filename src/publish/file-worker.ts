@@ -4,25 +4,33 @@ import { parentPort, workerData } from 'node:worker_threads';
 import { closeSync, openSync, writeSync } from 'node:fs';
 import { createHash, type Hash } from 'node:crypto';
 
-/** What the worker is started with: one target per output stem, and the text that opens/closes each format. */
+/** One dump format as the worker writes it: extension, the text that opens and closes a file, the text between runs. */
+export interface DumpFile {
+  extension: string;
+  head: string;
+  tail: string;
+  /** Put between two runs of text in one file (JSON-LD: `,\n` between node lists). */
+  separator: string;
+}
+
+/** What the worker is started with: one target per output stem, the dump formats, and the shared blocks. */
 export interface FileWorkerInit {
   /** Per target: [relative path stem (e.g. `partners/a`), absolute path stem]. */
   targets: [string, string][];
-  ttlHead: string;
-  jsonHead: string;
-  jsonTail: string;
+  /** The dump formats, in the order of each unit's texts. */
+  formats: DumpFile[];
   /** Shared blocks the main thread fills with unit text (see {@link SlabRecords}). */
   slabs: SharedArrayBuffer[];
 }
 
 /**
- * Per unit in a filled slab, in order: Turtle byte length, N-Quads byte length, JSON-LD byte length (-1: no nodes),
- * number of targets, then the target numbers. The bytes themselves follow each other from the slab's start.
+ * Per unit in a filled slab, in order: the byte length of its text in each format (-1: nothing to write, not even a
+ * separator), number of targets, then the target numbers. The bytes themselves follow each other from the slab's start.
  */
 export type SlabRecords = number[];
 
-/** One unit's text: Turtle, N-Quads and JSON-LD node run (`null` when it has no nodes), and its target numbers. */
-export type UnitText = [ttl: string, nq: string, json: string | null, targets: number[]];
+/** One unit's text per format (`null`: nothing to write) and its target numbers. */
+export type UnitText = [texts: (string | null)[], targets: number[]];
 
 /** Messages to the worker: a batch of units, or the end. */
 export type FileWorkerMessage = { units: UnitText[] } | { slab: number; records: SlabRecords } | { end: true };
@@ -60,61 +68,63 @@ class BlockFile {
   }
 }
 
-interface Target {
-  ttl: BlockFile;
-  nq: BlockFile;
-  json: BlockFile;
-  /** No JSON-LD node written yet (no separator before the next run). */
-  jsonFirst: boolean;
+/** One output file of one target, and whether a run of text was written to it yet (no separator before the first). */
+interface Output {
+  file: BlockFile;
+  first: boolean;
 }
 
 const init = workerData as FileWorkerInit;
-const SEPARATOR = Buffer.from(',\n');
-const targets: Target[] = init.targets.map(([rel, abs]) => {
-  const t: Target = { ttl: new BlockFile(`${rel}.ttl`, `${abs}.ttl`), nq: new BlockFile(`${rel}.nq`, `${abs}.nq`), json: new BlockFile(`${rel}.jsonld`, `${abs}.jsonld`), jsonFirst: true };
-  t.ttl.put(Buffer.from(init.ttlHead, 'utf8'));
-  t.json.put(Buffer.from(init.jsonHead, 'utf8'));
-  return t;
-});
+const formats = init.formats.map((f) => ({ head: Buffer.from(f.head, 'utf8'), tail: Buffer.from(f.tail, 'utf8'), separator: Buffer.from(f.separator, 'utf8') }));
+const targets: Output[][] = init.targets.map(([rel, abs]) =>
+  init.formats.map((f, i) => {
+    const file = new BlockFile(`${rel}${f.extension}`, `${abs}${f.extension}`);
+    if (formats[i].head.length) file.put(formats[i].head);
+    return { file, first: true };
+  }),
+);
 
 const slabs = init.slabs.map((s) => Buffer.from(s));
 
 function writeSlab(slab: number, records: SlabRecords): void {
   const b = slabs[slab];
   let off = 0;
+  const texts: (Buffer | null)[] = new Array(formats.length);
   for (let r = 0; r < records.length; ) {
-    const lt = records[r++], ln = records[r++], lj = records[r++], n = records[r++];
-    const ttl = b.subarray(off, (off += lt));
-    const nq = b.subarray(off, (off += ln));
-    const json = lj < 0 ? null : b.subarray(off, (off += lj));
-    writeBytes(ttl, nq, json, records.slice(r, (r += n)));
+    for (let f = 0; f < formats.length; f++) {
+      const len = records[r++];
+      texts[f] = len < 0 ? null : b.subarray(off, (off += len));
+    }
+    const n = records[r++];
+    writeBytes(texts, records.slice(r, (r += n)));
   }
 }
 
-function writeUnit([ttl, nq, json, to]: UnitText): void {
-  writeBytes(Buffer.from(ttl, 'utf8'), Buffer.from(nq, 'utf8'), json === null ? null : Buffer.from(json, 'utf8'), to);
+function writeUnit([texts, to]: UnitText): void {
+  writeBytes(texts.map((t) => (t === null ? null : Buffer.from(t, 'utf8'))), to);
 }
 
-function writeBytes(ttl: Buffer, nq: Buffer, json: Buffer | null, to: number[]): void {
+function writeBytes(texts: (Buffer | null)[], to: number[]): void {
   for (const i of to) {
     const t = targets[i];
-    t.ttl.put(ttl);
-    t.nq.put(nq);
-    if (json) {
-      if (!t.jsonFirst) t.json.put(SEPARATOR);
-      t.jsonFirst = false;
-      t.json.put(json);
+    for (let f = 0; f < texts.length; f++) {
+      const text = texts[f];
+      if (text === null) continue;
+      const out = t[f];
+      if (!out.first && formats[f].separator.length) out.file.put(formats[f].separator);
+      out.first = false;
+      out.file.put(text);
     }
   }
 }
 
 function close(): [string, string][] {
-  const tail = Buffer.from(init.jsonTail, 'utf8');
   const hashes: [string, string][] = [];
-  for (const t of targets) {
-    t.json.put(tail);
-    hashes.push(t.ttl.close(), t.nq.close(), t.json.close());
-  }
+  for (const t of targets)
+    t.forEach((out, f) => {
+      if (formats[f].tail.length) out.file.put(formats[f].tail);
+      hashes.push(out.file.close());
+    });
   return hashes;
 }
 

@@ -4,15 +4,36 @@ import { Worker } from 'node:worker_threads';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
-import { prefixMap } from '../rdf/formats.js';
+import { DUMP_FORMATS, FORMATS, prefixMap, type FormatInfo, type WriterKind } from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
 import type { ValidationChunk } from '../validate/chunked.js';
-import { JsonLdFile, unitNodes } from './jsonld.js';
-import type { FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
+import { JsonLdFile, unitNodesSync } from './jsonld.js';
+import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
 
 /** Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight). */
 const SLAB = 8 << 20;
 const SLABS = 4;
+
+/** A dump format's encoder: the file's opening and closing text, the text between runs, and one unit's text (null: none). */
+interface DumpEncoder extends Omit<DumpFile, 'extension'> {
+  encode(unit: Unit): string | null;
+}
+
+/** Writer kind of the format table → its encoder over units (every kind the table names has one). */
+const ENCODERS: Record<WriterKind, (info: FormatInfo, prefixes: Record<string, string>) => DumpEncoder> = {
+  turtle: (_, prefixes) => {
+    const turtle = new TurtleEncoder(prefixes);
+    return { head: turtlePrefixes(prefixes), tail: '', separator: '', encode: (u) => turtle.encode(u.quads) };
+  },
+  nquads: (info) => ({ head: '', tail: '', separator: '', encode: (u) => nquadsText(u.quads, info.graphs) }),
+  jsonld: () => ({
+    head: JsonLdFile.head, tail: JsonLdFile.tail, separator: ',\n',
+    encode: (u) => {
+      const nodes = unitNodesSync(u);
+      return nodes.length ? JsonLdFile.text(nodes) : null;
+    },
+  }),
+};
 
 /**
  * The release's RDF writers: `concordance.*` and `partners/<key>.*`. Each unit is turned into Turtle, N-Quads and
@@ -20,7 +41,7 @@ const SLABS = 4;
  * copies them to the whole release and to the slice of every partner the unit touches, hashing each file as it goes.
  */
 export class ReleaseWriter {
-  private turtle: TurtleEncoder;
+  private encoders: DumpEncoder[];
   private worker: Worker;
   private slabs: Buffer[];
   private free: number[];
@@ -40,14 +61,15 @@ export class ReleaseWriter {
   constructor(dir: string, partnerKeys: string[] | null, prefixes: Record<string, string> = prefixMap()) {
     this.slices = partnerKeys !== null;
     if (partnerKeys) mkdirSync(path.join(dir, 'partners'), { recursive: true });
-    this.turtle = new TurtleEncoder(prefixes);
+    this.encoders = DUMP_FORMATS.map((f) => ENCODERS[FORMATS[f].writer!](FORMATS[f], prefixes));
     const stems = ['concordance', ...(partnerKeys ?? []).map((k) => `partners/${k}`)];
     const shared = Array.from({ length: SLABS }, () => new SharedArrayBuffer(SLAB));
     this.slabs = shared.map((s) => Buffer.from(s));
     this.free = shared.map((_, i) => i);
     const init: FileWorkerInit = {
       targets: stems.map((s) => [s, path.join(dir, ...s.split('/'))]),
-      ttlHead: turtlePrefixes(prefixes), jsonHead: JsonLdFile.head, jsonTail: JsonLdFile.tail, slabs: shared,
+      formats: DUMP_FORMATS.map((f, i) => ({ extension: FORMATS[f].extension, head: this.encoders[i].head, tail: this.encoders[i].tail, separator: this.encoders[i].separator })),
+      slabs: shared,
     };
     this.all = stems.map((_, i) => i);
     this.worker = new Worker(new URL('./file-worker.js', import.meta.url), { workerData: init });
@@ -88,17 +110,15 @@ export class ReleaseWriter {
     this.records = [];
   }
   async add(unit: Unit): Promise<void> {
-    const nodes = await unitNodes(unit);
     this.triples += unit.quads.length;
-    const ttl = this.turtle.encode(unit.quads);
-    const nq = nquadsText(unit.quads);
-    const json = nodes.length ? JsonLdFile.text(nodes) : null;
+    const texts = this.encoders.map((e) => e.encode(unit));
     const to = unit.partners === 'all' || !this.slices ? this.all : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
     // at most 3 UTF-8 bytes per UTF-16 code unit
-    const bound = 3 * (ttl.length + nq.length + (json?.length ?? 0));
+    let bound = 0;
+    for (const t of texts) bound += 3 * (t?.length ?? 0);
     if (this.pos + bound > SLAB) this.post();
     if (bound > SLAB) {
-      this.send({ units: [[ttl, nq, json, to]] });
+      this.send({ units: [[texts, to]] });
       return this.settle(() => this.inFlight < SLABS);
     }
     if (this.cur < 0) {
@@ -106,12 +126,12 @@ export class ReleaseWriter {
       this.cur = this.free.shift()!;
     }
     const b = this.slabs[this.cur];
-    const start = this.pos;
-    const lt = b.write(ttl, this.pos);
-    const ln = b.write(nq, start + lt);
-    const lj = json === null ? -1 : b.write(json, start + lt + ln);
-    this.pos = start + lt + ln + Math.max(lj, 0);
-    this.records.push(lt, ln, lj, to.length, ...to);
+    for (const t of texts) {
+      const len = t === null ? -1 : b.write(t, this.pos);
+      this.pos += Math.max(len, 0);
+      this.records.push(len);
+    }
+    this.records.push(to.length, ...to);
   }
   /** Writes what is left, closes every file and returns their SHA-256 hashes (path relative to the release → hex). */
   async close(): Promise<Map<string, string>> {

@@ -1,7 +1,7 @@
 // The dataset description: VoID linksets per partner pair × predicate, DCAT 3 distributions per file, partner datasets.
 import type { Quad } from '@rdfjs/types';
 import { term, nn, str, typed, int, inGraph } from './terms.js';
-import { FORMATS, type RdfFormat } from './formats.js';
+import { DUMP_FORMATS, FORMATS } from './formats.js';
 import type { Namer, LinksetCounts, Unit } from './index.js';
 import type { Model } from '../model.js';
 import { NS } from '../namespaces.js';
@@ -13,16 +13,13 @@ export interface DistributionFile {
   title: string;
 }
 
-const JSONLD_MEDIA = 'https://www.iana.org/assignments/media-types/application/ld+json';
-
-/** The files of a release that the description lists as DCAT distributions, in a fixed order. */
+/** The files of a release that the description lists as DCAT distributions, in a fixed order (the dump formats). */
 export function distributionFiles(model: Model): DistributionFile[] {
   const files: DistributionFile[] = [];
-  const rdf: [string, RdfFormat | 'jsonld'][] = [['ttl', 'turtle'], ['nq', 'nquads'], ['jsonld', 'jsonld']];
-  const media = (f: RdfFormat | 'jsonld') => (f === 'jsonld' ? JSONLD_MEDIA : FORMATS[f].mediaTypeIri);
-  for (const [ext, f] of rdf) files.push({ file: `concordance.${ext}`, mediaTypeIri: media(f), title: `Whole concordance (${ext})` });
+  const dumps = DUMP_FORMATS.map((f) => [FORMATS[f].extension.slice(1), FORMATS[f].mediaTypeIri] as const);
+  for (const [ext, media] of dumps) files.push({ file: `concordance.${ext}`, mediaTypeIri: media, title: `Whole concordance (${ext})` });
   if (model.project.release.partnerDumps !== false) for (const p of model.project.partners)
-    for (const [ext, f] of rdf) files.push({ file: `partners/${p.key}.${ext}`, mediaTypeIri: media(f), title: `Slice for ${p.name} (${ext})` });
+    for (const [ext, media] of dumps) files.push({ file: `partners/${p.key}.${ext}`, mediaTypeIri: media, title: `Slice for ${p.name} (${ext})` });
   return files;
 }
 

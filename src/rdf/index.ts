@@ -4,7 +4,7 @@ import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
 import { matchesOf } from '../link/index.js';
-import { compileTemplate, encodeUnreserved } from '../load/template.js';
+import { compileTemplate, encodeUnreserved } from '../io/template.js';
 import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
 import type { ReleaseView } from './view.js';
 

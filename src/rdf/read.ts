@@ -6,15 +6,12 @@ import { pathToFileURL } from 'node:url';
 import N3 from 'n3';
 import { UserError } from '../errors.js';
 import { jsonldToNQuads } from './jsonld-read.js';
+import { FORMATS } from './formats.js';
 
-/** Extension → parser input format (RDF 1.1 Turtle, N-Triples, N-Quads, TriG; JSON-LD 1.1). */
-export const READ_FORMATS: Readonly<Record<string, { name: string; n3Format: string | null }>> = {
-  '.ttl': { name: 'Turtle', n3Format: 'text/turtle' },
-  '.nt': { name: 'N-Triples', n3Format: 'application/n-triples' },
-  '.nq': { name: 'N-Quads', n3Format: 'application/n-quads' },
-  '.trig': { name: 'TriG', n3Format: 'application/trig' },
-  '.jsonld': { name: 'JSON-LD', n3Format: null },
-};
+/** Extension → parser input format, from the format table (RDF 1.1 Turtle, N-Triples, N-Quads, TriG; JSON-LD 1.1). */
+export const READ_FORMATS: Readonly<Record<string, { name: string; n3Format: string | null }>> = Object.fromEntries(
+  Object.values(FORMATS).map((f) => [f.extension, { name: f.label, n3Format: f.reader === 'n3' ? f.mediaType : null }]),
+);
 
 /** Options for reading one RDF file. */
 export interface ReadOptions {

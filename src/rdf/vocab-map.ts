@@ -25,6 +25,10 @@ export interface VocabMap {
   iris: Record<string, string>;
   /** Every predicate the map can produce (for SHACL sh:in and VoID). */
   predicates: string[];
+  /** What is published per claim kind and status: the resolved table, one row per kind × status. */
+  table: { kind: LinkKind; status: LinkStatus; predicate: string | null }[];
+  /** Predicates only confirmed claims are given (e.g. owl:sameAs, dcterms:isPartOf): never a proposal's. */
+  confirmedOnly: string[];
 }
 
 function readMapFile(file: string, seen: Set<string>): { prefixes: Record<string, string>; claims: z.infer<typeof Row>[]; iris: Record<string, string> } {
@@ -65,8 +69,15 @@ export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
       const row = rows.find((r) => (r.kind === '*' || r.kind === k) && (r.status === '*' || r.status === s));
       table.set(`${k}/${s}`, s === 'candidate' ? null : row ? row.predicate : null);
     }
+  const rowsOut = [...table].map(([k, predicate]) => {
+    const [kind, status] = k.split('/') as [LinkKind, LinkStatus];
+    return { kind, status, predicate };
+  });
+  const unconfirmed = new Set(rowsOut.filter((r) => r.status !== 'confirmed').map((r) => r.predicate));
   return {
     predicate: (kind, status) => table.get(`${kind}/${status}`) ?? null,
+    table: rowsOut,
+    confirmedOnly: [...new Set(rowsOut.filter((r) => r.status === 'confirmed' && r.predicate !== null && !unconfirmed.has(r.predicate)).map((r) => r.predicate!))].sort(),
     iris,
     predicates: [...new Set([...table.values()].filter((p): p is string => p !== null))].sort(),
   };

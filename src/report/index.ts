@@ -9,10 +9,13 @@ import type { Analysis } from '../analyse/index.js';
 import { workContext } from './context.js';
 import { reportData } from './data.js';
 import { reportMarkdown } from './markdown.js';
-import { writeConflicts, writeReviewQueue } from './csv-files.js';
+import { writeConflicts } from './csv-files.js';
+import { writeReviewQueue } from './review-queue.js';
+import type { Namer } from '../rdf/index.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
 
-export { CONFLICTS_HEADER, REVIEW_HEADER } from './csv-files.js';
+export { CONFLICTS_HEADER } from './csv-files.js';
+export { REVIEW_HEADER, DECISION_COLUMNS, PAIRS_LISTED } from './review-queue.js';
 export { reportData, LIST_LIMIT, type ReportData } from './data.js';
 
 /** File names the report stage writes, in the order returned. */
@@ -26,17 +29,19 @@ function writeText(file: string, text: string): string {
 
 /**
  * Writes the report files into `dir` (design, "Outputs"), each atomically (temp file, then rename). Same inputs →
- * byte-identical files: no clock, no absolute paths, fixed orders. Returns the paths written, in REPORT_FILES order.
+ * byte-identical files: no clock, no absolute paths, fixed orders. CSV files are written for spreadsheets (UTF-8 with
+ * BOM, CRLF) unless the project's `release.csv` is `plain`; `namer` gives the queue its link and image IRIs. Returns the paths written, in REPORT_FILES order.
  */
-export async function writeReports(dir: string, model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis): Promise<string[]> {
+export async function writeReports(dir: string, model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis, namer: Namer): Promise<string[]> {
   const ctx = workContext(model);
+  const form = model.project.release.csv ?? 'spreadsheet';
   const data = reportData(model, linkSet, clustering, analysis, ctx);
   const at = (name: string) => path.join(dir, name);
   return [
     writeText(at('report.md'), reportMarkdown(data)),
     writeText(at('report.json'), JSON.stringify(data, null, 2) + '\n'),
-    await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx),
-    await writeReviewQueue(at('review-queue.csv'), linkSet, analysis, ctx),
+    await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx, form),
+    await writeReviewQueue(at('review-queue.csv'), model, linkSet, analysis, ctx, namer, form),
     await writeClusterRegistry(at(RELEASE_FILES.clusters), model, clustering),
   ];
 }

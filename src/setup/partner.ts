@@ -1,7 +1,7 @@
 // A project file + a catalogue export → a proposed partner block, and the project file with that block added.
 import path from 'node:path';
 import { UserError } from '../errors.js';
-import { readJsonObject, writeJsonFile } from './json-file.js';
+import { readJsonObject, writeJsonFile } from '../io/json-file.js';
 import { sniffCatalogue } from './sniff.js';
 import { proposeColumns, type Proposal } from './columns.js';
 

@@ -2,7 +2,7 @@
 import { existsSync, mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { UserError } from '../errors.js';
-import { writeJsonFile } from './json-file.js';
+import { writeJsonFile } from '../io/json-file.js';
 
 export interface StarterOptions {
   title?: string;

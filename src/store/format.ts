@@ -1,6 +1,6 @@
 // QueryResult → text: SPARQL 1.1 Results JSON / CSV / TSV, an aligned table for people, N-Triples for graphs.
 import { NS } from '../namespaces.js';
-import { csvCell } from '../util/csv-write.js';
+import { csvCell } from '../io/csv-write.js';
 import type { QueryResult, ResultQuad, Term } from './types.js';
 
 /** Output formats of `concordat query`. */

@@ -1,5 +1,5 @@
 // The shapes a catalogued date turns into: an interval of years, empty, or invalid with a reason and a hint.
-import type { CenturyConvention } from '../../model.js';
+import type { CenturyConvention } from '../model.js';
 
 export type { CenturyConvention };
 

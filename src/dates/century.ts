@@ -2,11 +2,13 @@
 import { type CenturyConvention, type DateReading, type YearSpan, LATEST_YEAR, invalid } from './types.js';
 import { CENTURY_PARTS, tolerance } from './calendar.js';
 
-const PART = '(early|mid|middle|late|(?:first|second|1st|2nd) half|(?:first|second|third|fourth|last|1st|2nd|3rd|4th) quarter)(?: of)?(?: the)?[ -]?';
+const PART = '(early|mid|middle|late|(?:first|second|1st|2nd) half|(?:first|second|third|fourth|last|1st|2nd|3rd|4th) quarter|(?:first|second|last) third)(?: of)?(?: the)?[ -]?';
 const ORD = '(\\d{1,2})(?:st|nd|rd|th)?';
 const CENTURY = new RegExp(
-  `^(?:${PART})?${ORD}(?: ?(?:-|to|/|and) ?(?:the )?(?:${PART})?${ORD})? ?(?:c|cent|century|centuries)\\.?(?: (bc|bce|b\\.c\\.|b\\.c\\.e\\.|ad|a\\.d\\.|ce|c\\.e\\.))?$`,
+  `^(?:${PART})?${ORD}(?: ?(?: century)? ?(?:-|to|/|and) ?(?:the )?(?:${PART})?${ORD})? ?(?:c|cent|century|centuries)\\.?(?: (bc|bce|b\\.c\\.|b\\.c\\.e\\.|ad|a\\.d\\.|ce|c\\.e\\.))?$`,
 );
+/** A part of a hundred years written as hundreds (`late 1400s`, Italian `fine Quattrocento`): ISO counting by its digits. */
+const HUNDREDS_PART = new RegExp(`^${PART}(\\d{1,2})00'?s$`);
 const HINT = 'write the century as an ordinal from 1 (15th century), or years';
 
 /** First year of the n-th century AD: ordinal counting (no year 0) starts at (n−1)·100+1, ISO 8601-2 at (n−1)·100. */
@@ -23,6 +25,8 @@ function firstYear(n: number, iso: boolean): number {
  * The reading keeps both strict readings in `byConvention` (AD only) for compareDates. Returns null when no label.
  */
 export function parseCentury(s: string, convention: CenturyConvention, approx: boolean, uncertain: boolean): DateReading | null {
+  const h = HUNDREDS_PART.exec(s);
+  if (h !== null) return hundredsPart(h, approx, uncertain);
   const m = CENTURY.exec(s);
   if (m === null) return null;
   const [, p1, n1Text, p2, n2Text, era] = m;
@@ -50,4 +54,14 @@ export function parseCentury(s: string, convention: CenturyConvention, approx: b
     century: n2Text === undefined ? { ordinal: n1 } : { ordinal: n1, last: n2 },
     byConvention: { ordinal, iso },
   };
+}
+
+/** `late 1400s`: a part of the years 1400–1499 (the digits fix the counting, so no convention applies). */
+function hundredsPart(m: RegExpExecArray, approx: boolean, uncertain: boolean): DateReading {
+  const [, p, h] = m;
+  const first = Number(h) * 100, part = CENTURY_PARTS[p];
+  if (first > LATEST_YEAR) return invalid(`impossible year ${first}: in the future (after ${LATEST_YEAR})`, HINT);
+  const start = first + part[0], end = first + part[1];
+  const w = approx ? tolerance(end - start + 1) : 0;
+  return { kind: 'interval', start: start - w, end: end + w, form: 'part-of-century', approximate: approx, uncertain, century: { ordinal: Number(h) + 1 } };
 }

@@ -41,7 +41,8 @@ export const BEFORE_AFTER_WIDTH = 50;
 
 /**
  * Parts of a century as [first, last] offsets into its 100 years (0 = the century's first year under the chosen
- * convention). Thirds for early/mid/late (33/34/33 years), halves, quarters. Common practice, no source.
+ * convention). Thirds for early/mid/late and for first/second/last third (33/34/33 years), halves, quarters.
+ * Common practice, no source.
  */
 export const CENTURY_PARTS: Readonly<Record<string, readonly [number, number]>> = {
   early: [0, 32], mid: [33, 66], middle: [33, 66], late: [67, 99],
@@ -49,6 +50,7 @@ export const CENTURY_PARTS: Readonly<Record<string, readonly [number, number]>> 
   'first quarter': [0, 24], '1st quarter': [0, 24], 'second quarter': [25, 49], '2nd quarter': [25, 49],
   'third quarter': [50, 74], '3rd quarter': [50, 74], 'fourth quarter': [75, 99], '4th quarter': [75, 99],
   'last quarter': [75, 99],
+  'first third': [0, 32], 'second third': [33, 66], 'last third': [67, 99],
 };
 
 /** Whether a two-character EDTF month/day token (digits or `X`, EDTF Level 1/2 "Unspecified digit") can be `n`. */

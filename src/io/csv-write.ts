@@ -1,4 +1,4 @@
-// Rows of strings → RFC 4180 CSV files (LF, UTF-8 without BOM), streamed in chunks and renamed into place at the end.
+// Rows of strings → RFC 4180 CSV files (for spreadsheets: UTF-8 with BOM, CRLF; or plain: LF, no BOM), streamed and renamed into place.
 import { createWriteStream, renameSync, rmSync } from 'node:fs';
 import { once } from 'node:events';
 
@@ -19,34 +19,45 @@ export function neutralise(value: string): string {
   return FORMULA_START.test(value) ? `'${value}` : value;
 }
 
-/** One record with its LF line end. `neutral[i]` true → cell i is neutralised before quoting. */
-export function csvLine(cells: readonly string[], neutral?: readonly boolean[]): string {
+/**
+ * How a CSV file is written: `spreadsheet` = UTF-8 with a byte-order mark and CRLF record ends (RFC 4180 §2.1), which
+ * usual office spreadsheets open with accents intact (without the BOM they guess a legacy code page: common practice,
+ * no source); `plain` = LF and no BOM, for pipelines.
+ */
+export type CsvForm = 'spreadsheet' | 'plain';
+export const CSV_FORMS: readonly CsvForm[] = ['spreadsheet', 'plain'];
+
+/** One record with its line end (LF unless given). `neutral[i]` true → cell i is neutralised before quoting. */
+export function csvLine(cells: readonly string[], neutral?: readonly boolean[], eol = '\n'): string {
   let out = '';
   for (let i = 0; i < cells.length; i++) {
     if (i > 0) out += ',';
     out += csvCell(neutral?.[i] ? neutralise(cells[i]) : cells[i]);
   }
-  return out + '\n';
+  return out + eol;
 }
 
 const CHUNK = 1 << 16;
 
 /**
  * Writes a CSV file atomically: records go to `<file>.tmp` in 64 KiB chunks (never one big string) and the file is
- * renamed into place by `close()`. `neutral` marks the columns that are neutralised (see `neutralise`).
+ * renamed into place by `close()`. `neutral` marks the columns that are neutralised (see `neutralise`); `form` picks
+ * BOM and line ends (see `CsvForm`). Line breaks inside a quoted cell are written as they are.
  */
 export class CsvFile {
   private readonly stream;
   private buffer = '';
   private readonly temp: string;
-  constructor(private readonly file: string, header: readonly string[], private readonly neutral?: readonly boolean[]) {
+  private readonly eol: string;
+  constructor(private readonly file: string, header: readonly string[], private readonly neutral?: readonly boolean[], form: CsvForm = 'spreadsheet') {
     this.temp = `${file}.tmp`;
     this.stream = createWriteStream(this.temp, { encoding: 'utf8' });
-    this.buffer = csvLine(header);
+    this.eol = form === 'spreadsheet' ? '\r\n' : '\n';
+    this.buffer = (form === 'spreadsheet' ? '\uFEFF' : '') + csvLine(header, undefined, this.eol);
   }
 
   async row(cells: readonly string[]): Promise<void> {
-    this.buffer += csvLine(cells, this.neutral);
+    this.buffer += csvLine(cells, this.neutral, this.eol);
     if (this.buffer.length >= CHUNK) await this.flush();
   }
 

@@ -2,6 +2,7 @@
 import type { BuildResult } from '../pipeline.js';
 import { workRef } from '../model.js';
 import { claimEnds } from '../rdf/index.js';
+import { prefixMap } from '../rdf/formats.js';
 
 export interface ReleaseSummary {
   version: string;
@@ -17,7 +18,12 @@ export interface ReleaseSummary {
   example?: { subject: string; predicate: string; object: string; score: number; support: number; status: string };
 }
 
-const short = (iri: string) => iri.replace('http://www.w3.org/2002/07/owl#', 'owl:').replace('http://www.w3.org/2004/02/skos/core#', 'skos:').replace('http://purl.org/dc/terms/', 'dcterms:');
+const PREFIXES = Object.entries(prefixMap());
+/** A predicate IRI as a prefixed name of the publishing prefixes when one fits, else the IRI. */
+const short = (iri: string) => {
+  for (const [p, ns] of PREFIXES) if (iri.startsWith(ns) && iri.length > ns.length) return `${p}:${iri.slice(ns.length)}`;
+  return iri;
+};
 
 /** Counts what a release holds. */
 export function releaseSummary(r: BuildResult): ReleaseSummary {
@@ -42,7 +48,9 @@ export function releaseSummary(r: BuildResult): ReleaseSummary {
     warnings: r.publish.validation.warnings,
     example: ex && (() => {
       const [s, o] = claimEnds(ex);
-      return { subject: workRef(r.model, s), predicate: 'owl:sameAs', object: workRef(r.model, o), score: ex.best, support: ex.support, status: ex.status };
+      // the predicate the release holds for this claim, from the vocab map (owl:sameAs, or e.g. skos:exactMatch)
+      const predicate = r.vocab.predicate(ex.kind, ex.status);
+      return { subject: workRef(r.model, s), predicate: predicate ? short(predicate) : '(no claim triple)', object: workRef(r.model, o), score: ex.best, support: ex.support, status: ex.status };
     })(),
   };
 }
