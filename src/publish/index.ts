@@ -13,7 +13,7 @@ import { validateChunks, writeValidationReport, type ValidationChunk } from '../
 import type { ShaclEngine, ValidationOutcome } from '../validate/shacl.js';
 import { outcomeOf } from '../validate/report.js';
 import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
-import { TEMP_MARKER } from './atomic.js';
+import { TEMP_MARKER } from '../io/atomic.js';
 
 export interface PublishOptions {
   shapes: Quad[];

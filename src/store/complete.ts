@@ -4,7 +4,7 @@ import { createReadStream, existsSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import path from 'node:path';
 import { UserError, EXIT } from '../errors.js';
-import { unfinishedFolder } from '../publish/atomic.js';
+import { unfinishedFolder } from '../io/atomic.js';
 import { describeOwner } from '../util/owner.js';
 
 export const CHECKSUMS = 'SHA256SUMS';
