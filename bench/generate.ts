@@ -1,4 +1,4 @@
-// Seed + scale → a synthetic concordat project (concordance.json, catalogues, evidence, decisions, gold) streamed to files.
+// Seed + scale → a synthetic concordat project (catalogues, evidence with look-alikes and indiscriminate scans, decisions, gold, answer key) streamed to files.
 import { createWriteStream, mkdirSync, writeFileSync, type WriteStream } from 'node:fs';
 import { once } from 'node:events';
 import path from 'node:path';
@@ -15,6 +15,8 @@ export interface GenerateOptions {
 
 export interface GenerateSummary {
   projectFile: string;
+  /** `answer-key.csv`: `work,artwork,part_of` for every work (the truth the matcher only partly sees). */
+  answerKey: string;
   works: number;
   images: number;
   evidenceRows: number;
@@ -96,20 +98,46 @@ const DATE_STYLES: ReadonlyArray<(y: number) => string> = [
 const DELIMS = [',', ';', '\t'];
 /** Copies per artwork: 1–4, weights 30/40/20/10 (mean ≈ 2.1 partner works per artwork). */
 const COPIES_CUM = [30, 70, 90, 100];
-/** Curator verdict mix (cumulative weights): same, part, related, distinct. */
-const VERDICT_CUM = [70, 80, 85, 100];
-const VERDICTS = ['same', 'part', 'related', 'distinct'];
 const CURATORS = ['https://orcid.org/0000-0002-1825-0097', 'Ilse Marwitz', 'Tomas Okafor', 'Rhea Lindqvist'];
 
 const partnerKey = (p: number) => `arch${String(p + 1).padStart(2, '0')}`;
 const workId = (p: number, local: number) => `W${p + 1}-${String(local).padStart(7, '0')}`;
 const imageId = (p: number, local: number, k: number) => `${workId(p, local)}/${k + 1}`;
 const score = (x: number) => x.toFixed(3);
+const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x));
 
 /**
- * Writes a synthetic project of `works` partner works into `dir` in the input contract (design, "Inputs"): artworks held
- * by 1–4 of the partners, ~3 photos per work, ~10 evidence rows per work (true matches plus low-score noise and a few
- * partial details), curator decisions for about 1% of the links, and a gold sample. Same options → byte-identical files.
+ * What the scenario holds, per artwork or record (common practice of photo archives, no source; the rates are the
+ * issue's consortium: about 4% of records with a mount-back scan):
+ * - DETAIL: a detail or single panel of the artwork catalogued as a record of its own (a part);
+ * - LOOK_ALIKE: a look-alike work that is not the same work (workshop replica, another print from the plate, pendant);
+ * - scans that match regardless of the artwork, per record: mount back, colour chart, photographer's stamp, blank frame.
+ */
+export const PHENOMENA = { detail: 0.05, lookAlike: 0.06, matcherError: 0.01 } as const;
+/** Junk scans: share of records that have one, and how many other scans of the kind the matcher pairs each with. */
+export const JUNK = [
+  { kind: 'mount', word: 'Verso', rate: 0.04, k: [3, 20] },
+  { kind: 'chart', word: 'Farbkarte', rate: 0.01, k: [5, 30] },
+  { kind: 'stamp', word: 'Stempel', rate: 0.005, k: [2, 10] },
+  { kind: 'blank', word: 'Leeraufnahme', rate: 0.003, k: [3, 15] },
+] as const;
+/** The partner that records image roles (a role column; the others do not). */
+const ROLE_PARTNER = 0;
+const ROLE_WORDS: Record<string, string> = { Recto: 'artwork', Detail: 'detail', Verso: 'verso', Farbkarte: 'chart', Stempel: 'stamp', Leeraufnahme: 'blank' };
+
+/** Score of a true match between two records of one artwork: most high, a tail down to 0.5 (different photo campaigns): a sixth below 0.75, where look-alikes score too. */
+const trueBase = (rng: Rng) => 0.5 + 0.47 * rng.next() ** 0.35;
+
+/**
+ * Writes a synthetic project of `works` partner works into `dir` in the input contract (design, "Inputs"), with an
+ * answer key. Artworks are held by 1–4 partners; 1–5 photos per record. The matcher finds 96% of true record pairs
+ * (each photo pair with probability 0.55, at least one), scores 0.5–0.97 skewed high (a sixth below 0.75) with ±0.04
+ * jitter, so true single-photo pairs at moderate scores exist; details (5% of artworks) match 1–2 photos of their whole at 0.62–0.92
+ * with overlap 0.3–0.65 (one row in 25 at 0.12–0.28, below minOverlap: never proposed); look-alike works (6%) share one photo pair (a quarter two) with one
+ * record of the original at 0.55–0.8, overlapping the true scores; 1% of works get a matcher error (an unrelated work
+ * at 0.5–0.68); junk scans (JUNK) are each paired with k random others of their kind at 0.65–0.97, one partner records
+ * their role; low-score noise ≈ 5.5 rows per work. Curators decide ≈ 1% of true pairs (`same`), a fifth of the
+ * look-alikes (`distinct`) and a tenth of the details (`part`); gold: 5% of true pairs. Same options → same bytes.
  */
 export async function generateProject(dir: string, opts: GenerateOptions): Promise<GenerateSummary> {
   const { works: N, seed } = opts;
@@ -119,72 +147,137 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
   for (const sub of ['catalogues', 'evidence', 'decisions', 'gold']) mkdirSync(path.join(dir, sub), { recursive: true });
 
   const rng = new Rng(seed);
-  const partnerOf = new Uint8Array(N), localOf = new Int32Array(N), imgCount = new Uint8Array(N);
+  const partnerOf = new Uint8Array(N), localOf = new Int32Array(N), imgCount = new Uint8Array(N), photos = new Uint8Array(N);
+  const artOf = new Int32Array(N);
   const artStart: number[] = [];
+  /** Per artwork: 0 an artwork, 1 a detail of `artOfArt`, 2 a look-alike of it. */
+  const artKind: number[] = [], artRef: number[] = [];
   const nextLocal = new Int32Array(P);
   const delim = Array.from({ length: P }, (_, p) => DELIMS[p % DELIMS.length]);
   const cats = Array.from({ length: P }, (_, p) => new ChunkWriter(path.join(dir, 'catalogues', `${partnerKey(p)}.csv`)));
-  for (let p = 0; p < P; p++) await cats[p].line(['work_no', 'photo_no', 'title', 'date'].join(delim[p]));
+  for (let p = 0; p < P; p++) await cats[p].line(['work_no', 'photo_no', 'title', 'date', ...(p === ROLE_PARTNER ? ['role'] : [])].join(delim[p]));
+  const key = new ChunkWriter(path.join(dir, 'answer-key.csv'));
+  await key.line('work,artwork,part_of');
+  const junk = JUNK.map(() => ({ work: [] as number[], k: [] as number[] }));
 
-  // Pass 1: artworks → partner works and their photos (catalogue rows).
+  // Pass 1: artworks (with their details and look-alikes) → partner records, photos and junk scans (catalogue rows).
   let images = 0;
-  for (let w = 0; w < N;) {
+  let w = 0;
+  const addArtwork = async (kind: number, of: number, copies: number, title: string, year: number) => {
+    const art = artStart.length;
     artStart.push(w);
-    const copies = Math.min(rng.weighted(COPIES_CUM) + 1, N - w, P);
-    const title = rng.pick(SUBJECTS);
-    const year = 1380 + rng.int(220);
+    artKind.push(kind);
+    artRef.push(of);
     const chosen = new Set<number>();
-    while (chosen.size < copies) chosen.add(rng.int(P));
+    while (chosen.size < Math.min(copies, N - w, P)) chosen.add(rng.int(P));
     for (const p of chosen) {
-      partnerOf[w] = p; localOf[w] = nextLocal[p]++;
-      imgCount[w] = 1 + rng.weighted([15, 35, 70, 90, 100]); // 1–5 photos, mean ≈ 2.9
-      const t = title + rng.pick(PARTS), date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
-      for (let k = 0; k < imgCount[w]; k++) await cats[p].line([workId(p, localOf[w]), imageId(p, localOf[w], k), t, date].join(delim[p]));
+      partnerOf[w] = p; localOf[w] = nextLocal[p]++; artOf[w] = art;
+      photos[w] = kind === 1 ? 1 + rng.int(2) : 1 + rng.weighted([15, 35, 70, 90, 100]);
+      const extra: number[] = [];
+      JUNK.forEach((j, t) => { if (rng.next() < j.rate) { extra.push(t); junk[t].work.push(w); junk[t].k.push(photos[w] + extra.length - 1); } });
+      imgCount[w] = photos[w] + extra.length;
+      const t = kind === 1 ? `${title} (detail)` : title + rng.pick(PARTS), date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
+      for (let k = 0; k < imgCount[w]; k++) {
+        const role = k < photos[w] ? (kind === 1 ? 'Detail' : 'Recto') : JUNK[extra[k - photos[w]]].word;
+        await cats[p].line([workId(p, localOf[w]), imageId(p, localOf[w], k), t, date, ...(p === ROLE_PARTNER ? [role] : [])].join(delim[p]));
+      }
+      await key.line(`${partnerKey(p)}:${workId(p, localOf[w])},A${art},${kind === 1 ? `A${of}` : ''}`);
       images += imgCount[w];
       w++;
     }
+    return art;
+  };
+  while (w < N) {
+    const title = rng.pick(SUBJECTS);
+    const year = 1380 + rng.int(220);
+    const art = await addArtwork(0, -1, rng.weighted(COPIES_CUM) + 1, title, year);
+    if (w < N && rng.next() < PHENOMENA.detail) await addArtwork(1, art, 1, title, year);
+    if (w < N && rng.next() < PHENOMENA.lookAlike) await addArtwork(2, art, 1 + rng.int(2), title, year + rng.int(30));
   }
   artStart.push(N);
   for (const c of cats) await c.close();
+  await key.close();
 
-  // Pass 2: evidence (true matches between copies, noise between random works), decisions and gold.
+  // Pass 2: evidence (true matches, details, look-alikes, errors, junk, noise), decisions and gold.
   const ev = new ChunkWriter(path.join(dir, 'evidence', 'run.csv'));
   const dec = new ChunkWriter(path.join(dir, 'decisions', 'curators.csv'));
   const gold = new ChunkWriter(path.join(dir, 'gold', 'gold.csv'));
   await ev.line('image_a,image_b,score,overlap');
   await dec.line('work_a,work_b,verdict,curator,date,note');
   await gold.line('work_a,work_b');
-  const img = (w: number, k: number) => `${partnerKey(partnerOf[w])}:${imageId(partnerOf[w], localOf[w], k)}`;
-  const work = (w: number) => `${partnerKey(partnerOf[w])}:${workId(partnerOf[w], localOf[w])}`;
+  const img = (x: number, k: number) => `${partnerKey(partnerOf[x])}:${imageId(partnerOf[x], localOf[x], k)}`;
+  const work = (x: number) => `${partnerKey(partnerOf[x])}:${workId(partnerOf[x], localOf[x])}`;
   let rows = 0, decisions = 0, golds = 0;
+  const row = async (a: string, b: string, s: number, ov: number | null) => {
+    await ev.line(`${a},${b},${score(clamp(s, 0, 1))},${ov === null ? '' : score(ov)}`);
+    rows++;
+  };
+  const decide = async (x: number, y: number, verdict: string) => {
+    const day = String(1 + rng.int(28)).padStart(2, '0');
+    await dec.line(`${work(x)},${work(y)},${verdict},${rng.pick(CURATORS)},2026-10-${day},`);
+    decisions++;
+  };
   for (let a = 0; a + 1 < artStart.length; a++) {
-    for (let x = artStart[a]; x < artStart[a + 1]; x++) {
-      for (let y = x + 1; y < artStart[a + 1]; y++) {
-        const detail = rng.next() < 0.06; // one work photographs a detail of the other
-        const base = 0.45 + rng.next() * 0.5;
-        for (let i = 0; i < imgCount[x]; i++) for (let j = 0; j < imgCount[y]; j++) {
-          if (rng.next() < 0.2) continue;
-          const s = Math.min(1, base + rng.next() * 0.05);
-          const ov = detail ? 0.3 + rng.next() * 0.35 : 0.7 + rng.next() * 0.3;
-          await ev.line(`${img(x, i)},${img(y, j)},${score(s)},${rng.next() < 0.1 ? '' : score(ov)}`);
-          rows++;
-        }
-        if (rng.next() < 0.06) {
-          const v = VERDICTS[rng.weighted(VERDICT_CUM)];
-          const day = String(1 + rng.int(28)).padStart(2, '0');
-          await dec.line(`${work(x)},${work(y)},${v},${rng.pick(CURATORS)},2026-10-${day},`);
-          decisions++;
-        }
+    const [s0, s1] = [artStart[a], artStart[a + 1]];
+    for (let x = s0; x < s1; x++) {
+      for (let y = x + 1; y < s1; y++) {
+        if (rng.next() < 0.04) continue; // the matcher misses the pair
+        const base = trueBase(rng);
+        const pairs: [number, number][] = [];
+        for (let i = 0; i < photos[x]; i++) for (let j = 0; j < photos[y]; j++) if (rng.next() < 0.55) pairs.push([i, j]);
+        if (pairs.length === 0) pairs.push([rng.int(photos[x]), rng.int(photos[y])]);
+        for (const [i, j] of pairs) await row(img(x, i), img(y, j), clamp(base + (rng.next() - 0.5) * 0.08, 0.45, 0.995), rng.next() < 0.1 ? null : 0.75 + rng.next() * 0.25);
+        if (rng.next() < 0.01) await decide(x, y, 'same');
         if (rng.next() < 0.05) { await gold.line(`${work(x)},${work(y)}`); golds++; }
       }
-      // Noise: a low-score match with a random other work, ~5.5 per work; now and then a curator rejects one.
+      // background: a low-score match with a random other work, ~5.5 per work; now and then a curator rejects one
       const noise = rng.int(12);
       for (let n = 0; n < noise; n++) {
         const y = rng.int(N);
-        if (y >= artStart[a] && y < artStart[a + 1]) continue;
-        await ev.line(`${img(x, rng.int(imgCount[x]))},${img(y, rng.int(imgCount[y]))},${score(0.05 + rng.next() * 0.4)},${score(0.3 + rng.next() * 0.7)}`);
-        rows++;
-        if (rng.next() < 0.003) { await dec.line(`${work(x)},${work(y)},distinct,${rng.pick(CURATORS)},2026-10-15,noise`); decisions++; }
+        if (y >= s0 && y < s1) continue;
+        await row(img(x, rng.int(photos[x])), img(y, rng.int(photos[y])), 0.05 + rng.next() * 0.4, 0.3 + rng.next() * 0.7);
+        if (rng.next() < 0.003) await decide(x, y, 'distinct');
+      }
+      if (rng.next() < PHENOMENA.matcherError) {
+        const y = rng.int(N);
+        if (artOf[y] !== a && artRef[artOf[y]] !== a && artRef[a] !== artOf[y]) await row(img(x, rng.int(photos[x])), img(y, rng.int(photos[y])), 0.5 + rng.next() * 0.18, 0.8 + rng.next() * 0.2);
+      }
+    }
+    if (artKind[a] === 0) continue;
+    const of = artRef[a];
+    const [o0, o1] = [artStart[of], artStart[of + 1]];
+    if (artKind[a] === 1) {
+      // a detail: its photo (image_a) matches 1–2 photos of 1–2 records of the whole, on a small region
+      const d = s0;
+      for (let n = 1 + rng.int(2), t = 0; t < n && t < o1 - o0; t++) {
+        const whole = o0 + ((t + rng.int(o1 - o0)) % (o1 - o0));
+        const small = rng.next() < 0.04; // a detail so small in the whole that the overlap is not to be trusted (below minOverlap)
+        await row(img(d, 0), img(whole, rng.int(photos[whole])), 0.62 + rng.next() * 0.3, small ? 0.12 + rng.next() * 0.16 : 0.3 + rng.next() * 0.35);
+        if (rng.next() < 0.1) await decide(d, whole, 'part');
+      }
+    } else {
+      // a look-alike: one record of it shares one photo pair (a quarter: two) with one record of the original
+      const x = s0 + rng.int(s1 - s0), y = o0 + rng.int(o1 - o0);
+      const base = 0.55 + rng.next() * 0.25;
+      const n = rng.next() < 0.25 ? 2 : 1;
+      for (let t = 0; t < n; t++) await row(img(x, t % photos[x]), img(y, (t + rng.int(photos[y])) % photos[y]), base - t * rng.next() * 0.05, 0.8 + rng.next() * 0.2);
+      if (rng.next() < 0.2) await decide(x, y, 'distinct');
+    }
+  }
+  // junk scans: each paired with k random others of its kind, high scores whatever the artwork
+  for (const [t, j] of JUNK.entries()) {
+    const list = junk[t];
+    const n = list.work.length;
+    if (n < 2) continue;
+    const seen = new Set<number>();
+    for (let i = 0; i < n; i++) {
+      const k = Math.min(n - 1, j.k[0] + rng.int(j.k[1] - j.k[0] + 1));
+      for (let m = 0; m < k; m++) {
+        const o = (i + 1 + rng.int(n - 1)) % n;
+        const pk = Math.min(i, o) * n + Math.max(i, o);
+        if (seen.has(pk) || list.work[i] === list.work[o]) continue;
+        seen.add(pk);
+        await row(img(list.work[i], list.k[i]), img(list.work[o], list.k[o]), 0.65 + rng.next() * 0.32, rng.next() < 0.3 ? null : 0.85 + rng.next() * 0.15);
       }
     }
   }
@@ -203,7 +296,11 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
       imageIri: `https://${partnerKey(p)}.example.org/id/image/{image}`,
       recordPage: `https://${partnerKey(p)}.example.org/records/{work}`,
       centuryConvention: p % 2 === 0 ? 'ordinal' : 'iso',
-      catalogue: { file: `catalogues/${partnerKey(p)}.csv`, delimiter: delim[p], columns: { work: 'work_no', image: 'photo_no', title: 'title', date: 'date' } },
+      catalogue: {
+        file: `catalogues/${partnerKey(p)}.csv`, delimiter: delim[p],
+        columns: { work: 'work_no', image: 'photo_no', title: 'title', date: 'date', ...(p === ROLE_PARTNER ? { role: 'role' } : {}) },
+        ...(p === ROLE_PARTNER ? { roles: ROLE_WORDS } : {}),
+      },
     })),
     evidence: [{ file: 'evidence/run.csv', run: { id: 'bench-run-1', software: 'synthetic-matcher', version: '1.0.0', started: '2026-10-04T09:00:00Z', parameters: { seed } } }],
     decisions: ['decisions/curators.csv'],
@@ -213,5 +310,5 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
   };
   const projectFile = path.join(dir, 'concordance.json');
   writeFileSync(projectFile, JSON.stringify(project, null, 2) + '\n');
-  return { projectFile, works: N, images, evidenceRows: rows, decisions, gold: golds };
+  return { projectFile, answerKey: path.join(dir, 'answer-key.csv'), works: N, images, evidenceRows: rows, decisions, gold: golds };
 }

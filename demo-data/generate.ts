@@ -11,6 +11,7 @@ import { PARTNERS } from './gen/partners.js';
 import { project1, project2, RUNS } from './gen/project.js';
 import { PLAN1, release1 } from './gen/release1.js';
 import { PLAN2, release2 } from './gen/release2.js';
+import { phenomena1, type Phenomena } from './gen/phenomena.js';
 import { Rng } from './gen/rng.js';
 
 const json = (value: unknown): string => JSON.stringify(value, null, 2) + '\n';
@@ -24,6 +25,16 @@ function put(outDir: string, rel: string, text: string): void {
   renameSync(tmp, file);
 }
 
+/** The phenomena in the answer key: indiscriminate scans by image, look-alike works by record. */
+function phenomenaKey(ph: Phenomena) {
+  const ref = (r: { partner: string; work: string }) => `${r.partner}:${r.work}`;
+  return {
+    note: 'Mount-back scans and colour charts match whatever the artwork; prints from one plate and pendants are distinct works that look alike. None of them is a same-work pair.',
+    mountBacks: ph.mountBacks, charts: ph.charts,
+    printsFromOnePlate: ph.prints.map(ref), pendants: ph.pendants.map((p) => p.map(ref)),
+  };
+}
+
 /**
  * Builds both releases of the invented scenario and writes their files under `outDir`.
  * Returns the written paths, relative to `outDir` with `/` separators. Same code, same bytes: no clock, no Math.random.
@@ -32,6 +43,8 @@ export function generateDemo(outDir: string): string[] {
   const files = new Map<string, string>();
   const r1 = release1();
   const r2 = release2(r1);
+  // after both stories are told, so their records keep their IDs: scans that match whatever the artwork, look-alikes
+  const ph = phenomena1(r1.b);
 
   // release 1: three catalogues, one matcher run
   for (const key of ['vellmar', 'kessling', 'fontclaire'] as const) {
@@ -40,13 +53,13 @@ export function generateDemo(outDir: string): string[] {
   const rng1 = Rng.of('release-1/evidence');
   const first = new Map<PairSpec, Match[]>(r1.b.pairs.map((p) => [p, matchesFor(p, rng1)]));
   const noise1 = noise(r1.b.recs, PLAN1.noise, Rng.of('release-1/noise'), pairKeys(r1.b.pairs));
-  files.set(RUNS.first.file, evidenceText([...[...first.values()].flat(), ...noise1], Rng.of('release-1/evidence-order')));
+  files.set(RUNS.first.file, evidenceText([...[...first.values()].flat(), ...ph.matches, ...noise1], Rng.of('release-1/evidence-order')));
   const dec1 = decisions1(r1);
   files.set('decisions/curators.csv', decisionsText(dec1));
   const g1 = gold1(r1);
   files.set('gold/hand-made-concordance.csv', goldText(g1, Rng.of('release-1/gold')));
   files.set('concordance.json', json(project1()));
-  files.set('answer-key.json', json(key1(r1, [...first.values()].flat(), noise1.length, dec1, g1)));
+  files.set('answer-key.json', json({ ...key1(r1, [...[...first.values()].flat(), ...ph.matches], noise1.length, dec1, g1), phenomena: phenomenaKey(ph) }));
 
   // release 2: Brindle joins, the rerun covers everyone, more decisions
   files.set(`release-2/${PARTNERS.brindle.file}`, catalogueText('brindle', r2.b.recs, Rng.of('release-2/catalogue/brindle')));
@@ -54,6 +67,7 @@ export function generateDemo(outDir: string): string[] {
   const rerun = [
     ...r1.b.pairs.flatMap((p) => matchesFor(p, rng2, p.kind === 'fading' ? 'faded' : p.kind, first.get(p))),
     ...r2.b.pairs.flatMap((p) => matchesFor(p, rng2)),
+    ...ph.matches, // the rerun sees the same scans and look-alikes
   ];
   const allRecs = [...r1.b.recs, ...r2.b.recs];
   const noise2 = noise(allRecs, PLAN2.noise, Rng.of('release-2/noise'), pairKeys([...r1.b.pairs, ...r2.b.pairs]));

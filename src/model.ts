@@ -13,7 +13,19 @@ export interface ColumnMap {
   date?: string;
   width?: string;
   height?: string;
+  /** The image's role (recto, verso, chart… in the partner's words, read through `catalogue.roles`). */
+  role?: string;
 }
+
+/**
+ * What a photograph shows, in the project's own words. `artwork` and `detail` show the work; the others are images
+ * archives scan beside it (mount backs, colour charts, stamps, blank frames) and never count as evidence of a same
+ * work or part link. 0 in Images.role = not recorded.
+ */
+export const IMAGE_ROLES = ['artwork', 'detail', 'verso', 'mount', 'chart', 'stamp', 'blank', 'other'] as const;
+export type ImageRole = (typeof IMAGE_ROLES)[number];
+/** Roles whose images show something other than the artwork: their matches stay evidence but link nothing. */
+export const NON_ARTWORK_ROLES: ReadonlySet<ImageRole> = new Set(['verso', 'mount', 'chart', 'stamp', 'blank', 'other']);
 
 export interface PartnerConfig {
   key: string;
@@ -27,7 +39,7 @@ export interface PartnerConfig {
   centuryConvention: CenturyConvention;
   /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
   language?: DateLanguage;
-  catalogue: { file: string; delimiter: string; columns: ColumnMap };
+  catalogue: { file: string; delimiter: string; columns: ColumnMap; roles?: Record<string, ImageRole> };
 }
 
 export interface RunConfig {
@@ -43,6 +55,13 @@ export interface Policy {
   autoConfirmAt: number | null;
   partOverlapBelow: number;
   minOverlap: number;
+  /**
+   * An image matching more distinct works than this is indiscriminate (null: 2 × partners, the most records one
+   * artwork plausibly has; see src/evidence/README.md).
+   */
+  indiscriminateAbove: number | null;
+  /** Most rows review-queue.csv lists, most useful first; the rest are counted in the report. */
+  reviewLimit: number;
 }
 
 /** A decisions file as the project names it: `delimiter` absent = detected from the header line. */
@@ -87,6 +106,8 @@ export interface Images {
   work: Int32Array;
   id: string[];
   line: Int32Array;
+  /** 1 + index into IMAGE_ROLES; 0 when the catalogue records no role. */
+  role: Uint8Array;
 }
 
 /** Columnar match table: one entry per evidence row (image pair), in input order. */

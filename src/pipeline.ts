@@ -1,22 +1,25 @@
-// The whole flow, top to bottom: load → link → cluster → analyse → rdf → validate → publish.
+// The whole flow, top to bottom: load → weigh evidence → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 import v8 from 'node:v8';
 import type { Quad } from '@rdfjs/types';
 import { load, type LoadStats } from './load/index.js';
+import { weighEvidence } from './evidence/index.js';
 import { link } from './link/index.js';
 import type { LinkSet } from './link/types.js';
 import { cluster, readClusterRegistry, type Clustering } from './cluster/index.js';
 import { analyse, type Analysis } from './analyse/index.js';
 import { writeReports } from './report/index.js';
 import { loadVocabMap, type VocabMap } from './rdf/vocab-map.js';
-import type { ClusterView, ReleaseView } from './rdf/view.js';
-import { publishRdf, writeChecksums, type PublishResult } from './publish/index.js';
+import { releaseView } from './rdf/view.js';
+import { releaseStream } from './rdf/stream.js';
+import { shaclGate } from './validate/gate.js';
+import { writeValidationReport } from './validate/report.js';
+import { writeDumps, writeChecksums, type PublishResult } from './publish/index.js';
 import { writeFolderAtomically } from './io/atomic.js';
 import { loadShapesFolder, defaultShapesDir } from './validate/files.js';
 import { UserError, EXIT } from './errors.js';
 import type { Model } from './model.js';
-import { Namer } from './rdf/index.js';
 import { readRelease, releaseHistory, writeChanges, type Changes } from './history/index.js';
 import type { ShaclEngine } from './validate/shacl.js';
 
@@ -53,7 +56,8 @@ export interface BuildResult {
 
 /** Link, cluster and per-cluster views: the part of the pipeline that needs no output folder. */
 export async function derive(model: Model): Promise<{ links: LinkSet; clustering: Clustering }> {
-  const links = link(model);
+  const evidence = weighEvidence(model);
+  const links = link(model, model.project.policy, evidence);
   const previous = model.project.previous ? await readClusterRegistry(registryFile(model.project.previous)) : undefined;
   const clustering = cluster(model, links, previous);
   return { links, clustering };
@@ -63,19 +67,6 @@ function registryFile(previous: string): string {
   const f = path.join(previous, 'clusters.csv');
   if (!existsSync(f)) throw new UserError({ file: f, line: 0, field: 'previous', message: 'the previous release has no clusters.csv', hint: '"previous" must name the folder of an earlier release built by concordat' });
   return f;
-}
-
-/** Clustering (columns) → what the RDF stage reads per cluster. */
-export function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[] {
-  const views: ClusterView[] = clustering.clusters.map((c) => ({
-    id: c.id, members: Array.from(c.members), links: Array.from(c.links), bridges: [], implied: [], conflicts: [], oversized: c.oversized,
-  }));
-  const bridgeSet = new Set(clustering.bridges);
-  for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
-  const im = clustering.implied;
-  for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
-  for (const c of analysis?.conflicts ?? []) views[c.cluster].conflicts.push({ a: c.a, b: c.b, severity: c.severity });
-  return views;
 }
 
 /**
@@ -102,27 +93,31 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const { links, clustering } = await derive(model);
   say('analyse');
   const analysis = analyse(model, links, clustering);
-  const vocab = loadVocabMap(model.project.vocabMap);
   const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
-  const view: ReleaseView = { model, links, clusters: clusterViews(clustering, analysis), retired: clustering.retired, vocab };
+  const view = releaseView(model, links, clustering, analysis, loadVocabMap(model.project.vocabMap));
   const previous = model.project.previous ? await readRelease(model.project.previous) : undefined;
-  const namer = new Namer(model, vocab.iris);
-  const history = await releaseHistory(view, clustering, namer, previous);
-  const previousVersion = previous?.snapshot.dataset;
+  const history = await releaseHistory(view, clustering, previous);
+  const validating = opts.validate !== false;
   return writeFolderAtomically(outDir, async (dir) => {
     say('rdf, validate, publish');
     releaseGcPolicy();
-    const publish = await publishRdf(dir, view, { shapes, previousVersion, extraUnits: history.units, workers: opts.workers, validationBatch: opts.validationBatch, validate: opts.validate, shaclEngine: opts.shaclEngine });
-    if (!publish.validation.conforms) {
-      const first = publish.validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
+    // units are made, validated and written one at a time: each step below reads the one before it as a stream
+    const units = releaseStream(view, history.units, previous?.snapshot.dataset);
+    const gate = shaclGate(shapes, { validate: validating, workers: opts.workers, batchTriples: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
+    const dumps = await writeDumps(dir, model, gate.pass(units.units), units.size, validating ? 'writing + SHACL' : 'writing release');
+    const validation = await gate.outcome();
+    if (validating) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
+    if (!validation.conforms) {
+      const first = validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(
         first.map((r) => ({ file: 'release', line: 0, field: r.focusNode, message: r.messages[0] ?? r.component, hint: `shape ${r.sourceShape}` })),
         EXIT.failure,
       );
     }
-    await writeReports(dir, model, links, clustering, analysis, namer);
+    await writeReports(dir, model, links, clustering, analysis, view.namer);
     await writeChanges(dir, history);
-    await writeChecksums(dir, publish.hashes);
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab, publish, changes: history.changes };
+    await writeChecksums(dir, dumps.hashes);
+    const publish: PublishResult = { triples: dumps.triples, claims: units.claims(), validation, hashes: dumps.hashes };
+    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab: view.vocab, publish, changes: history.changes };
   });
 }

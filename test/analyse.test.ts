@@ -105,39 +105,57 @@ test('agreement is null without a gold concordance', () => {
   assert.equal(run(m).a.agreement, null);
 });
 
-test('review queue ranking: contradicted decisions, then bridges and high scores, then implied pairs, then proposals', () => {
+test('review queue ranking: contradicted decisions, links holding clusters together, indiscriminate images, look-alikes, high scores, implied pairs, proposals', () => {
   const m = tinyModel({
     partners: ['a', 'b', 'c'],
-    works: ['a:1', 'b:1', 'c:1', 'a:2', 'b:2', 'c:2', 'b:3', 'a:4', 'b:4', 'a:5', 'b:5', 'a:6', 'b:6', 'a:7', 'b:7', 'c:7', 'a:8', 'b:8'],
+    works: ['a:1', 'b:1', 'c:1', 'a:2', 'b:2', 'c:2', 'b:3', 'a:3', 'b:10', 'c:3', 'a:10', 'a:4', 'b:4', 'a:5', 'b:5', 'a:6', 'b:6', 'a:7', 'b:7', 'c:7', 'a:8', 'b:8',
+      { ref: 'a:11', images: 2 }, { ref: 'b:11', images: 2 }],
     matches: [
-      ['a:1', 'c:1', 0.8], ['c:1', 'b:1', 0.7], // chain: a:1–b:1 implied through archive c
-      ['a:2', 'b:2', 0.6], ['b:2', 'c:2', 0.75], ['c:2', 'b:3', 0.62], // b:2–c:2 joins {a:2,b:2} and {c:2,b:3}
+      ['a:1', 'c:1', 0.85], ['c:1', 'b:1', 0.8], // chain: a:1–b:1 implied through archive c
+      ['a:2', 'b:2', 0.88], ['c:2', 'b:3', 0.88], ['b:2', 'c:2', 0.92], // b:2–c:2 (confidence 0.613) holds {a:2,b:2} and {c:2,b:3} together
+      ['a:3', 'b:10', 0.88], ['c:3', 'a:10', 0.88], ['b:10', 'c:3', 0.85], // b:10–c:3 (0.567), a weak bridge: cut
+      ['a:11#1', 'b:11#1', 0.95], // a colour chart on both sides
+      ['a:5', 'b:5', 0.7], // one moderately similar photograph: a look-alike candidate
       ['a:4', 'b:4', 0.95],
-      ['a:5', 'b:5', 0.55],
       ['a:6', 'b:6', 0.97], // confirmed by a curator: never queued
       ['a:7', 'c:7', 0.9], ['c:7', 'b:7', 0.9], // a:7–b:7 called distinct, yet in one cluster
       ['b:8', 'a:8', 0.7, 0.5], // part claim, b:8 the detail
     ],
     decisions: [['a:6', 'b:6', 'same'], ['a:7', 'b:7', 'distinct']],
+    roles: { 'a:11#1': 'chart', 'b:11#1': 'chart' },
   });
   const { ls, a } = run(m);
   const q = a.review;
   const rows = Array.from({ length: q.count }, (_, i) => `${workRef(m, q.a[i])} ${workRef(m, q.b[i])} ${REVIEW_REASONS[q.reason[i]]}${q.link[i] >= 0 ? ' ' + ls.links[q.link[i]].best : ''}`);
-  assert.deepEqual(rows, [
+  const expected = [
     'a:7 b:7 contradicts-distinct 0',
+    'b:2 c:2 bridge 0.92',
+    'b:10 c:3 split 0.85',
+    'a:11 b:11 indiscriminate 0.95',
+    'a:5 b:5 look-alike 0.7',
     'a:4 b:4 high-score 0.95',
     'a:7 c:7 high-score 0.9',
     'b:7 c:7 high-score 0.9',
-    'b:2 c:2 bridge 0.75',
     'a:1 b:1 implied-third-archive',
     'a:2 b:3 implied-third-archive',
     'a:2 c:2 implied-third-archive',
     'b:2 b:3 implied',
-    'a:1 c:1 proposed 0.8',
-    'b:1 c:1 proposed 0.7',
+    'a:10 c:3 proposed 0.88', // equal scores: by reference, code-point order
+    'a:2 b:2 proposed 0.88',
+    'a:3 b:10 proposed 0.88',
+    'b:3 c:2 proposed 0.88',
+    'a:1 c:1 proposed 0.85',
+    'b:1 c:1 proposed 0.8',
     'b:8 a:8 proposed 0.7', // detail first, so a curator's "part" reads the right way round
-    'b:3 c:2 proposed 0.62',
-    'a:2 b:2 proposed 0.6',
-    'a:5 b:5 proposed 0.55',
-  ]);
+  ];
+  assert.deepEqual(rows, expected);
+  assert.equal(q.total, expected.length);
+  // bounded by policy.reviewLimit: the first rows in the same order, the rest counted by reason
+  m.project.policy.reviewLimit = 4;
+  const ls4 = link(m);
+  const q4 = analyse(m, ls4, cluster(m, ls4)).review;
+  assert.equal(q4.count, 4);
+  assert.equal(q4.total, expected.length);
+  assert.equal(q4.byReason[REVIEW_REASONS.indexOf('proposed')], 7);
+  assert.deepEqual(Array.from({ length: 4 }, (_, i) => `${workRef(m, q4.a[i])} ${workRef(m, q4.b[i])}`), expected.slice(0, 4).map((r) => r.split(' ').slice(0, 2).join(' ')));
 });

@@ -72,8 +72,9 @@ test('link: matches below minOverlap are evidence but propose nothing', () => {
 });
 
 test('link: autoConfirmAt confirms at or above it; proposeAt proposes at or above it', () => {
-  const spec = (score: number): TinySpec => ({ partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', score]], policy: { autoConfirmAt: 0.9 } });
-  const cases: [number, string][] = [[0.9, 'confirmed'], [0.89, 'proposed'], [0.5, 'proposed'], [0.49, 'candidate']];
+  // one photograph: confidence = score × 2/3 (src/link/confidence.ts), compared with both thresholds
+  const spec = (score: number): TinySpec => ({ partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', score]], policy: { autoConfirmAt: 0.6 } });
+  const cases: [number, string][] = [[0.9, 'confirmed'], [0.89, 'proposed'], [0.75, 'proposed'], [0.74, 'candidate']];
   for (const [score, status] of cases) assert.equal(linkOf(tinyModel(spec(score)), 'a:1', 'b:1').status, status, `score ${score}`);
 });
 
@@ -84,7 +85,7 @@ const threeArchives = (): Model => tinyModel({
   works: ['a:1', 'a:2', 'b:1', 'b:2', 'c:1', 'c:2', 'a:9', 'b:9'],
   matches: [
     ['a:1', 'c:1', 0.9], ['c:1', 'b:1', 0.8], // a:1 and b:1 meet only through archive c
-    ['a:2', 'b:2', 0.7], ['b:2', 'c:2', 0.6], ['c:2', 'a:2', 0.6], // triangle: no bridge, no implied pair
+    ['a:2', 'b:2', 0.95], ['b:2', 'c:2', 0.9], ['c:2', 'a:2', 0.9], // triangle: no bridge, no implied pair
     ['a:9', 'b:9', 0.4], // candidate: no cluster
   ],
 });
@@ -132,10 +133,10 @@ test('implied pairs: a cross-partner pair with a path inside its two archives is
 test('bridges: the tail of a triangle is a bridge, the triangle edges are not', () => {
   const m = tinyModel({
     partners: ['a', 'b', 'c'], works: ['a:1', 'b:1', 'c:1', 'a:2', 'b:2'],
-    matches: [['a:1', 'b:1', 0.9], ['b:1', 'c:1', 0.9], ['c:1', 'a:1', 0.9], ['c:1', 'a:2', 0.9], ['a:2', 'b:2', 0.6]],
+    matches: [['a:1', 'b:1', 0.9], ['b:1', 'c:1', 0.9], ['c:1', 'a:1', 0.9], ['c:1', 'a:2', 0.9], ['a:2', 'b:2', 0.9]],
   });
   const ls = link(m);
-  const c = cluster(m, ls);
+  const c = cluster(m, ls, undefined, { coherence: false });
   const bridges = Array.from(c.bridges, (i, k) => `${workRef(m, ls.links[i].a)}–${workRef(m, ls.links[i].b)} ${c.bridgeMinSide[k]}`).sort();
   assert.deepEqual(bridges, ['a:2–b:2 1', 'a:2–c:1 2'], 'a:2–c:1 joins {a:2, b:2} to the triangle: smaller side 2');
 });
@@ -150,7 +151,7 @@ test('bridges on a path of 60 000 works: every edge, no call-stack overflow', ()
   const works = Array.from({ length: n }, (_, i) => `${i % 2 ? 'b' : 'a'}:${i}`);
   const matches = works.slice(1).map((w, i) => [works[i], w, 0.9] as [string, string, number]);
   const m = tinyModel({ partners: ['a', 'b'], works, matches });
-  const c = cluster(m, link(m));
+  const c = cluster(m, link(m), undefined, { coherence: false });
   assert.equal(c.clusters.length, 1);
   assert.equal(c.bridges.length, n - 1);
   assert.equal(c.bridgeMinSide.reduce((x, y) => Math.max(x, y), 0), n / 2, 'the middle link halves the path');
@@ -161,10 +162,11 @@ test('bridges on a path of 60 000 works: every edge, no call-stack overflow', ()
 
 test('oversized: more members than 2 × partners by default; the threshold is an option', () => {
   const works = ['a:1', 'a:2', 'a:3', 'b:1', 'b:2'];
-  const m = tinyModel({ partners: ['a', 'b'], works, matches: works.slice(1).map((w) => ['a:1', w, 0.9] as [string, string, number]) });
-  assert.equal(cluster(m, link(m)).oversizeAt, 4);
-  assert.equal(cluster(m, link(m)).clusters[0].oversized, true, '5 members > 4');
-  assert.equal(cluster(m, link(m), undefined, { oversizeAt: 5 }).clusters[0].oversized, false);
+  const m = tinyModel({ partners: ['a', 'b'], works, matches: works.slice(1).map((w, i) => [works[i], w, 0.9] as [string, string, number]) });
+  const plain = { coherence: false };
+  assert.equal(cluster(m, link(m), undefined, plain).oversizeAt, 4);
+  assert.equal(cluster(m, link(m), undefined, plain).clusters[0].oversized, true, '5 members > 4');
+  assert.equal(cluster(m, link(m), undefined, { ...plain, oversizeAt: 5 }).clusters[0].oversized, false);
 });
 
 // ---- stable IDs ----
@@ -291,7 +293,7 @@ test('clusters equal graphology connectedComponents (size ≥ 2) over same claim
     m.works.forEach((_, w) => g.addNode(String(w)));
     for (const l of ls.links) if (l.kind === 'same' && isClaim(l)) g.addEdge(String(l.a), String(l.b));
     const expected = connectedComponents(g).filter((c) => c.length >= 2).map((c) => c.map(Number).sort((x, y) => x - y).join(' ')).sort();
-    const got = cluster(m, ls).clusters.map((c) => Array.from(c.members).sort((x, y) => x - y).join(' ')).sort();
+    const got = cluster(m, ls, undefined, { coherence: false }).clusters.map((c) => Array.from(c.members).sort((x, y) => x - y).join(' ')).sort();
     assert.deepEqual(got, expected);
   }), { numRuns: 200 });
 });
@@ -300,7 +302,7 @@ test('bridges, implied pairs and "through a third archive" equal brute force on 
   fc.assert(fc.property(randomSpec, (spec) => {
     const m = build(spec);
     const ls = link(m);
-    const c = cluster(m, ls);
+    const c = cluster(m, ls, undefined, { coherence: false });
     const edges = ls.links.map((l, i) => [l, i] as const).filter(([l]) => l.kind === 'same' && isClaim(l));
     const componentsWithout = (skip: number, keep: (w: number) => boolean = () => true) => {
       const g = new UndirectedGraph();

@@ -14,7 +14,7 @@ import { writeTinyProject } from './helpers/releases.js';
 import { tempDir } from './helpers/fixture.js';
 
 const BASE = 'https://concordance.example.org/';
-const R1 = ['a:p1,b:p1,0.9,1', 'a:p1x,b:p1,0.8,0.9', 'a:p2,b:p2,0.9,1', 'a:p3,b:p3,0.9,1', 'b:p3,c:p3,0.9,1', 'c:p3,a:p6,0.9,1', 'a:p4,b:p4,0.9,1', 'a:p5,b:p5,0.7,1'];
+const R1 = ['a:p1,b:p1,0.9,1', 'a:p1x,b:p1,0.8,0.9', 'a:p2,b:p2,0.9,1', 'a:p3,b:p3,0.9,1', 'b:p3,c:p3,0.9,1', 'c:p3,a:p6,0.9,1', 'a:p4,b:p4,0.9,1', 'a:p5,b:p5,0.8,1'];
 const R2 = [...R1.filter((r) => !r.startsWith('a:p4')), 'b:p1,a:p2,0.9,1'];
 const D2 = ['b:3,c:3,distinct,Test Curator,2026-05-01,look-alike', 'a:5,b:5,same,Test Curator,2026-05-02,'];
 

@@ -5,9 +5,10 @@ import { rmSync } from 'node:fs';
 import path from 'node:path';
 import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
-import { build, clusterViews } from '../src/pipeline.js';
-import { releaseUnits, Namer, type Unit } from '../src/rdf/index.js';
-import { datasetUnit } from '../src/rdf/dataset.js';
+import { build } from '../src/pipeline.js';
+import type { Unit } from '../src/rdf/index.js';
+import { releaseView } from '../src/rdf/view.js';
+import { releaseStream } from '../src/rdf/stream.js';
 import { loadVocabMap } from '../src/rdf/vocab-map.js';
 import { isomorphic } from '../src/rdf/isomorphic.js';
 import { jsonldToNQuads } from '../src/rdf/jsonld-read.js';
@@ -57,11 +58,8 @@ after(() => rmSync(tmp, { recursive: true, force: true }));
 test('every unit of the demo release gives JSON-LD whose RDF is isomorphic to the unit', async () => {
   const r = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'demo'), { validate: false });
   const vocab = loadVocabMap(r.model.project.vocabMap);
-  const view = { model: r.model, links: r.links, clusters: clusterViews(r.clustering, r.analysis), retired: r.clustering.retired, vocab };
-  const namer = new Namer(r.model, vocab.iris);
-  const counts = new Map<string, number>();
-  const units = [...releaseUnits(view, namer, counts)];
-  units.push(datasetUnit(r.model, namer, counts));
+  const view = releaseView(r.model, r.links, r.clustering, r.analysis, vocab);
+  const units = [...releaseStream(view).units];
   const kinds = new Set<string>();
   for (const unit of units) {
     const nodes = await assertRoundTrip(unit);

@@ -5,6 +5,8 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { link, machineVerdict, matchesOf } from '../src/link/index.js';
+import { sameConfidence, MAX_TRIANGLES } from '../src/link/confidence.js';
+import { weighEvidence } from '../src/evidence/index.js';
 import { workRef, type Model, type Verdict } from '../src/model.js';
 import type { Link } from '../src/link/types.js';
 import { tinyModel } from './helpers/model.js';
@@ -33,10 +35,12 @@ function plainLinks(model: Model) {
     const [a, b] = ref(g.a) < ref(g.b) ? [g.a, g.b] : [g.b, g.a];
     let best = 0, sum = 0, reliable = 0, maxOverlap = 0, votesA = 0, votesB = 0;
     const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
+    const photosA = new Set<number>(), photosB = new Set<number>();
     for (const r of g.rows) {
       for (const img of [matches.a[r], matches.b[r]]) (images.work[img] === a ? imgsA : imgsB).add(img);
       runs.add(matches.run[r]);
       if (matches.overlap[r] < policy.minOverlap) continue;
+      for (const img of [matches.a[r], matches.b[r]]) (images.work[img] === a ? photosA : photosB).add(img);
       reliable++;
       sum += matches.score[r];
       best = Math.max(best, matches.score[r]);
@@ -46,7 +50,20 @@ function plainLinks(model: Model) {
         else votesB++;
       }
     }
-    let { kind, status } = g.rows.length ? machineVerdict(best, maxOverlap, reliable, policy) : { kind: 'same' as const, status: 'candidate' as const };
+    const photos = Math.min(photosA.size, photosB.size);
+    return { g, a, b, best, sum, reliable, maxOverlap, votesA, votesB, imgsA, imgsB, runs, photos };
+  }).map(({ g, a, b, best, sum, reliable, maxOverlap, votesA, votesB, imgsA, imgsB, runs, photos }, _, all) => {
+    // confidence: best × (1 − ⅓ × ½^agreement), agreement = further photos + third works strongly linked to both
+    const strong = (x: typeof all[number]) => {
+      const d = x.g.decision === undefined ? undefined : model.decisions[x.g.decision].verdict;
+      return d === 'same' || (d === undefined && x.reliable > 0 && x.maxOverlap >= policy.partOverlapBelow && sameConfidence(x.best, x.photos - 1) >= policy.proposeAt);
+    };
+    const nb = (w: number) => new Set(all.filter((x) => strong(x) && (x.a === w || x.b === w)).map((x) => (x.a === w ? x.b : x.a)));
+    const na = nb(a), nbb = nb(b);
+    const third = Math.min(MAX_TRIANGLES, [...na].filter((z) => z !== b && nbb.has(z)).length);
+    const isPart = maxOverlap < policy.partOverlapBelow;
+    const confidence = reliable === 0 ? 0 : isPart ? best : sameConfidence(best, photos - 1 + third);
+    let { kind, status } = g.rows.length ? machineVerdict(confidence, maxOverlap, reliable, policy) : { kind: 'same' as const, status: 'candidate' as const };
     let part: number | undefined = kind === 'part' ? (votesA >= votesB ? a : b) : undefined;
     if (g.decision !== undefined) {
       const d = model.decisions[g.decision];
@@ -87,7 +104,8 @@ test('link() equals the plain reference on random models (fast-check, 300 runs)'
     });
     model.runs.push({ ...model.runs[0], id: 'run-2' });
     model.matches.run = Int32Array.from(runOf);
-    const got = link(model);
+    // no image set aside (the evidence stage has tests of its own): confidence from every reliable row
+    const got = link(model, model.project.policy, { ...weighEvidence(model), setAside: new Uint8Array(model.matches.count) });
     const want = plainLinks(model);
     assert.deepEqual(got.duplicates, want.duplicates);
     const plain = (l: Link) => ({

@@ -2,6 +2,7 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import path from 'node:path';
+import { IMAGE_ROLES } from '../src/model.js';
 import { load } from '../src/load/index.js';
 import { UserError, type Problem } from '../src/errors.js';
 import { fixtureCopy, json, type Edit } from './helpers/fixture.js';
@@ -24,6 +25,16 @@ test('the base fixture loads: works grouped from image rows, quoted newlines, TS
   const small = model.warnings.find((w) => /under 300 px/.test(w.message));
   assert.ok(small, 'a 250x400 image is warned about');
   assert.equal(small!.line, 6);
+});
+
+test('an image role column is read through the partner\'s roles map, case-insensitively; blank means not recorded', async () => {
+  const dir = fixtureCopy('load/base', {
+    'concordance.json': json((o) => { o.partners[0].catalogue.columns.role = 'Date'; o.partners[0].catalogue.roles = { '1475': 'artwork', 'CA. 1480': 'verso', 'late 15th century': 'chart' }; }),
+  });
+  const { model } = await load(path.join(dir, 'concordance.json'));
+  const role = (id: string) => IMAGE_ROLES[model.images.role[model.images.id.indexOf(id)] - 1];
+  assert.deepEqual(['a-1', 'a-2', 'a-3', 'a-4'].map(role), ['artwork', 'artwork', 'verso', 'chart']);
+  assert.equal(model.images.role[model.images.id.indexOf('n3')], 0, 'beta records no roles');
 });
 
 test('BOM and CRLF line ends are read like plain UTF-8 with LF', async () => {
@@ -72,6 +83,8 @@ const cases: BadCase[] = [
   { name: 'unknown partner', edits: { 'evidence/run1.csv': addRow('alfa:a-3,beta:n3,0.8,1') }, file: 'evidence/run1.csv', line: 6, field: 'image_a', message: /unknown partner "alfa"/, hint: /did you mean "alpha"/ },
   { name: 'unknown image', edits: { 'evidence/run1.csv': addRow('alpha:a-99,beta:n3,0.8,1') }, file: 'evidence/run1.csv', line: 6, field: 'image_a', message: /unknown image "a-99" of partner "alpha"/ },
   { name: 'not a reference', edits: { 'evidence/run1.csv': addRow('a-3,beta:n3,0.8,1') }, file: 'evidence/run1.csv', line: 6, field: 'image_a', message: /not a image reference|not a image|is not a/ },
+  { name: 'role column without a roles map', edits: { 'concordance.json': json((o) => (o.partners[0].catalogue.columns.role = 'Date')) }, file: 'concordance.json', line: 27, field: 'partners[0].catalogue.roles', message: /a role column needs a "roles" map/, hint: /artwork, detail, verso/ },
+  { name: 'role word not in the roles map', edits: { 'concordance.json': json((o) => { o.partners[0].catalogue.columns.role = 'Date'; o.partners[0].catalogue.roles = { '1475': 'artwork' }; }) }, file: 'catalogues/alpha.csv', line: 4, field: 'Date', message: /role "ca. 1480" is not in the partner's "roles" map/, hint: /mapped: 1475/ },
   { name: 'self-match', edits: { 'evidence/run1.csv': addRow('beta:n3,beta:n3,0.99,1') }, file: 'evidence/run1.csv', line: 6, field: 'image_b', message: /image matched with itself/ },
   { name: 'unknown run', edits: { 'evidence/run1.csv': (t) => t.replace('score,overlap', 'score,overlap,run').replace(/\n(?=.)/g, '\n').split('\n').map((l, i) => (i === 0 || !l ? l : l + ',run-2')).join('\n') }, file: 'evidence/run1.csv', line: 2, field: 'run', message: /unknown run "run-2"/, hint: /did you mean "run-1"/ },
   { name: 'unknown work in decisions', edits: { 'decisions/d.csv': addRow('alpha:A 1,beta:B9,same,Jo Invented,2026-10-22,') }, file: 'decisions/d.csv', line: 4, field: 'work_b', message: /unknown work "B9" of partner "beta"/ },

@@ -21,30 +21,32 @@ test('sweepValues: inclusive range without floating-point drift; bad ranges are 
 });
 
 test('sweep: precision, recall and F1 per proposeAt, worked by hand', () => {
-  // gold: a:1–b:1, a:2–b:2, a:3–b:3. Evidence: a:1–b:1 0.9, a:2–b:2 0.6, a:3–b:3 0.4, a:1–b:2 0.7 (wrong)
+  // gold: a:1–b:1, a:2–b:2, a:3–b:3. Evidence: a:1–b:1 0.9, a:2–b:2 0.6, a:3–b:3 0.4, a:1–b:2 0.7 (wrong), one
+  // photograph each: confidence = score × 2/3 (src/link/confidence.ts): 0.6, 0.4, 0.267, 0.467
   const m = tinyModel({
     partners: ['a', 'b'], works: ['a:1', 'a:2', 'a:3', 'b:1', 'b:2', 'b:3'],
     matches: [['a:1', 'b:1', 0.9], ['a:2', 'b:2', 0.6], ['a:3', 'b:3', 0.4], ['a:1', 'b:2', 0.7]],
     gold: [['a:1', 'b:1'], ['a:2', 'b:2'], ['a:3', 'b:3']],
   });
-  const rows = sweep(m, [0.3, 0.5, 0.65, 0.8, 0.95]);
+  const rows = sweep(m, [0.2, 0.3, 0.45, 0.5, 0.65]);
   const got = rows.map((r) => [r.proposeAt, r.claimedPairs, r.found, r.precision, r.recall]);
   assert.deepEqual(got, [
-    // all four links: clusters {a:1,b:1,b:2,a:2} (6 pairs, 2 gold) and {a:3,b:3} (1 pair, gold)
-    [0.3, 7, 3, 3 / 7, 1],
+    // all four links proposed; a:1–b:2 (0.467) is the only link between {a:1,b:1} and {a:2,b:2}, a weak bridge, and
+    // is cut (src/cluster/coherence.ts): clusters {a:1,b:1}, {a:2,b:2}, {a:3,b:3}
+    [0.2, 3, 3, 1, 1],
     // a:3–b:3 drops out
-    [0.5, 6, 2, 2 / 6, 2 / 3],
+    [0.3, 2, 2, 1, 2 / 3],
     // a:2–b:2 drops out: {a:1,b:1,b:2}: 3 pairs, 1 gold
-    [0.65, 3, 1, 1 / 3, 1 / 3],
+    [0.45, 3, 1, 1 / 3, 1 / 3],
     // only a:1–b:1
-    [0.8, 1, 1, 1, 1 / 3],
-    [0.95, 0, 0, null, 0],
+    [0.5, 1, 1, 1, 1 / 3],
+    [0.65, 0, 0, null, 0],
   ]);
   assert.equal(rows[3].f1, (2 * 1 * (1 / 3)) / (1 + 1 / 3));
   assert.equal(rows[4].f1, null, 'precision undefined when nothing is claimed');
   const table = sweepTable(rows).split('\n');
   assert.match(table[0], /^proposeAt +precision +recall +F1/);
-  assert.match(table[1], /^ +0\.30 +42\.9% +100\.0% +60\.0%/);
+  assert.match(table[1], /^ +0\.20 +100\.0% +100\.0% +100\.0%/);
   assert.equal(new Set(table.slice(0, 5).map((l) => l.length)).size, 1, 'aligned columns');
   assert.throws(() => sweep(tinyModel({ partners: ['a'], works: ['a:1'] }), [0.5]), UserError);
 });

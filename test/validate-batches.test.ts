@@ -41,3 +41,27 @@ test('build with --shacl-engine rdf-validate-shacl publishes the same validation
   assert.equal(report('reference'), report('builtin'));
   assert.match(report('builtin'), /sh:conforms/);
 });
+
+test('a project shape reaching two hops (a link\'s run or review, then its label) gives in 300-triple batches the whole-graph result', async () => {
+  const dir = tempDir('concordat-batches-');
+  const { cpSync, writeFileSync } = await import('node:fs');
+  const { readRdfFile } = await import('../src/rdf/read.js');
+  const { loadShapesFolder } = await import('../src/validate/files.js');
+  const { validate } = await import('../src/validate/shacl.js');
+  const shapes = path.join(dir, 'shapes');
+  cpSync(path.join(repoRoot, 'shapes', 'concordat.ttl'), path.join(shapes, 'concordat.ttl'));
+  writeFileSync(path.join(shapes, 'extra.ttl'), `@prefix sh: <http://www.w3.org/ns/shacl#> .
+@prefix cx: <https://w3id.org/concordat/vocab#> .
+@prefix prov: <http://www.w3.org/ns/prov#> .
+@prefix rdfs: <http://www.w3.org/2000/01/rdf-schema#> .
+<urn:x:LinkActivityNamed> a sh:NodeShape ; sh:targetClass cx:Link ; sh:property <urn:x:LinkActivityNamed-agentLabel> .
+<urn:x:LinkActivityNamed-agentLabel> sh:path ( prov:wasGeneratedBy prov:wasAssociatedWith rdfs:label ) ; sh:minCount 1 ; sh:severity sh:Warning ;
+  sh:message "test: the activity's agent is named" .
+`);
+  const out = path.join(dir, 'out');
+  const built = await build(project, out, { validationBatch: 300, workers: 2, shapesDir: shapes });
+  const data = [...(await readRdfFile(path.join(out, 'concordance.nq'))), ...(await readRdfFile(path.join(out, 'dataset.ttl')))];
+  const whole = await validate(data, (await loadShapesFolder(shapes)).quads);
+  assert.ok(whole.warnings > 0 && whole.warnings < 1000, `some links lack a named agent (${whole.warnings})`);
+  assert.deepEqual(built.publish.validation.results, whole.results);
+});

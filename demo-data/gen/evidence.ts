@@ -29,7 +29,8 @@ export function matchesFor(pair: PairSpec, rng: Rng, kind: PairKind = pair.kind,
     const old = previous?.[n];
     const score = within(old && kind === pair.kind ? old.score + rng.real(-0.03, 0.03) : rng.real(...range.score), range.score, 3);
     const overlap = old ? old.overlap : rng.chance(range.blank) ? null : within(rng.real(...range.overlap), range.overlap, 2);
-    const swap = rng.chance(0.5);
+    // the matcher writes the detail photo of a partial match as image_a (the input contract): parts never swap
+    const swap = rng.chance(0.5) && kind !== 'part' && kind !== 'small-part';
     return { a: imageRef(swap ? pair.b : pair.a, swap ? j : i), b: imageRef(swap ? pair.a : pair.b, swap ? i : j), score, overlap };
   });
 }

@@ -45,16 +45,16 @@ export type PairKind =
 
 /** Score and overlap ranges per kind, and the share of rows with a blank overlap (blank = 1). */
 export const RANGES: Record<PairKind, { score: [number, number]; overlap: [number, number]; blank: number; maxImages: number }> = {
-  same: { score: [0.7, 0.99], overlap: [0.8, 1], blank: 0.15, maxImages: 3 },
+  same: { score: [0.76, 0.99], overlap: [0.8, 1], blank: 0.15, maxImages: 3 },
   duplicate: { score: [0.85, 0.99], overlap: [0.85, 1], blank: 0.15, maxImages: 2 },
   weak: { score: [0.3, 0.48], overlap: [0.75, 1], blank: 0, maxImages: 1 },
-  bridge: { score: [0.52, 0.56], overlap: [0.8, 0.95], blank: 0, maxImages: 1 },
-  'false-bridge': { score: [0.55, 0.58], overlap: [0.85, 0.95], blank: 0, maxImages: 1 },
+  bridge: { score: [0.91, 0.95], overlap: [0.8, 0.95], blank: 0, maxImages: 1 },
+  'false-bridge': { score: [0.92, 0.95], overlap: [0.85, 0.95], blank: 0, maxImages: 1 },
   part: { score: [0.7, 0.9], overlap: [0.3, 0.6], blank: 0, maxImages: 2 },
   // a detail so small in the whole that the overlap falls below the policy's minOverlap (0.3)
   'small-part': { score: [0.7, 0.9], overlap: [0.1, 0.28], blank: 0, maxImages: 1 },
   replica: { score: [0.62, 0.75], overlap: [0.8, 1], blank: 0, maxImages: 2 },
-  fading: { score: [0.58, 0.61], overlap: [0.8, 1], blank: 0, maxImages: 1 },
+  fading: { score: [0.76, 0.78], overlap: [0.8, 1], blank: 0, maxImages: 1 },
   // the same pair in a rerun that tells it apart better: below proposeAt, the link disappears
   faded: { score: [0.36, 0.44], overlap: [0.8, 1], blank: 0, maxImages: 1 },
 };

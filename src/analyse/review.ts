@@ -13,16 +13,22 @@ export const HIGH_SCORE_AT = 0.9;
 const tier = (r: ReviewReason) => REVIEW_REASONS.indexOf(r);
 
 /**
- * Ranks what curators should look at (design, pipeline step 4), by tier, then score (highest first), then references:
+ * Ranks what curators should look at by what a decision would change (design, pipeline step 4), by tier, then score
+ * (highest first), then references, and keeps the first `limit` rows (policy.reviewLimit; the rest are counted):
  * 1. `contradicts-distinct`: two works a curator called distinct that the claims still put in one cluster;
- * 2. `bridge` / `high-score`: unreviewed claims whose removal would split a cluster into two clusters (both sides
- *    of at least two works: one false link merges two artworks), or scoring ≥ `highScoreAt` (one tier, by score);
- * 3. `implied-third-archive`, then `implied`: same-cluster pairs with no direct claim and no curator decision;
- * 4. `proposed`: every other proposed link nobody has reviewed.
+ * 2. `split` / `bridge` (one tier): links that hold a cluster together — machine links the cluster stage cut to keep
+ *    clusters coherent, and unreviewed claims whose removal would split a cluster into two clusters of two or more;
+ * 3. `indiscriminate`: links touched by images that match regardless of the artwork (held back, or published on
+ *    other evidence with such rows beside it);
+ * 4. `look-alike`: links whose evidence reached proposeAt but whose confidence did not (one moderately similar
+ *    photograph and nothing else: a replica, a print from the same plate, a pendant, or the same work);
+ * 5. `high-score`: unreviewed claims scoring ≥ `highScoreAt` (quick wins);
+ * 6. `implied-third-archive`, then `implied`: same-cluster pairs with no direct claim and no curator decision;
+ * 7. `proposed`: every other proposed link nobody has reviewed.
  * A link reviewed by a curator is never queued again. For a `part` link the detail work comes first, so that a
  * curator who writes `part` states it the right way round (design: decisions file, work_a part of work_b).
  */
-export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clustering, highScoreAt = HIGH_SCORE_AT): ReviewQueue {
+export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clustering, highScoreAt = HIGH_SCORE_AT, limit = model.project.policy.reviewLimit): ReviewQueue {
   const links = linkSet.links;
   const isBridge = new Uint8Array(links.length); // bridges joining two groups that would each stay a cluster
   clustering.bridges.forEach((li, k) => { if (clustering.bridgeMinSide[k] >= 2) isBridge[li] = 1; });
@@ -31,9 +37,10 @@ export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clusteri
     a.push(x); b.push(y); reason.push(tier(r)); link.push(li);
     scores.push(li >= 0 ? links[li].best : -1);
   };
+  const HELD: Record<string, ReviewReason> = { split: 'split', indiscriminate: 'indiscriminate', 'look-alike': 'look-alike' };
   links.forEach((l, i) => {
-    if (l.decision !== undefined || !isClaim(l)) return;
-    const r: ReviewReason | undefined = isBridge[i] ? 'bridge' : l.best >= highScoreAt ? 'high-score' : l.status === 'proposed' ? 'proposed' : undefined;
+    if (l.decision !== undefined || !(isClaim(l) || l.held)) return;
+    const r: ReviewReason | undefined = l.held ? HELD[l.held] : isBridge[i] ? 'bridge' : l.setAside > 0 ? 'indiscriminate' : l.best >= highScoreAt ? 'high-score' : l.status === 'proposed' ? 'proposed' : undefined;
     if (r === undefined) return; // confirmed by score (autoConfirmAt) below highScoreAt: the policy settled it
     const [x, y] = l.kind === 'part' && l.part === l.b ? [l.b, l.a] : [l.a, l.b];
     add(x, y, r, i);
@@ -50,8 +57,8 @@ export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clusteri
   const queued = new Set<number>();
   for (let i = 0; i < A.length; i++) { queued.add(A[i]); queued.add(B[i]); }
   const byRef = refRank(model, [...queued]);
-  // bridge and high-score share one tier; score highest first; then references
-  const band = Uint8Array.from(R, (r) => (r === tier('high-score') ? tier('bridge') : r));
+  // split and bridge share one tier; score highest first; then references
+  const band = Uint8Array.from(R, (r) => (r === tier('split') ? tier('bridge') : r));
   const s = denseRank(score);
   const rank = sortByKeys(A.length, [
     { values: band, size: REVIEW_REASONS.length },
@@ -59,11 +66,17 @@ export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clusteri
     { values: Int32Array.from(A, (w) => byRef[w]), size: queued.size },
     { values: Int32Array.from(B, (w) => byRef[w]), size: queued.size },
   ]);
+  const byReason = REVIEW_REASONS.map(() => 0);
+  for (const r of R) byReason[r]++;
+  const kept = rank.subarray(0, Math.min(limit, rank.length));
   return {
-    count: rank.length,
-    a: Int32Array.from(rank, (i) => A[i]),
-    b: Int32Array.from(rank, (i) => B[i]),
-    reason: Uint8Array.from(rank, (i) => R[i]),
-    link: Int32Array.from(rank, (i) => L[i]),
+    count: kept.length,
+    total: rank.length,
+    byReason,
+    limit,
+    a: Int32Array.from(kept, (i) => A[i]),
+    b: Int32Array.from(kept, (i) => B[i]),
+    reason: Uint8Array.from(kept, (i) => R[i]),
+    link: Int32Array.from(kept, (i) => L[i]),
   };
 }

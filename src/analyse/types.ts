@@ -63,13 +63,22 @@ export interface Agreement {
   missed: MissedPair[];
 }
 
-/** Why a pair is in the review queue, most urgent first (the order is the ranking tier). */
-export const REVIEW_REASONS = ['contradicts-distinct', 'bridge', 'high-score', 'implied-third-archive', 'implied', 'proposed'] as const;
+/**
+ * Why a pair is in the review queue, most urgent first (the order is the ranking tier; `split` and `bridge` share one):
+ * what a decision would change most comes first (see review.ts).
+ */
+export const REVIEW_REASONS = ['contradicts-distinct', 'split', 'bridge', 'indiscriminate', 'look-alike', 'high-score', 'implied-third-archive', 'implied', 'proposed'] as const;
 export type ReviewReason = (typeof REVIEW_REASONS)[number];
 
 /** The review queue as columns, in rank order. `reason` indexes REVIEW_REASONS; `link` is -1 when there is none. */
 export interface ReviewQueue {
+  /** Rows listed (at most `limit`). */
   count: number;
+  /** Rows the queue would hold without the bound, and how many of them each reason has (REVIEW_REASONS order). */
+  total: number;
+  byReason: number[];
+  /** The bound (policy.reviewLimit). */
+  limit: number;
   a: Int32Array;
   b: Int32Array;
   reason: Uint8Array;

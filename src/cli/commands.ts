@@ -10,7 +10,9 @@ import { register as diff } from './diff.js';
 import { register as cite } from './cite.js';
 import { register as init } from './init.js';
 import { register as addPartner } from './add-partner.js';
+import { register as site } from './site.js';
+import { register as serve } from './serve.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite, init, addPartner];
+export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite, init, addPartner, site, serve];

@@ -23,15 +23,21 @@ export function register(program: Command): void {
     .option('--json', 'print the outcome as JSON instead of text')
     .addHelpText('after', EXAMPLE)
     .action(async (files: string[], opts: { shapes?: string; report?: string; json?: boolean; shaclEngine: ShaclEngine }) => {
-      const { defaultShapesDir, loadDataFiles, loadShapesFolder } = await import('../validate/files.js');
-      const { validate } = await import('../validate/shacl.js');
+      const { defaultShapesDir, streamDataFiles, loadShapesFolder } = await import('../validate/files.js');
+      const { BoundedValidation } = await import('../validate/bounded.js');
       const { writeValidationReport } = await import('../validate/report.js');
       const { summaryJson, summaryText } = await import('../validate/summary.js');
       const shapes = await loadShapesFolder(opts.shapes ?? defaultShapesDir());
-      const data = await loadDataFiles(files);
-      const outcome = await validate(data, shapes.quads, { shapesLabel: opts.shapes ?? 'shapes', engine: opts.shaclEngine });
+      const run = new BoundedValidation(shapes.quads, { shapesLabel: opts.shapes ?? 'shapes', engine: opts.shaclEngine, dataLabel: files.join(' ') });
+      try {
+        await streamDataFiles(files, (q) => run.add(q));
+      } catch (err) {
+        run.cleanup();
+        throw err;
+      }
+      const outcome = await run.finish();
       if (opts.report) await writeValidationReport(opts.report, outcome);
-      const context = { files: files.length, quads: data.size, shapesFiles: shapes.files.length };
+      const context = { files: files.length, quads: outcome.triples, shapesFiles: shapes.files.length };
       process.stdout.write(opts.json ? JSON.stringify(summaryJson(outcome, context), null, 2) + '\n' : summaryText(outcome, context));
       process.exitCode = outcome.conforms ? EXIT.ok : EXIT.failure;
     });

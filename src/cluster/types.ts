@@ -41,7 +41,21 @@ export interface ClusterRegistry {
   retired: RetiredId[];
 }
 
+/** A component the same claims would have formed, split by the coherence rules. */
+export interface Split {
+  /** Works in the component. */
+  works: number;
+  /** IDs of the clusters made of it, ascending. */
+  clusters: string[];
+  /** Its works left in no cluster. */
+  alone: number;
+  /** Links cut inside it. */
+  cutLinks: number;
+}
+
 export interface ClusterOptions {
+  /** Split incoherent clusters (default true; see coherence.ts). False: plain connected components. */
+  coherence?: boolean;
   /** A cluster with more members than this is flagged oversized. Default: OVERSIZE_PER_PARTNER × partners. */
   oversizeAt?: number;
   /** Pairwise diagnostics (implied pairs, date conflicts) are listed only for clusters up to this size. */
@@ -67,4 +81,12 @@ export interface Clustering {
   pairwiseLimit: number;
   /** Every retired ID: tombstones carried from the previous registry and the ones retired now; sorted by ID. */
   retired: RetiredId[];
+  /** Same claims cut to keep clusters coherent (link indexes, ascending; now candidates held as `split`). */
+  cut: Int32Array;
+  /** Parallel to `cut`: index into CUT_REASONS. */
+  cutReason: Uint8Array;
+  /** Components the cuts split, largest first. */
+  splits: Split[];
+  /** The claims without evidence weighing or splits, for the report's before and after. */
+  before: { clusters: number; largest: number; impliedPairs: number; sameClaims: number };
 }

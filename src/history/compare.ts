@@ -1,23 +1,45 @@
 // Two release snapshots → the changes between them: claims added, removed, re-statused or re-kinded; clusters merged, split, new, retired.
 import type { ClusterRegistry } from '../cluster/types.js';
 import { byNumber } from '../cluster/ids.js';
-import type { ClaimChange, Changes, LinkState, PartnerCounts, ReleaseSnapshot } from './types.js';
+import type { ClaimChange, ClaimStateOf, Changes, LinkState, MadeBy, PartnerCounts, ReleaseSnapshot } from './types.js';
 
 const cmp = (x: string, y: string) => (x < y ? -1 : x > y ? 1 : 0);
 
-function stateOf(l: LinkState): NonNullable<ClaimChange['before']> {
-  return { status: l.status, kind: l.kind, ...(l.relation ? { relation: l.relation } : {}), ...(l.score !== undefined ? { score: l.score } : {}) };
+function stateOf(snap: ReleaseSnapshot, l: LinkState): ClaimStateOf {
+  return {
+    status: l.status, kind: l.kind, ...(l.relation ? { relation: l.relation } : {}), ...(l.score !== undefined ? { score: l.score } : {}),
+    subject: snap.works.get(l.subject)?.ref ?? l.subject,
+  };
 }
 
-function change(snap: ReleaseSnapshot, other: ReleaseSnapshot, before?: LinkState, after?: LinkState): ClaimChange {
-  const l = (after ?? before)!;
-  const name = (w: string) => snap.works.get(w) ?? other.works.get(w) ?? { partner: '', ref: w };
+/** Who generated a link state: the curator review among its activities, else the runs (from the release's descriptions). */
+export function madeBy(snap: ReleaseSnapshot, l: LinkState): MadeBy {
+  const infos = l.generatedBy.map((iri) => ({ iri, info: snap.activities.get(iri) }));
+  const review = infos.find((x) => x.info?.kind === 'review');
+  if (review && review.info?.kind === 'review') {
+    const { curator, curatorName, date, verdict } = review.info;
+    return { kind: 'curator', review: review.iri, curator, ...(curatorName ? { name: curatorName } : {}), ...(date ? { date } : {}), ...(verdict ? { verdict } : {}) };
+  }
+  const runs = infos.map(({ iri, info }) => ({
+    iri, id: info?.kind === 'run' ? info.id : decodeURIComponent(iri.replace(/^.*\//, '')),
+    ...(info?.kind === 'run' && info.software ? { software: info.software } : {}), ...(info?.kind === 'run' && info.version ? { version: info.version } : {}),
+  }));
+  return { kind: 'runs', runs };
+}
+
+function change(before: ReleaseSnapshot, after: ReleaseSnapshot, old?: LinkState, now?: LinkState): ClaimChange {
+  const l = (now ?? old)!;
+  const name = (w: string) => after.works.get(w) ?? before.works.get(w) ?? { partner: '', ref: w };
   const [s, o] = [name(l.subject), name(l.object)];
   return {
     link: l.iri, subject: s.ref, object: o.ref, partners: [...new Set([s.partner, o.partner])].sort(cmp),
-    ...(before ? { before: stateOf(before) } : {}), ...(after ? { after: stateOf(after) } : {}),
+    ...(old ? { before: stateOf(before, old) } : {}), ...(now ? { after: stateOf(after, now) } : {}),
+    by: now ? madeBy(after, now) : { kind: 'release', version: after.version },
   };
 }
+
+/** A rejected link claims nothing, whatever kind the evidence gave it: only status changes count into or out of it. */
+const kindChanged = (x: LinkState, y: LinkState) => x.status !== 'rejected' && y.status !== 'rejected' && x.kind !== y.kind;
 
 /** Clusters: merged (a new cluster holding members of several old ones), split (an old one spread over several new ones), new IDs, IDs retired now. */
 export function compareClusters(before: ClusterRegistry, after: ClusterRegistry): Changes['clusters'] {
@@ -53,9 +75,9 @@ export function compareSnapshots(before: ReleaseSnapshot, after: ReleaseSnapshot
   const claims: Changes['claims'] = { added: [], removed: [], status: [], kind: [] };
   for (const [iri, l] of after.links) {
     const old = before.links.get(iri);
-    if (!old) { claims.added.push(change(after, before, undefined, l)); continue; }
-    if (old.status !== l.status) claims.status.push(change(after, before, old, l));
-    if (old.kind !== l.kind) claims.kind.push(change(after, before, old, l));
+    if (!old) { claims.added.push(change(before, after, undefined, l)); continue; }
+    if (old.status !== l.status) claims.status.push(change(before, after, old, l));
+    if (kindChanged(old, l)) claims.kind.push(change(before, after, old, l));
   }
   for (const [iri, l] of before.links) if (!after.links.has(iri)) claims.removed.push(change(before, after, l, undefined));
   for (const list of Object.values(claims)) list.sort((x, y) => cmp(x.link, y.link));

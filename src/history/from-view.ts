@@ -5,7 +5,7 @@ import type { ReleaseView } from '../rdf/view.js';
 import { registryOf } from '../cluster/index.js';
 import type { Clustering } from '../cluster/types.js';
 import { refOfWorkIri } from './names.js';
-import type { LinkState, ReleaseSnapshot, WorkName } from './types.js';
+import type { ActivityInfo, LinkState, ReleaseSnapshot, WorkName } from './types.js';
 
 const round = (x: number) => Number(dec(x).value);
 
@@ -40,9 +40,17 @@ export function snapshotOfView(view: ReleaseView, clustering: Clustering, namer:
     });
   }
   const sorted = new Map([...links].sort((x, y) => (x[0] < y[0] ? -1 : 1)));
+  const activities = new Map<string, ActivityInfo>();
+  model.runs.forEach((r, i) => activities.set(namer.runIri(i), { kind: 'run', id: r.id, software: r.software, version: r.version }));
+  for (const l of view.links.links) {
+    if (!isPublished(l) || l.decision === undefined) continue;
+    const d = model.decisions[l.decision];
+    const curator = namer.curatorIri(d.curator);
+    activities.set(namer.reviewIri(l.decision), { kind: 'review', curator, ...(curator !== d.curator ? { curatorName: d.curator } : {}), date: d.date, verdict: d.verdict });
+  }
   const project = model.project;
   return {
     version: project.release.version, issued: project.release.issued, dataset: namer.iri('dataset', { version: project.release.version }),
-    links: sorted, works, clusters: registryOf(model, clustering),
+    links: sorted, works, activities, clusters: registryOf(model, clustering),
   };
 }

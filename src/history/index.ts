@@ -1,7 +1,7 @@
 // History stage: the previous release + the release being built → changes, their RDF units, changes.md and changes.ttl.
 import { writeFile } from 'node:fs/promises';
 import path from 'node:path';
-import type { Namer, Unit } from '../rdf/index.js';
+import type { Unit } from '../rdf/index.js';
 import type { ReleaseView } from '../rdf/view.js';
 import type { Clustering } from '../cluster/types.js';
 import { retiredUnit, type Invalidation } from '../rdf/retired.js';
@@ -11,7 +11,9 @@ import { compareSnapshots } from './compare.js';
 import { changesMarkdown } from './markdown.js';
 import { changedLinks, currentMatchIris, historyUnits, releaseTime } from './units.js';
 import { readLinkEvidence } from './evidence.js';
-import type { Changes, PreviousRelease } from './types.js';
+import type { ActivityInfo, Changes, PreviousRelease, ReleaseSnapshot } from './types.js';
+import type { Quad } from '@rdfjs/types';
+import { inGraph, nn, str, term, when } from '../rdf/terms.js';
 import { UserError } from '../errors.js';
 
 export { readRelease } from './read.js';
@@ -24,6 +26,8 @@ export interface ReleaseHistory {
   units: Unit[];
   /** Changes against the previous release; undefined for a first release. */
   changes?: Changes;
+  /** Who made each added or changed claim, as statements the release also holds (for changes.ttl). */
+  madeBy?: Quad[];
 }
 
 /**
@@ -31,9 +35,11 @@ export interface ReleaseHistory {
  * cluster ID (those retired now invalidated by this release, older ones keeping their recorded invalidation), and,
  * with a previous release, the changes against it and their provenance units.
  */
-export async function releaseHistory(view: ReleaseView, clustering: Clustering, namer: Namer, previous?: PreviousRelease): Promise<ReleaseHistory> {
+export async function releaseHistory(view: ReleaseView, clustering: Clustering, previous?: PreviousRelease): Promise<ReleaseHistory> {
+  const { namer } = view;
   const units: Unit[] = [];
   let changes: Changes | undefined;
+  let madeBy: Quad[] | undefined;
   const invalidations = new Map<string, Invalidation>();
   if (previous) {
     const version = view.model.project.release.version;
@@ -41,6 +47,7 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
       throw new UserError({ file: view.model.projectFile, line: 0, field: 'release.version', message: `"${version}" is also the version of the previous release in ${previous.folder}`, hint: 'give every release its own version: release and earlier-state IRIs are named by it' });
     const current = snapshotOfView(view, clustering, namer);
     changes = compareSnapshots(previous.snapshot, current);
+    madeBy = madeByQuads(changes, current, namer.graph('provenance'));
     const changed = changedLinks(previous.snapshot, current);
     const evidence = await readLinkEvidence(previous.folder, new Set(changed.map(([old]) => old.iri)));
     const matchesNow = currentMatchIris(view, namer, new Set(changed.filter(([, now]) => now).map(([old]) => old.iri)));
@@ -54,12 +61,38 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
     for (const r of changes.clusters.retired) invalidations.set(r.id, { activity, ...(time ? { time } : {}) });
   }
   if (view.retired.length) units.push(retiredUnit(view.retired, namer, invalidations));
-  return { units, changes };
+  return { units, changes, madeBy };
 }
 
-/** Writes changes.md and changes.ttl (the history units' quads as Turtle) into the release folder. */
+/**
+ * For every claim added or changed: the link's prov:wasGeneratedBy and prov:wasAttributedTo (PROV-O §3.1), and for a
+ * curator's review who made it (prov:wasAssociatedWith, the person's rdfs:label), when and with which verdict.
+ */
+function madeByQuads(changes: Changes, current: ReleaseSnapshot, graph: Quad['graph']): Quad[] {
+  const out: Quad[] = [];
+  const g = inGraph(graph, out);
+  const links = [...new Set([...changes.claims.added, ...changes.claims.status, ...changes.claims.kind].map((c) => c.link))].sort();
+  const reviews = new Set<string>();
+  const names = new Map<string, string>();
+  for (const iri of links) {
+    const l = current.links.get(iri)!;
+    for (const x of l.generatedBy) { g(nn(iri), term('prov', 'wasGeneratedBy'), nn(x)); if (current.activities.get(x)?.kind === 'review') reviews.add(x); }
+    for (const x of l.attributedTo) g(nn(iri), term('prov', 'wasAttributedTo'), nn(x));
+  }
+  for (const r of [...reviews].sort()) {
+    const info = current.activities.get(r) as Extract<ActivityInfo, { kind: 'review' }>;
+    g(nn(r), term('prov', 'wasAssociatedWith'), nn(info.curator));
+    if (info.date) g(nn(r), info.date.includes('T') ? term('prov', 'endedAtTime') : term('dcterms', 'date'), when(info.date));
+    if (info.verdict) g(nn(r), term('cx', 'verdict'), str(info.verdict));
+    if (info.curatorName) names.set(info.curator, info.curatorName);
+  }
+  for (const [person, name] of [...names].sort()) g(nn(person), term('rdfs', 'label'), str(name));
+  return out;
+}
+
+/** Writes changes.md and changes.ttl (the history units' quads and who made each change, as Turtle) into the release folder. */
 export async function writeChanges(dir: string, history: ReleaseHistory): Promise<void> {
   if (!history.changes) return;
   await writeFile(path.join(dir, 'changes.md'), changesMarkdown(history.changes));
-  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', history.units.flatMap((u) => u.quads));
+  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [...history.units.flatMap((u) => u.quads), ...(history.madeBy ?? [])]);
 }

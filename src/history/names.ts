@@ -26,6 +26,14 @@ export const P = {
   attributedTo: iri('prov', 'wasAttributedTo'),
   invalidatedBy: iri('prov', 'wasInvalidatedBy'),
   invalidatedAt: iri('prov', 'invalidatedAtTime'),
+  CuratorReview: iri('cx', 'CuratorReview'),
+  MatchRun: iri('cx', 'MatchRun'),
+  associatedWith: iri('prov', 'wasAssociatedWith'),
+  endedAt: iri('prov', 'endedAtTime'),
+  date: iri('dcterms', 'date'),
+  verdict: iri('cx', 'verdict'),
+  label: iri('rdfs', 'label'),
+  versionInfo: iri('owl', 'versionInfo'),
 } as const;
 
 /** cx:Same / cx:Part / cx:Related → kind; cx:Confirmed / cx:Proposed / cx:Rejected → status. */

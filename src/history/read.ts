@@ -6,7 +6,7 @@ import { streamRdfFile } from '../rdf/read.js';
 import { readClusterRegistry } from '../cluster/index.js';
 import { UserError } from '../errors.js';
 import { P, KIND_OF, STATUS_OF, refOfWorkIri } from './names.js';
-import type { LinkState, PreviousRelease, ReleaseSnapshot, WorkName } from './types.js';
+import type { ActivityInfo, LinkState, PreviousRelease, ReleaseSnapshot, WorkName } from './types.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
 
 const need = (folder: string, file: string, field: string): string => {
@@ -28,6 +28,27 @@ export function datasetIdentity(quads: Iterable<Quad>, file: string): { dataset:
   const dataset = [...datasets].filter((d) => version.has(d)).sort()[0];
   if (!dataset) throw new UserError({ file, line: 0, field: 'dcat:version', message: 'no dcat:Dataset with a dcat:version', hint: 'the release\'s dataset description names its version' });
   return { dataset, version: version.get(dataset)!, issued: issued.get(dataset) };
+}
+
+/** What the provenance graph says about the reviews and runs that links name as prov:wasGeneratedBy (PROV-O §3.1). */
+export function activitiesOf(links: Iterable<LinkState>, provenance: Map<string, Quad[]>): Map<string, ActivityInfo> {
+  const get = (s: string, p: string) => provenance.get(s)?.find((q) => q.predicate.value === p)?.object.value;
+  const is = (s: string, type: string) => !!provenance.get(s)?.some((q) => q.predicate.value === P.type && q.object.value === type);
+  const out = new Map<string, ActivityInfo>();
+  for (const l of links)
+    for (const g of l.generatedBy) {
+      if (out.has(g)) continue;
+      if (is(g, P.CuratorReview)) {
+        const curator = get(g, P.associatedWith) ?? '';
+        const name = get(curator, P.label), date = get(g, P.endedAt) ?? get(g, P.date), verdict = get(g, P.verdict);
+        out.set(g, { kind: 'review', curator, ...(name ? { curatorName: name } : {}), ...(date ? { date } : {}), ...(verdict ? { verdict } : {}) });
+      } else if (is(g, P.MatchRun)) {
+        const agent = get(g, P.associatedWith);
+        const software = agent && get(agent, P.label), version = agent && get(agent, P.versionInfo);
+        out.set(g, { kind: 'run', id: decodeURIComponent(g.replace(/^.*\//, '')), ...(software ? { software } : {}), ...(version ? { version } : {}) });
+      }
+    }
+  return out;
 }
 
 /**
@@ -98,7 +119,7 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
     name(l.object);
     done.set(iri, { iri, subject: l.subject, object: l.object, kind: l.kind, status: l.status, relation: l.relation, score: l.score, support: l.support ?? 0, generatedBy: l.generatedBy.sort(), attributedTo: l.attributedTo.sort() });
   }
-  const snapshot: ReleaseSnapshot = { ...identity, links: done, works, clusters: await readClusterRegistry(csv) };
+  const snapshot: ReleaseSnapshot = { ...identity, links: done, works, activities: activitiesOf(done.values(), provenance), clusters: await readClusterRegistry(csv) };
   const clusterInvalidations = new Map<string, { activity: string; time?: string }>();
   for (const [c, x] of inval) if (x.activity) clusterInvalidations.set(c, { activity: x.activity, time: x.time });
   return { folder: path.resolve(folder), snapshot, provenance, clusterInvalidations };

@@ -27,6 +27,20 @@ export interface WorkName {
   ref: string;
 }
 
+/** An activity a link names as prov:wasGeneratedBy: a curator's review or a matcher run, as the release describes it. */
+export type ActivityInfo =
+  | { kind: 'review'; curator: string; curatorName?: string; date?: string; verdict?: string }
+  | { kind: 'run'; id: string; software?: string; version?: string };
+
+/**
+ * Who made a claim's new state: the curator whose review generated it, the matcher runs behind it, or (for a claim
+ * that is gone) the release that no longer holds it.
+ */
+export type MadeBy =
+  | { kind: 'curator'; review: string; curator: string; name?: string; date?: string; verdict?: string }
+  | { kind: 'runs'; runs: { iri: string; id: string; software?: string; version?: string }[] }
+  | { kind: 'release'; version: string };
+
 /** A release reduced to what the history stage compares (from its files, or from a build in progress). */
 export interface ReleaseSnapshot {
   version: string;
@@ -37,6 +51,8 @@ export interface ReleaseSnapshot {
   links: Map<string, LinkState>;
   /** Work IRI → name, for every work a link names. */
   works: Map<string, WorkName>;
+  /** Activity IRI → what the release says about it, for every activity a link names. */
+  activities: Map<string, ActivityInfo>;
   clusters: ClusterRegistry;
 }
 
@@ -57,8 +73,19 @@ export interface ClaimChange {
   object: string;
   /** Partner keys of the two works (one entry when both are of one partner). */
   partners: string[];
-  before?: { status: ClaimStatus; kind: ClaimKind; relation?: string; score?: number };
-  after?: { status: ClaimStatus; kind: ClaimKind; relation?: string; score?: number };
+  before?: ClaimStateOf;
+  after?: ClaimStateOf;
+  /** Who made the change: for a claim added or changed, whoever generated its new state; for one removed, the release. */
+  by: MadeBy;
+}
+
+/** A claim's state in one release; `subject` is the `partnerKey:workId` of its subject work (the detail of a part). */
+export interface ClaimStateOf {
+  status: ClaimStatus;
+  kind: ClaimKind;
+  relation?: string;
+  score?: number;
+  subject: string;
 }
 
 export interface PartnerCounts {

@@ -86,12 +86,10 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
   const matchRuns = (m: string) => (evidence.quads.get(m) ?? []).filter((q) => q.predicate.value === P.generatedBy).map((q) => q.object.value);
   const seeds = changed.flatMap(([old]) => [...old.generatedBy, ...old.attributedTo, ...(evidence.matches.get(old.iri) ?? []).flatMap(matchRuns)]);
   const copied = closure(seeds, previous.provenance, describedNow);
-  const types = new Map<string, Quad[]>();
   for (const s of copied)
     for (const q of previous.provenance.get(s)!) {
       const copy = N3.DataFactory.quad(q.subject, q.predicate, q.object, G) as Quad;
       shared.push(copy);
-      if (q.predicate.value === P.type) (types.get(s) ?? types.set(s, []).get(s)!).push(copy);
     }
   const units: Unit[] = [{ kind: 'provenance', id: 'history', quads: shared, partners: 'all' }];
 
@@ -109,13 +107,11 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     p(E, term('cx', 'status'), STATUS[old.status]);
     p(E, term('cx', 'support'), int(old.support));
     if (old.score !== undefined) p(E, term('cx', 'score'), dec(old.score));
-    const context: Quad[] = [];
     const matchQuads: Quad[] = [];
     for (const m of evidence.matches.get(old.iri) ?? []) {
       p(E, term('prov', 'wasDerivedFrom'), nn(m));
-      if (matchesNow.has(m)) { context.push(N3.DataFactory.quad(nn(m), a, term('cx', 'ImageMatch'), namer.graph('evidence')) as Quad); continue; }
+      if (matchesNow.has(m)) continue;
       for (const q of evidence.quads.get(m) ?? []) matchQuads.push(N3.DataFactory.quad(q.subject, q.predicate, q.object, namer.graph('evidence')) as Quad);
-      for (const r of matchRuns(m)) context.push(...(types.get(r) ?? []));
     }
     for (const x of old.generatedBy) p(E, term('prov', 'wasGeneratedBy'), nn(x));
     for (const x of old.attributedTo) p(E, term('prov', 'wasAttributedTo'), nn(x));
@@ -126,13 +122,12 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
       p(L, term('prov', 'wasInvalidatedBy'), R);
       if (time) p(L, term('prov', 'invalidatedAtTime'), typed(time, 'dateTime'));
     }
-    context.push(...[...old.generatedBy, ...old.attributedTo].flatMap((x) => types.get(x) ?? []));
     const partners = new Set<number>();
     for (const w of [old.subject, old.object]) {
       const n = partnerNo.get(prev.works.get(w)?.partner ?? '');
       if (n !== undefined) partners.add(n);
     }
-    units.push({ kind: 'link', id: old.iri, quads: quads.concat(matchQuads), partners, context });
+    units.push({ kind: 'link', id: old.iri, quads: quads.concat(matchQuads), partners });
   }
   return units;
 }

@@ -1,6 +1,7 @@
 // Rows of strings → RFC 4180 CSV files (for spreadsheets: UTF-8 with BOM, CRLF; or plain: LF, no BOM), streamed and renamed into place.
-import { createWriteStream, renameSync, rmSync } from 'node:fs';
+import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
+import { TempFile } from './temp-file.js';
 
 const NEEDS_QUOTES = /[",\r\n]/;
 /** First characters a spreadsheet reads as the start of a formula. */
@@ -40,18 +41,18 @@ export function csvLine(cells: readonly string[], neutral?: readonly boolean[], 
 const CHUNK = 1 << 16;
 
 /**
- * Writes a CSV file atomically: records go to `<file>.tmp` in 64 KiB chunks (never one big string) and the file is
+ * Writes a CSV file atomically: records go to a temp file beside it in 64 KiB chunks (never one big string) and the file is
  * renamed into place by `close()`. `neutral` marks the columns that are neutralised (see `neutralise`); `form` picks
  * BOM and line ends (see `CsvForm`). Line breaks inside a quoted cell are written as they are.
  */
 export class CsvFile {
   private readonly stream;
   private buffer = '';
-  private readonly temp: string;
+  private readonly temp: TempFile;
   private readonly eol: string;
   constructor(private readonly file: string, header: readonly string[], private readonly neutral?: readonly boolean[], form: CsvForm = 'spreadsheet') {
-    this.temp = `${file}.tmp`;
-    this.stream = createWriteStream(this.temp, { encoding: 'utf8' });
+    this.temp = new TempFile(file);
+    this.stream = createWriteStream(this.temp.temp, { encoding: 'utf8' });
     this.eol = form === 'spreadsheet' ? '\r\n' : '\n';
     this.buffer = (form === 'spreadsheet' ? '\uFEFF' : '') + csvLine(header, undefined, this.eol);
   }
@@ -74,10 +75,10 @@ export class CsvFile {
       this.stream.end();
       await once(this.stream, 'finish');
     } catch (e) {
-      rmSync(this.temp, { force: true });
+      this.temp.discard();
       throw e;
     }
-    renameSync(this.temp, this.file);
+    this.temp.commit();
     return this.file;
   }
 }

@@ -1,34 +1,57 @@
-// JSON project files ↔ objects: read with line-aware errors, written as JSON.stringify(…, null, 2) atomically.
-import { readFileSync, renameSync, rmSync, writeFileSync } from 'node:fs';
-import { randomBytes } from 'node:crypto';
+// JSON text and files ↔ values: the one reader (syntax errors at their line and column), and atomic JSON writes.
+import { readFileSync } from 'node:fs';
+import { writeFileAtomically } from './temp-file.js';
 import { UserError } from '../errors.js';
 
 /** Writes `value` as JSON.stringify(value, null, 2) plus a final LF: temp file beside it, then rename. */
 export function writeJsonFile(file: string, value: unknown): void {
-  const tmp = `${file}.tmp-${randomBytes(6).toString('hex')}`;
+  writeFileAtomically(file, JSON.stringify(value, null, 2) + '\n');
+}
+
+/** Line and column (1-based) of a character offset. */
+export function lineColumn(text: string, offset: number): { line: number; column: number } {
+  const before = text.slice(0, offset);
+  const line = before.split('\n').length;
+  return { line, column: offset - before.lastIndexOf('\n') };
+}
+
+const POSITION = /position (\d+)/;
+const POSITION_TAIL = / in JSON at position \d+.*$/;
+
+/**
+ * Parses JSON text (RFC 8259; a leading byte-order mark is ignored). A syntax error is a UserError at the line and
+ * column where the parser stopped (the end of the text when it ran out), with `hint`.
+ */
+export function parseJson(text: string, file: string, hint = 'check commas, quotes and brackets near here'): unknown {
+  const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   try {
-    writeFileSync(tmp, JSON.stringify(value, null, 2) + '\n');
-    renameSync(tmp, file);
+    return JSON.parse(body);
   } catch (e) {
-    rmSync(tmp, { force: true });
-    throw e;
+    const msg = (e as Error).message;
+    const m = POSITION.exec(msg);
+    const { line, column } = lineColumn(body, m ? Number(m[1]) : body.length);
+    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${msg.replace(POSITION_TAIL, '')}`, hint });
   }
+}
+
+/**
+ * Reads a UTF-8 JSON file and parses it (see {@link parseJson}); a file that cannot be read is a UserError naming it as
+ * `what` with `hint`. Returns the text as well, for callers that place later errors on their lines.
+ */
+export function readJsonFile(file: string, what: string, hint: string): { text: string; value: unknown } {
+  let text: string;
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch (e) {
+    throw new UserError({ file, line: 0, field: '', message: `cannot read ${what}: ${(e as NodeJS.ErrnoException).code ?? e}`, hint });
+  }
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  return { text, value: parseJson(text, file) };
 }
 
 /** Reads a JSON object (BOM tolerated); a syntax error or a non-object is a UserError naming the file. */
 export function readJsonObject(file: string): Record<string, unknown> {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8').replace(/^\uFEFF/, '');
-  } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `cannot read project file (${(e as NodeJS.ErrnoException).code ?? e})`, hint: 'give the path to concordance.json, e.g. from concordat init' });
-  }
-  let value: unknown;
-  try {
-    value = JSON.parse(text);
-  } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `JSON syntax error: ${(e as Error).message}`, hint: 'run concordat check on it' });
-  }
+  const { value } = readJsonFile(file, 'project file', 'give the path to concordance.json, e.g. from concordat init');
   if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new UserError({ file, line: 1, field: '', message: 'the project file is not a JSON object', hint: 'start from concordat init' });
   return value as Record<string, unknown>;
 }

@@ -1,6 +1,6 @@
 // Links stored column by column (typed arrays, ~80 bytes a link) → small read-only Link records over them, so a
 // million-work release holds its six million links without one heap object of numbers each.
-import type { Link, LinkKind, LinkStatus } from './types.js';
+import { HELD_REASONS, type HeldReason, type Link, type LinkKind, type LinkStatus } from './types.js';
 
 const KINDS: readonly LinkKind[] = ['same', 'part', 'related'];
 const STATUSES: readonly LinkStatus[] = ['confirmed', 'proposed', 'rejected', 'candidate'];
@@ -17,6 +17,9 @@ export interface LinkValues {
   best: number;
   mean: number;
   maxOverlap: number;
+  confidence: number;
+  setAside: number;
+  held: HeldReason | undefined;
   coverageA: number;
   coverageB: number;
   runs: readonly number[];
@@ -37,6 +40,10 @@ export class LinkColumns {
   readonly best: Float64Array;
   readonly mean: Float64Array;
   readonly maxOverlap: Float64Array;
+  readonly confidence: Float64Array;
+  readonly setAside: Int32Array;
+  /** 0: none, else 1 + index into HELD_REASONS. */
+  readonly held: Uint8Array;
   readonly coverageA: Float64Array;
   readonly coverageB: Float64Array;
   /** Index into `runLists`. */
@@ -59,6 +66,9 @@ export class LinkColumns {
     this.best = new Float64Array(size);
     this.mean = new Float64Array(size);
     this.maxOverlap = new Float64Array(size);
+    this.confidence = new Float64Array(size);
+    this.setAside = new Int32Array(size);
+    this.held = new Uint8Array(size);
     this.coverageA = new Float64Array(size);
     this.coverageB = new Float64Array(size);
     this.runs = new Int32Array(size);
@@ -78,6 +88,9 @@ export class LinkColumns {
     this.best[i] = v.best;
     this.mean[i] = v.mean;
     this.maxOverlap[i] = v.maxOverlap;
+    this.confidence[i] = v.confidence;
+    this.setAside[i] = v.setAside;
+    this.held[i] = v.held === undefined ? 0 : 1 + HELD_REASONS.indexOf(v.held);
     this.coverageA[i] = v.coverageA;
     this.coverageB[i] = v.coverageB;
     this.runs[i] = this.runList(v.runs);
@@ -94,6 +107,20 @@ export class LinkColumns {
       this.runListIndex.set(key, n);
     }
     return n;
+  }
+
+  setStatus(i: number, status: LinkStatus): void {
+    this.status[i] = STATUSES.indexOf(status);
+  }
+
+  statusOf(i: number): LinkStatus {
+    return STATUSES[this.status[i]];
+  }
+
+  /** Withholds link `i`: status `candidate`, with the reason (the cluster stage's cuts; the link stage's own holds). */
+  hold(i: number, reason: HeldReason): void {
+    this.status[i] = STATUSES.indexOf('candidate');
+    this.held[i] = 1 + HELD_REASONS.indexOf(reason);
   }
 
   /** Read-only records for every link, in column order. */
@@ -115,6 +142,9 @@ class LinkRecord implements Link {
   get best(): number { return this.c.best[this.i]; }
   get mean(): number { return this.c.mean[this.i]; }
   get maxOverlap(): number { return this.c.maxOverlap[this.i]; }
+  get confidence(): number { return this.c.confidence[this.i]; }
+  get setAside(): number { return this.c.setAside[this.i]; }
+  get held(): HeldReason | undefined { const h = this.c.held[this.i]; return h === 0 ? undefined : HELD_REASONS[h - 1]; }
   get coverageA(): number { return this.c.coverageA[this.i]; }
   get coverageB(): number { return this.c.coverageB[this.i]; }
   get runs(): number[] { return this.c.runLists[this.c.runs[this.i]]; }
@@ -123,7 +153,7 @@ class LinkRecord implements Link {
 
   /** The plain values (for tests and debugging: getters are not own properties). */
   toJSON(): LinkValues {
-    const { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, coverageA, coverageB, runs, decision, matchStart } = this;
-    return { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, coverageA, coverageB, runs, decision, matchStart };
+    const { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, confidence, setAside, held, coverageA, coverageB, runs, decision, matchStart } = this;
+    return { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, confidence, setAside, held, coverageA, coverageB, runs, decision, matchStart };
   }
 }

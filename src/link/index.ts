@@ -4,6 +4,16 @@ import type { Problem } from '../errors.js';
 import { refRank } from '../model.js';
 import { LinkColumns, type LinkValues } from './columns.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
+import { weighEvidence, type WeighedEvidence } from '../evidence/index.js';
+import { sameConfidence, triangles } from './confidence.js';
+
+/** Per-link values the confidence pass needs beyond the link's own columns. */
+interface Scratch {
+  /** Best reliable, discriminating score (0: none). */
+  discBest: Float64Array;
+  /** min(distinct discriminating photos of a, of b). */
+  photos: Int32Array;
+}
 
 /**
  * Which end of a partial match is the detail. Contract extension (documented in DEVELOPERS.md): for a partial match,
@@ -13,12 +23,12 @@ function detailWork(model: Model, row: number): number {
   return model.images.work[model.matches.a[row]];
 }
 
-/** Status and kind from the machine evidence alone (policy: proposeAt, autoConfirmAt, partOverlapBelow). */
-export function machineVerdict(best: number, maxOverlap: number, reliable: number, policy: Policy): { kind: LinkKind; status: LinkStatus } {
+/** Status and kind from the machine evidence alone (policy: proposeAt, autoConfirmAt, partOverlapBelow), given the link's confidence. */
+export function machineVerdict(confidence: number, maxOverlap: number, reliable: number, policy: Policy): { kind: LinkKind; status: LinkStatus } {
   const kind: LinkKind = maxOverlap < policy.partOverlapBelow ? 'part' : 'same';
   if (reliable === 0) return { kind, status: 'candidate' };
-  if (policy.autoConfirmAt !== null && best >= policy.autoConfirmAt) return { kind, status: 'confirmed' };
-  return { kind, status: best >= policy.proposeAt ? 'proposed' : 'candidate' };
+  if (policy.autoConfirmAt !== null && confidence >= policy.autoConfirmAt) return { kind, status: 'confirmed' };
+  return { kind, status: confidence >= policy.proposeAt ? 'proposed' : 'candidate' };
 }
 
 /**
@@ -27,7 +37,7 @@ export function machineVerdict(best: number, maxOverlap: number, reliable: numbe
  * Curator decisions always win: `same` confirms, `part` and `related` set the kind (confirmed), `distinct` keeps a
  * rejected link so it is never proposed again. Matches below `minOverlap` stay evidence but propose nothing.
  */
-export function link(model: Model, policy: Policy = model.project.policy): LinkSet {
+export function link(model: Model, policy: Policy = model.project.policy, evidence: WeighedEvidence = weighEvidence(model, policy)): LinkSet {
   const { matches, images } = model;
   const rank = refRank(model, Array.from(model.works.keys()));
   const byRank = new Int32Array(model.works.length);
@@ -58,6 +68,9 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
   const decisionOnly = [...decided.keys()].filter((k) => !evidenced.has(k)).sort((p, q) => p - q);
 
   const columns = new LinkColumns(groups + decisionOnly.length);
+  const scratch: Scratch = { discBest: new Float64Array(columns.size), photos: new Int32Array(columns.size) };
+  const make = (a: number, b: number, start: number, count: number, decision: number | undefined) =>
+    makeLink(model, policy, evidence.setAside, a, b, matchRows, start, count, decision, scratch, n);
   const matchRows = new Int32Array(matches.count);
   let kept = 0;
   let n = 0;
@@ -66,7 +79,8 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
   const emitDecisionOnly = (upTo: number) => {
     for (; d < decisionOnly.length && decisionOnly[d] < upTo; d++) {
       const key = decisionOnly[d];
-      columns.set(n++, makeLink(model, policy, byRank[Math.floor(key / PAIR)], byRank[key % PAIR], matchRows, kept, 0, decided.get(key)));
+      columns.set(n, make(byRank[Math.floor(key / PAIR)], byRank[key % PAIR], kept, 0, decided.get(key)));
+      n++;
     }
   };
   for (let g = 0; g < groups; g++) {
@@ -80,12 +94,41 @@ export function link(model: Model, policy: Policy = model.project.policy): LinkS
       else duplicates.push({ row: i, first: repeat }); // one run reporting one image pair twice is one piece of evidence
     }
     const first = rows[starts[g]];
-    columns.set(n++, makeLink(model, policy, byRank[lo[first]], byRank[hi[first]], matchRows, from, kept - from, decided.get(key)));
+    columns.set(n, make(byRank[lo[first]], byRank[hi[first]], from, kept - from, decided.get(key)));
+    n++;
   }
   emitDecisionOnly(Infinity);
   duplicates.sort((p, q) => p.row - q.row);
+  settle(model, policy, columns, scratch);
   const links = columns.records();
-  return { links, byPair: new PairIndex(links), duplicates, matchRows: matchRows.slice(0, kept) };
+  return { links, byPair: new PairIndex(links), duplicates, matchRows: matchRows.slice(0, kept), evidence, hold: (i, reason) => columns.hold(i, reason) };
+}
+
+/**
+ * The confidence pass (src/evidence/README.md, "Link confidence"): third works strongly linked to both ends raise a
+ * machine same link's confidence; status follows the confidence; a link whose evidence reached proposeAt but whose
+ * confidence does not is held back, saying why. Curator decisions keep their status.
+ */
+function settle(model: Model, policy: Policy, c: LinkColumns, scratch: Scratch): void {
+  const SAME = 0; // index of 'same' in the kind column
+  const strong = new Uint8Array(c.size), ask = new Uint8Array(c.size);
+  for (let i = 0; i < c.size; i++) {
+    const curatorSame = c.decision[i] >= 0 && model.decisions[c.decision[i]].verdict === 'same';
+    if (c.kind[i] !== SAME) continue;
+    if (curatorSame || (c.decision[i] < 0 && sameConfidence(scratch.discBest[i], scratch.photos[i] - 1) >= policy.proposeAt)) strong[i] = 1;
+    if (scratch.discBest[i] > 0) ask[i] = 1;
+  }
+  const t = triangles(model.works.length, c.a, c.b, strong, ask);
+  for (let i = 0; i < c.size; i++) {
+    if (scratch.discBest[i] === 0) continue;
+    const confidence = c.kind[i] === SAME ? sameConfidence(scratch.discBest[i], scratch.photos[i] - 1 + t[i]) : scratch.discBest[i];
+    c.confidence[i] = confidence;
+    if (c.decision[i] >= 0) continue;
+    c.setStatus(i, machineVerdict(confidence, c.kind[i] === SAME ? 1 : 0, 1, policy).status);
+  }
+  for (let i = 0; i < c.size; i++)
+    if (c.decision[i] < 0 && c.reliableSupport[i] > 0 && c.best[i] >= policy.proposeAt && c.statusOf(i) === 'candidate')
+      c.hold(i, scratch.discBest[i] >= policy.proposeAt ? 'look-alike' : 'indiscriminate');
 }
 
 /** Work pair → link index through a sorted key array and binary search (16 bytes a link; a Map took ~60). */
@@ -144,30 +187,41 @@ function findRepeat(model: Model, matchRows: Int32Array, from: number, to: numbe
 }
 
 /** One link from its evidence rows (matchRows[start, start + count)) and the deciding row, if any. */
-function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined): LinkValues {
+function makeLink(model: Model, policy: Policy, setAside: Uint8Array, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined, scratch: Scratch, n: number): LinkValues {
   const { matches, images } = model;
-  let best = 0, sum = 0, reliable = 0, maxOverlap = 0;
+  let sum = 0, reliable = 0, aside = 0;
+  // [0]: every reliable row; [1]: reliable rows of discriminating images only
+  const best = [0, 0], maxOverlap = [0, 0], votesA = [0, 0], votesB = [0, 0], used = [0, 0];
   const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
-  let votesA = 0, votesB = 0;
+  const discA = new Set<number>(), discB = new Set<number>();
   for (let k = start; k < start + count; k++) {
     const r = matchRows[k];
     const ia = matches.a[r], ib = matches.b[r];
     for (const img of [ia, ib]) (images.work[img] === a ? imgsA : imgsB).add(img);
     runs.add(matches.run[r]);
+    if (setAside[r]) aside++;
     if (matches.overlap[r] < policy.minOverlap) continue;
     reliable++;
     sum += matches.score[r];
-    if (matches.score[r] > best) best = matches.score[r];
-    if (matches.overlap[r] > maxOverlap) maxOverlap = matches.overlap[r];
-    if (matches.overlap[r] < policy.partOverlapBelow) {
-      if (detailWork(model, r) === a) votesA++;
-      else votesB++;
+    for (const j of setAside[r] ? [0] : [0, 1]) {
+      used[j]++;
+      if (matches.score[r] > best[j]) best[j] = matches.score[r];
+      if (matches.overlap[r] > maxOverlap[j]) maxOverlap[j] = matches.overlap[r];
+      if (matches.overlap[r] < policy.partOverlapBelow) {
+        if (detailWork(model, r) === a) votesA[j]++;
+        else votesB[j]++;
+      }
     }
+    if (!setAside[r]) for (const img of [ia, ib]) (images.work[img] === a ? discA : discB).add(img);
   }
+  // kind and direction from the discriminating rows when there are any
+  const j = used[1] > 0 ? 1 : 0;
+  scratch.discBest[n] = best[1];
+  scratch.photos[n] = Math.min(discA.size, discB.size);
   // a pair known only from a decision has no evidence to call it partial: a `distinct` verdict rejects `same`
-  let { kind, status } = count ? machineVerdict(best, maxOverlap, reliable, policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
+  let { kind, status } = count ? machineVerdict(best[1], maxOverlap[j], used[1], policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
   let part: number | undefined;
-  if (kind === 'part') part = votesA >= votesB ? a : b;
+  if (kind === 'part') part = votesA[j] >= votesB[j] ? a : b;
   if (decision !== undefined) {
     const d = model.decisions[decision];
     if (d.verdict === 'distinct') status = 'rejected';
@@ -181,9 +235,12 @@ function makeLink(model: Model, policy: Policy, a: number, b: number, matchRows:
     a, b, kind, status, part,
     support: count,
     reliableSupport: reliable,
-    best,
+    best: best[0],
     mean: reliable ? sum / reliable : 0,
-    maxOverlap,
+    maxOverlap: maxOverlap[j],
+    confidence: 0,
+    setAside: aside,
+    held: undefined,
     coverageA: imgsA.size / model.works[a].imageCount,
     coverageB: imgsB.size / model.works[b].imageCount,
     runs: [...runs].sort((p, q) => p - q),

@@ -1,6 +1,6 @@
 // A partner's catalogue export (one row per image) → works and images, grouped by the partner's work ID.
 import type { ProblemList, Problem } from '../errors.js';
-import type { PartnerConfig, Work } from '../model.js';
+import { IMAGE_ROLES, type PartnerConfig, type Work } from '../model.js';
 import type { Column } from '../util/columns.js';
 import { statSync } from 'node:fs';
 import path from 'node:path';
@@ -17,6 +17,8 @@ export interface ImageColumns {
   work: Column<Int32Array>;
   line: Column<Int32Array>;
   id: string[];
+  /** 1 + index into IMAGE_ROLES per image; 0 = not recorded. */
+  role: number[];
 }
 
 /** Reads one partner's export into the shared work and image tables (design: "Catalogue export"). */
@@ -31,7 +33,8 @@ export async function loadCatalogue(
   warnings: Problem[],
 ): Promise<void> {
   const { file, delimiter, columns: c } = partner.catalogue;
-  const optional = [c.title, c.date, c.width, c.height].filter((x): x is string => !!x);
+  const optional = [c.title, c.date, c.width, c.height, c.role].filter((x): x is string => !!x);
+  const roles = new Map(Object.entries(partner.catalogue.roles ?? {}).map(([word, role]) => [word.trim().toLowerCase(), 1 + IMAGE_ROLES.indexOf(role)]));
   const required = [c.work, c.image, ...optional];
   const disagreeing = new Set<number>();
   /** Distinct date phrases we cannot read: one warning each, with the number of records (works) that use it. */
@@ -87,7 +90,15 @@ export async function loadCatalogue(
         if (rawW !== '' && rawH !== '' && Math.min(wpx, hpx) < MIN_IMAGE_SIDE && Math.min(wpx, hpx) > 0)
           warnings.push({ file, line: row.line, field: `${c.width}/${c.height}`, message: `image "${imageId}" is ${wpx}×${hpx} px, under ${MIN_IMAGE_SIDE} px on its shorter side`, hint: 'matches on it are unreliable; a larger scan would help' });
       }
+      let role = 0;
+      if (c.role) {
+        const word = row.get(c.role).trim();
+        const r = roles.get(word.toLowerCase());
+        if (r !== undefined) role = r;
+        else if (word !== '') problems.add({ file, line: row.line, field: c.role, message: `role "${word}" is not in the partner's "roles" map`, hint: `add it to partners[${partnerNo}].catalogue.roles in concordance.json (mapped: ${[...roles.keys()].join(', ') || 'none'})` });
+      }
       const img = images.id.length;
+      images.role.push(role);
       images.id.push(imageId);
       images.work.push(w);
       images.line.push(row.line);

@@ -1,11 +1,11 @@
 // concordance.json → ProjectConfig: JSON syntax, zod schema, did-you-mean hints, paths resolved.
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, UserError, type Problem } from '../errors.js';
-import type { ProjectConfig } from '../model.js';
+import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
 import { didYouMean } from '../io/did-you-mean.js';
+import { lineColumn, readJsonFile } from '../io/json-file.js';
 
 const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
 const iri = (what: string) =>
@@ -23,6 +23,7 @@ const ColumnsSchema = z.strictObject({
   date: nonEmpty.optional(),
   width: nonEmpty.optional(),
   height: nonEmpty.optional(),
+  role: nonEmpty.optional(),
 });
 
 const PartnerSchema = z.strictObject({
@@ -39,6 +40,8 @@ const PartnerSchema = z.strictObject({
     file: nonEmpty,
     delimiter: z.string().length(1, { message: 'delimiter must be one character, e.g. "," ";" or "\\t"' }).default(','),
     columns: ColumnsSchema,
+    /** The partner's words for an image's role → the project's roles (needed with columns.role). */
+    roles: z.record(z.string(), z.enum(IMAGE_ROLES)).optional(),
   }),
 });
 
@@ -68,6 +71,8 @@ const PolicySchema = z
     autoConfirmAt: unit.nullable().default(null),
     partOverlapBelow: z.number().gt(0).max(1).default(0.7),
     minOverlap: unit.default(0.3),
+    indiscriminateAbove: z.number().int().min(1).nullable().default(null),
+    reviewLimit: z.number().int().min(1).default(500),
   })
   .refine((p) => p.autoConfirmAt === null || p.autoConfirmAt >= p.proposeAt, {
     message: 'autoConfirmAt must be at least proposeAt (or null)',
@@ -84,7 +89,7 @@ export const ProjectSchema = z.strictObject({
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
   decisions: z.array(DecisionFileSchema).default([]),
   gold: nonEmpty.optional(),
-  policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 }),
+  policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3, indiscriminateAbove: null, reviewLimit: 500 }),
   previous: nonEmpty.optional(),
   vocabMap: nonEmpty.optional(),
   release: z
@@ -124,40 +129,17 @@ function keysAt(pathParts: PropertyKey[]): string[] {
 const jsonPath = (p: PropertyKey[]) =>
   p.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
 
-/** Line and column (1-based) of a character offset. */
-function lineCol(text: string, pos: number): { line: number; column: number } {
-  const before = text.slice(0, pos);
-  const line = before.split('\n').length;
-  return { line, column: pos - before.lastIndexOf('\n') };
-}
-
 /** Finds the line where a JSON path's value starts, by a light scan for its last key; 1 when unknown. */
 function lineOfPath(text: string, p: PropertyKey[]): number {
   const lastKey = [...p].reverse().find((k) => typeof k === 'string');
   if (lastKey === undefined) return 1;
   const idx = text.indexOf(JSON.stringify(lastKey));
-  return idx < 0 ? 1 : lineCol(text, idx).line;
+  return idx < 0 ? 1 : lineColumn(text, idx).line;
 }
 
 /** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
 export function loadProjectFile(file: string): ProjectConfig {
-  let text: string;
-  try {
-    text = readFileSync(file, 'utf8');
-  } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `cannot read project file: ${(e as NodeJS.ErrnoException).code ?? e}`, hint: 'give the path to concordance.json' });
-  }
-  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    const msg = (e as Error).message;
-    const m = /position (\d+)/.exec(msg);
-    const pos = m ? Number(m[1]) : text.length;
-    const { line, column } = lineCol(text, pos);
-    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${msg.replace(/ in JSON at position \d+.*$/, '')}`, hint: 'check commas, quotes and brackets near here' });
-  }
+  const { text, value: raw } = readJsonFile(file, 'project file', 'give the path to concordance.json');
   const problems = new ProblemList();
   const parsed = ProjectSchema.safeParse(raw);
   if (!parsed.success) {
@@ -177,6 +159,9 @@ export function loadProjectFile(file: string): ProjectConfig {
   const seen = new Set<string>();
   p.partners.forEach((partner, i) => {
     const at = (f: string): Problem => ({ file, line: lineOfPath(text, ['partners', i, f]), field: `partners[${i}].${f}`, message: '' });
+    const { columns, roles } = partner.catalogue;
+    if (columns.role !== undefined && roles === undefined) problems.add({ file, line: lineOfPath(text, ['partners', i, 'catalogue', 'columns', 'role']), field: `partners[${i}].catalogue.roles`, message: 'a role column needs a "roles" map', hint: `map each word of the column to one of ${IMAGE_ROLES.join(', ')}, e.g. "roles": { "Recto": "artwork", "Verso": "verso" }` });
+    if (roles !== undefined && columns.role === undefined) problems.add({ file, line: lineOfPath(text, ['partners', i, 'catalogue', 'roles']), field: `partners[${i}].catalogue.columns.role`, message: '"roles" is given but no role column', hint: 'name the column that holds each image\'s role in "columns": { "role": … }' });
     if (seen.has(partner.key)) problems.add({ ...at('key'), message: `duplicate partner key "${partner.key}"`, hint: 'each partner needs its own key' });
     seen.add(partner.key);
     const templates: [string, string | undefined, string, string[]][] = [

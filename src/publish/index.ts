@@ -1,34 +1,16 @@
-// Publish stage: release view → RDF files (whole and per partner), SHACL-validated chunk by chunk, plus checksums.
+// Publish stage: units of the release → RDF dump files (whole and per partner) and dataset.ttl; SHA256SUMS at the end.
 import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
 import { readdir, writeFile } from 'node:fs/promises';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
-import { releaseUnits, Namer, isPublished, type LinksetCounts, type Unit } from '../rdf/index.js';
+import type { Model } from '../model.js';
+import type { Unit } from '../rdf/index.js';
 import { progress } from '../util/progress.js';
-import { datasetUnit } from '../rdf/dataset.js';
-import type { ReleaseView } from '../rdf/view.js';
 import { writeQuads } from '../rdf/serialize.js';
-import { validateChunks, writeValidationReport, type ValidationChunk } from '../validate/chunked.js';
-import type { ShaclEngine, ValidationOutcome } from '../validate/shacl.js';
-import { outcomeOf } from '../validate/report.js';
-import { ReleaseWriter, chunkOf, typeIndexOf } from './rdf-files.js';
+import type { ValidationOutcome } from '../validate/shacl.js';
+import { ReleaseWriter } from './rdf-files.js';
 import { TEMP_MARKER } from '../io/atomic.js';
-
-export interface PublishOptions {
-  shapes: Quad[];
-  /** IRI of the previous release's dataset (dcat:previousVersion). */
-  previousVersion?: string;
-  /** Extra units appended before the dataset description (e.g. changes against the previous release). */
-  extraUnits?: Unit[];
-  workers?: number;
-  /** Quads per SHACL batch (default: validateChunks' own). */
-  validationBatch?: number;
-  /** SHACL engine (default: the built-in core engine). */
-  shaclEngine?: ShaclEngine;
-  /** Run SHACL (default true); false writes everything except validation.ttl and reports an empty outcome. */
-  validate?: boolean;
-}
 
 export interface PublishResult {
   triples: number;
@@ -39,49 +21,29 @@ export interface PublishResult {
   hashes: Map<string, string>;
 }
 
+/** What writing the dumps gives back: triples written, and SHA-256 (hex) of the RDF files by relative path. */
+export interface DumpsWritten {
+  triples: number;
+  hashes: Map<string, string>;
+}
+
 /**
- * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld}, dataset.ttl and validation.ttl into `dir`
- * (design, "Outputs"), validating each unit with the shared provenance it points to (SHACL per chunk keeps memory flat).
+ * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld} (unless the project turns slices off) and
+ * dataset.ttl (the last unit, the dataset description) into `dir` (design, "Outputs"), one unit at a time.
+ * `size` is the number of units, for the progress bar named `label`.
  */
-export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOptions): Promise<PublishResult> {
-  const namer = new Namer(view.model, view.vocab.iris);
-  const counts: LinksetCounts = new Map();
-  const writer = new ReleaseWriter(dir, view.model.project.release.partnerDumps === false ? null : view.model.project.partners.map((p) => p.key));
-  let typeIndex = new Map<string, Quad[]>();
-  let datasetQuads: Quad[] = [];
-  // links outside every cluster become units of their own: counted for the progress bar (a byte per link)
-  const inClusters = new Uint8Array(view.links.links.length);
-  for (const c of view.clusters) for (const li of c.links) inClusters[li] = 1;
-  let stray = 0;
-  view.links.links.forEach((l, i) => { if (!inClusters[i] && isPublished(l)) stray++; });
-  const bar = progress(opts.validate === false ? 'writing release' : 'writing + SHACL', view.clusters.length + stray + (opts.extraUnits?.length ?? 0) + 2, 'units');
+export async function writeDumps(dir: string, model: Model, units: AsyncIterable<Unit>, size: number, label: string): Promise<DumpsWritten> {
+  const writer = new ReleaseWriter(dir, model.project.release.partnerDumps === false ? null : model.project.partners.map((p) => p.key));
+  const bar = progress(label, size, 'units');
   let done = 0;
-  /** Validation chunks are only built when SHACL runs. */
-  const validating = opts.validate !== false;
-  async function* chunks(): AsyncGenerator<Quad[] | ValidationChunk> {
-    for (const unit of releaseUnits(view, namer, counts)) {
-      bar.update(++done);
-      if (unit.kind === 'provenance' && validating) typeIndex = typeIndexOf(unit);
-      await writer.add(unit);
-      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
-    }
-    for (const unit of opts.extraUnits ?? []) {
-      bar.update(++done);
-      await writer.add(unit);
-      yield validating ? chunkOf(unit, typeIndex) : unit.quads;
-    }
-    const ds = datasetUnit(view.model, namer, counts, opts.previousVersion);
-    datasetQuads = ds.quads;
-    await writer.add(ds);
-    yield ds.quads;
-  }
-  let validation: ValidationOutcome;
+  let datasetQuads: Quad[] = [];
   let hashes: Map<string, string>;
   try {
-    if (opts.validate === false) {
-      for await (const _ of chunks()); // eslint-disable-line @typescript-eslint/no-unused-vars
-      validation = outcomeOf([]);
-    } else validation = await validateChunks(chunks(), opts.shapes, { workers: opts.workers, batchQuads: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
+    for await (const unit of units) {
+      bar.update(++done);
+      if (unit.kind === 'dataset') datasetQuads = unit.quads;
+      await writer.add(unit);
+    }
     hashes = await writer.close();
   } catch (e) {
     await writer.abort();
@@ -90,13 +52,7 @@ export async function publishRdf(dir: string, view: ReleaseView, opts: PublishOp
     bar.stop();
   }
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
-  if (opts.validate !== false) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
-  const claims: Record<string, number> = {};
-  for (const [key, n] of counts) {
-    const p = key.split('|')[2];
-    claims[p] = (claims[p] ?? 0) + n;
-  }
-  return { triples: writer.triples, claims, validation, hashes };
+  return { triples: writer.triples, hashes };
 }
 
 async function sha256(file: string): Promise<string> {

@@ -1,12 +1,10 @@
-// Units of quads → the release's RDF files (whole and per partner, Turtle / N-Quads / JSON-LD) and SHACL chunks.
+// Units of quads → the release's RDF files (whole and per partner, Turtle / N-Quads / JSON-LD).
 import { mkdirSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
 import path from 'node:path';
-import type { Quad } from '@rdfjs/types';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
 import { DUMP_FORMATS, FORMATS, prefixMap, type FormatInfo, type WriterKind } from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
-import type { ValidationChunk } from '../validate/chunked.js';
 import { JsonLdFile, unitNodesSync } from './jsonld.js';
 import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
 
@@ -147,34 +145,4 @@ export class ReleaseWriter {
     this.worker.removeAllListeners('exit');
     await this.worker.terminate();
   }
-}
-
-/**
- * A unit as a validation chunk: its own quads, and as context the rdf:type quads of the shared nodes it points to
- * (runs, agents, reviews, curators) plus the unit's own context, so class-based constraints resolve inside the chunk
- * without loading the whole release. Context-only nodes are not themselves judged here (see validateChunks).
- */
-export function chunkOf(unit: Unit, typeIndex: Map<string, Quad[]>): ValidationChunk {
-  const context: Quad[] = [];
-  const seen = new Set<string>();
-  for (const q of unit.quads) {
-    if (q.object.termType !== 'NamedNode' || seen.has(q.object.value)) continue;
-    seen.add(q.object.value);
-    const stubs = typeIndex.get(q.object.value);
-    if (stubs) context.push(...stubs);
-  }
-  if (unit.context?.length) context.push(...unit.context);
-  return { quads: unit.quads, context };
-}
-
-/** Subject IRI → its rdf:type quads, over the shared provenance unit. */
-export function typeIndexOf(unit: Unit): Map<string, Quad[]> {
-  const index = new Map<string, Quad[]>();
-  for (const q of unit.quads)
-    if (q.predicate.value === 'http://www.w3.org/1999/02/22-rdf-syntax-ns#type') {
-      const list = index.get(q.subject.value) ?? [];
-      list.push(q);
-      index.set(q.subject.value, list);
-    }
-  return index;
 }

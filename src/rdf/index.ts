@@ -18,8 +18,6 @@ export interface Unit {
   quads: Quad[];
   /** Partner numbers whose records the unit touches; 'all' for shared provenance and the dataset description. */
   partners: Set<number> | 'all';
-  /** Quads validated with the unit but not written (e.g. types of nodes described in other units). */
-  context?: Quad[];
 }
 
 /** Claim-triple counts per (subject partner, object partner, predicate), for the VoID linksets. */
@@ -113,8 +111,8 @@ export function claimEnds(l: Link): [number, number] {
 export const isPublished = (l: Link) => l.status !== 'candidate';
 
 /** Generates the release's units in a fixed order: shared provenance, clusters by ID, then links outside clusters. */
-export function* releaseUnits(view: ReleaseView, namer: Namer, counts: LinksetCounts): Generator<Unit> {
-  const { model, links } = view;
+export function* releaseUnits(view: ReleaseView, counts: LinksetCounts): Generator<Unit> {
+  const { model, links, namer } = view;
   const described = new Uint8Array(model.works.length);
   const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
 

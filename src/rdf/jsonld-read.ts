@@ -1,5 +1,6 @@
 // JSON-LD text → N-Quads text via jsonld.js, offline: the only adapter over the jsonld package for reading.
 import { UserError } from '../errors.js';
+import { parseJson } from '../io/json-file.js';
 
 /** Minimal view of the parts of jsonld.js used here (the package ships no types). */
 interface JsonLdApi {
@@ -11,29 +12,6 @@ function jsonld(): Promise<JsonLdApi> {
   const name = 'jsonld';
   api ??= import(name).then((m: { default?: JsonLdApi }) => (m.default ?? m) as JsonLdApi);
   return api;
-}
-
-/** 1-based line and column of a character offset. */
-function lineColumn(text: string, offset: number): { line: number; column: number } {
-  let line = 1;
-  let start = 0;
-  for (let i = text.indexOf('\n'); i !== -1 && i < offset; i = text.indexOf('\n', i + 1)) {
-    line++;
-    start = i + 1;
-  }
-  return { line, column: offset - start + 1 };
-}
-
-/** Parses JSON, turning a syntax error into a UserError that names the line (RFC 8259 §2). */
-export function parseJson(text: string, file: string): unknown {
-  try {
-    return JSON.parse(text);
-  } catch (err) {
-    const message = (err as Error).message;
-    const pos = /position (\d+)/.exec(message);
-    const where = pos ? lineColumn(text, Number(pos[1])) : { line: 0, column: undefined };
-    throw new UserError({ file, line: where.line, column: where.column, field: '', message: `invalid JSON: ${message}`, hint: 'fix the JSON syntax' });
-  }
 }
 
 /**

@@ -14,32 +14,21 @@ export interface Invalidation {
  * Tombstones (standards digest §9): each retired `{base}work/{id}` stays a cx:Cluster with `owl:deprecated true`
  * (OWL 2 Structural Spec §5.5), `dcterms:isReplacedBy` each successor (DCMI Terms; never owl:sameAs, which would
  * re-merge split parts) and `prov:wasInvalidatedBy` / `prov:invalidatedAtTime` (PROV-O §3.2) when known.
- * Successors' types go into the unit's validation context only, so SHACL sh:class resolves without repeating them.
  */
 export function retiredUnit(retired: RetiredView[], namer: Namer, invalidations: Map<string, Invalidation>): Unit {
   const quads: Quad[] = [];
-  const context: Quad[] = [];
   const g = inGraph(namer.graph('provenance'), quads);
-  const stub = inGraph(namer.graph('provenance'), context);
   const a = term('rdf', 'type');
-  const retiredIds = new Set(retired.map((r) => r.id));
-  const stubbed = new Set<string>();
   for (const r of retired) {
     const C = nn(namer.iri('cluster', { cluster: r.id }));
     g(C, a, term('cx', 'Cluster'));
     g(C, term('owl', 'deprecated'), bool(true));
-    for (const s of r.replacedBy) {
-      g(C, term('dcterms', 'isReplacedBy'), nn(namer.iri('cluster', { cluster: s })));
-      if (!retiredIds.has(s) && !stubbed.has(s)) {
-        stubbed.add(s);
-        stub(nn(namer.iri('cluster', { cluster: s })), a, term('cx', 'Cluster'));
-      }
-    }
+    for (const s of r.replacedBy) g(C, term('dcterms', 'isReplacedBy'), nn(namer.iri('cluster', { cluster: s })));
     const inv = invalidations.get(r.id);
     if (inv) {
       g(C, term('prov', 'wasInvalidatedBy'), nn(inv.activity));
       if (inv.time) g(C, term('prov', 'invalidatedAtTime'), typed(inv.time, 'dateTime'));
     }
   }
-  return { kind: 'cluster', id: 'retired', quads, partners: 'all', context };
+  return { kind: 'cluster', id: 'retired', quads, partners: 'all' };
 }

@@ -1,8 +1,8 @@
 // Quads → Turtle / N-Triples / N-Quads files, turned into text in batches (src/rdf/text.ts) and written atomically.
 import { createWriteStream } from 'node:fs';
-import { rename, unlink } from 'node:fs/promises';
 import { once } from 'node:events';
 import type { Quad } from '@rdfjs/types';
+import { TempFile } from '../io/temp-file.js';
 import { FORMATS, prefixMap, type RdfFormat } from './formats.js';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from './text.js';
 
@@ -31,8 +31,8 @@ const BATCH = 4096;
  */
 export function openQuadWriter(path: string, format: RdfFormat, prefixes: Record<string, string> = prefixMap()): QuadWriter {
   const info = FORMATS[format];
-  const tmp = `${path}.${process.pid}.${Math.random().toString(36).slice(2)}.tmp`;
-  const out = createWriteStream(tmp);
+  const file = new TempFile(path);
+  const out = createWriteStream(file.temp);
   let failure: Error | null = null;
   out.on('error', (err) => { failure = err; });
   const turtle = info.prefixed ? new TurtleEncoder(prefixes) : null;
@@ -64,14 +64,14 @@ export function openQuadWriter(path: string, format: RdfFormat, prefixes: Record
     async end() {
       await finish();
       if (failure) {
-        await unlink(tmp).catch(() => undefined);
+        file.discard();
         throw failure;
       }
-      await rename(tmp, path);
+      file.commit();
     },
     async abort() {
       await finish().catch(() => undefined);
-      await unlink(tmp).catch(() => undefined);
+      file.discard();
     },
   };
 }

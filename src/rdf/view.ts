@@ -1,7 +1,10 @@
-// What the RDF stage reads: the model, the links, clusters with diagnostics, retired cluster IDs, the vocab map.
+// Model, links, clustering and analysis → the release view: what is published, with the one Namer that names it.
 import type { Model } from '../model.js';
 import type { LinkSet } from '../link/types.js';
+import type { Clustering } from '../cluster/types.js';
+import type { Analysis } from '../analyse/types.js';
 import type { VocabMap } from './vocab-map.js';
+import { Namer } from './index.js';
 
 export interface ClusterView {
   id: string;
@@ -21,10 +24,31 @@ export interface RetiredView {
   replacedBy: string[];
 }
 
+/** What every writer of the release reads (RDF units, history, pages): one view, named by one Namer. */
 export interface ReleaseView {
   model: Model;
   links: LinkSet;
   clusters: ClusterView[];
   retired: RetiredView[];
   vocab: VocabMap;
+  /** IRIs of everything the release names, from the project's templates and the vocab map's patterns. */
+  namer: Namer;
+}
+
+/** The release view: clusters with their bridges, implied pairs and date conflicts; retired cluster IDs; the Namer. */
+export function releaseView(model: Model, links: LinkSet, clustering: Clustering, analysis: Analysis | undefined, vocab: VocabMap): ReleaseView {
+  return { model, links, clusters: clusterViews(clustering, analysis), retired: clustering.retired, vocab, namer: new Namer(model, vocab.iris) };
+}
+
+/** Clustering (columns) → what the RDF stage reads per cluster. */
+function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[] {
+  const views: ClusterView[] = clustering.clusters.map((c) => ({
+    id: c.id, members: Array.from(c.members), links: Array.from(c.links), bridges: [], implied: [], conflicts: [], oversized: c.oversized,
+  }));
+  const bridgeSet = new Set(clustering.bridges);
+  for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
+  const im = clustering.implied;
+  for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
+  for (const c of analysis?.conflicts ?? []) views[c.cluster].conflicts.push({ a: c.a, b: c.b, severity: c.severity });
+  return views;
 }

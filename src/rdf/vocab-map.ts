@@ -1,9 +1,9 @@
 // vocab-map/*.json → the table from claim kind + status to predicate IRI, and the project's IRI patterns.
-import { readFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
 import { UserError } from '../errors.js';
+import { readJsonFile } from '../io/json-file.js';
 import type { LinkKind, LinkStatus } from '../link/types.js';
 
 /** The vocab-map folder shipped with the package (repo root / vocab-map). */
@@ -34,12 +34,7 @@ export interface VocabMap {
 function readMapFile(file: string, seen: Set<string>): { prefixes: Record<string, string>; claims: z.infer<typeof Row>[]; iris: Record<string, string> } {
   if (seen.has(file)) throw new UserError({ file, line: 0, field: 'extends', message: 'vocab map extends itself', hint: 'remove the cycle' });
   seen.add(file);
-  let raw: unknown;
-  try {
-    raw = JSON.parse(readFileSync(file, 'utf8'));
-  } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `cannot read vocab map: ${(e as Error).message}`, hint: 'check the "vocabMap" path in concordance.json' });
-  }
+  const { value: raw } = readJsonFile(file, 'vocab map', 'check the "vocabMap" path in concordance.json');
   const parsed = FileSchema.safeParse(raw);
   if (!parsed.success) {
     const i = parsed.error.issues[0];

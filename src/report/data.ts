@@ -4,6 +4,7 @@ import type { LinkKind, LinkSet, LinkStatus } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import { REVIEW_REASONS, formatInterval, type Analysis } from '../analyse/index.js';
 import { num, type WorkContext } from './context.js';
+import { withheldData } from './withheld.js';
 
 /** Longest list a report shows; the CSV files hold everything. */
 export const LIST_LIMIT = 100;
@@ -26,8 +27,9 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
   const oversized = clustering.clusters.filter((c) => c.oversized);
   let throughThird = 0;
   for (let i = 0; i < clustering.implied.count; i++) throughThird += clustering.implied.throughThird[i];
-  const reasons = Object.fromEntries(REVIEW_REASONS.map((r) => [r, 0]));
-  for (let i = 0; i < analysis.review.count; i++) reasons[REVIEW_REASONS[analysis.review.reason[i]]]++;
+  const reasons = Object.fromEntries(REVIEW_REASONS.map((r, k) => [r, analysis.review.byReason[k]]));
+  const listed = Object.fromEntries(REVIEW_REASONS.map((r) => [r, 0]));
+  for (let i = 0; i < analysis.review.count; i++) listed[REVIEW_REASONS[analysis.review.reason[i]]]++;
   const key = (p: number) => partners[p].key;
   // bridges joining two would-be clusters first (larger smaller side first), then by link order
   const bridgeOrder = Array.from(clustering.bridges.keys()).sort((x, y) => clustering.bridgeMinSide[y] - clustering.bridgeMinSide[x] || x - y);
@@ -77,6 +79,7 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
       })),
       missedTotal: ag.missed.length,
     },
-    reviewQueue: { total: analysis.review.count, byReason: reasons },
+    withheld: withheldData(model, linkSet, clustering, LIST_LIMIT),
+    reviewQueue: { total: analysis.review.total, listed: analysis.review.count, limit: analysis.review.limit, byReason: reasons, listedByReason: listed },
   };
 }

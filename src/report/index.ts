@@ -1,6 +1,6 @@
 // Links, clusters and analysis → the release's report files: report.md, report.json, conflicts.csv, review-queue.csv, clusters.csv.
 import path from 'node:path';
-import { renameSync, writeFileSync } from 'node:fs';
+import { writeFileAtomically } from '../io/temp-file.js';
 import type { Model } from '../model.js';
 import type { LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
@@ -22,8 +22,7 @@ export { reportData, LIST_LIMIT, type ReportData } from './data.js';
 export const REPORT_FILES = ['report.md', 'report.json', 'conflicts.csv', 'review-queue.csv', RELEASE_FILES.clusters] as const;
 
 function writeText(file: string, text: string): string {
-  writeFileSync(`${file}.tmp`, text, 'utf8');
-  renameSync(`${file}.tmp`, file);
+  writeFileAtomically(file, text);
   return file;
 }
 

@@ -1,7 +1,8 @@
 // A catalogue header + sampled values → proposed column mapping (work, image, title, date, width, height), with reasons.
 import type { ColumnMap } from '../model.js';
 
-export type Role = keyof ColumnMap;
+/** Columns proposed from a header (an image-role column needs a map of the partner's words, so it is not guessed). */
+export type Role = Exclude<keyof ColumnMap, 'role'>;
 export const ROLES: Role[] = ['work', 'image', 'title', 'date', 'width', 'height'];
 
 /**

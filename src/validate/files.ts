@@ -1,6 +1,6 @@
 // Paths of RDF data files and a shapes folder → quads ready for validation, with clear errors for missing input.
-import { readdir } from 'node:fs/promises';
-import { join } from 'node:path';
+import { readdir, stat } from 'node:fs/promises';
+import { extname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import N3 from 'n3';
 import { UserError } from '../errors.js';
@@ -41,4 +41,25 @@ export async function loadDataFiles(files: string[]): Promise<N3.Store> {
   // SHACL validates a data graph (§1.5); named graphs of N-Quads/TriG/JSON-LD input are merged into it.
   for (const f of files) await streamRdfFile(f, (q) => store.addQuad(q.graph.termType === 'DefaultGraph' ? q : quad(q.subject, q.predicate, q.object, g)));
   return store;
+}
+
+/** Largest JSON-LD document read for validation: it is read and converted whole (JSON-LD 1.1 API §4), roughly 1.5 KB
+ *  of memory per triple, so this keeps one document under ≈ 1 GiB (measured on our releases' JSON-LD). */
+export const JSONLD_LIMIT_BYTES = 64 * 1024 * 1024;
+
+/**
+ * Streams the triples of data files to `onQuad` (named graphs merged, SHACL §1.5). Turtle-family files are parsed as
+ * they are read; a JSON-LD document above {@link JSONLD_LIMIT_BYTES} is refused before it is read, since it cannot be
+ * streamed.
+ */
+export async function streamDataFiles(files: string[], onQuad: (q: N3.Quad) => void): Promise<void> {
+  for (const f of files) {
+    if (extname(f).toLowerCase() === '.jsonld') {
+      const size = await stat(f).then((s) => s.size, () => 0);
+      if (size > JSONLD_LIMIT_BYTES)
+        throw new UserError({ file: f, line: 0, field: '', message: `a JSON-LD document is read whole, and this one is ${(size / 2 ** 20).toFixed(0)} MiB, above the ${JSONLD_LIMIT_BYTES / 2 ** 20} MiB that validate reads in bounded memory`,
+          hint: 'validate the release\'s N-Quads or Turtle instead (concordance.nq), or convert the document to N-Quads first' });
+    }
+    await streamRdfFile(f, onQuad);
+  }
 }

@@ -62,15 +62,16 @@ function rowsOf(report: N3.Store, reportNode: N3.Term): ResultRow[] {
 export interface CompiledShapes {
   /** Validates one data graph and returns its result rows (unsorted). */
   rows(data: Iterable<Quad>): Promise<ResultRow[]>;
-  /** The same for data as flat [s, p, o, g, …] n3 term ids (the worker wire format). */
-  rowsOfIds(ids: string[]): Promise<ResultRow[]>;
+  /** The same for data as flat [s, p, o, g, …] n3 term ids (the worker wire format); with `owns`, only results about
+   *  focus nodes it accepts (the built-in engine validates only those; rdf-validate-shacl's rows are filtered). */
+  rowsOfIds(ids: string[], owns?: (node: string) => boolean): Promise<ResultRow[]>;
 }
 
 /** Compiles a shapes graph (SHACL §2.1) for repeated validation; engine failures become a UserError. */
 export function compileShapes(shapes: Iterable<Quad>, opts: ValidateOptions = {}): CompiledShapes {
   if ((opts.engine ?? 'builtin') === 'builtin') {
     const core = compileCore(shapes, opts);
-    return { rows: (data) => core.rows(data), rowsOfIds: async (ids) => core.rowsOfIds(ids) };
+    return { rows: (data) => core.rows(data), rowsOfIds: async (ids, owns) => core.rowsOfIds(ids, owns) };
   }
   return compileReference(shapes, opts);
 }
@@ -94,7 +95,7 @@ function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): Compil
       return fail(err);
     }
   };
-  return { rows, rowsOfIds: (ids) => rows(decodeQuads(ids)) };
+  return { rows, rowsOfIds: async (ids, owns) => (await rows(decodeQuads(ids))).filter((r) => !owns || owns(r.focusNode)) };
 }
 
 /**

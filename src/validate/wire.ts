@@ -2,6 +2,7 @@
 import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
 import type { Problem } from '../errors.js';
+import type { BatchTask } from './batch.js';
 import type { ResultRow } from './report.js';
 import type { ValidateOptions } from './shacl.js';
 
@@ -11,15 +12,13 @@ export interface WorkerInit {
   options: ValidateOptions;
 }
 
-/** One batch of data to validate: its term ids as one JSON array text (one string clones far faster than many). */
-export interface WorkerTask {
-  id: number;
-  quads: string;
-}
+/** One batch of data to validate: its term ids as one JSON array text (one string clones far faster than many), or
+ *  spilled bucket files the worker reads itself. */
+export type WorkerTask = { id: number; quads: string } | { id: number; batch: BatchTask };
 
-/** A worker's answer: rows, a user error's problems, or a bug's stack. */
+/** A worker's answer: rows (and, for a spilled batch, its distinct own triples), a user error's problems, or a bug's stack. */
 export type WorkerReply =
-  | { id: number; rows: ResultRow[] }
+  | { id: number; rows: ResultRow[]; ownTriples?: number }
   | { id: number; problems: Problem[] }
   | { id: number; error: string };
 

@@ -1,5 +1,5 @@
 // Test helper: a tiny Model built in code (partners, works, image matches, decisions, gold) without any files.
-import type { CenturyConvention, Model, Policy, Verdict } from '../../src/model.js';
+import { IMAGE_ROLES, type CenturyConvention, type ImageRole, type Model, type Policy, type Verdict } from '../../src/model.js';
 
 export interface TinyWork {
   ref: string;
@@ -17,9 +17,11 @@ export interface TinySpec {
   decisions?: [string, string, Verdict, string?, string?][];
   gold?: [string, string][];
   policy?: Partial<Policy>;
+  /** Image roles by image ref (`ref` or `ref#k`), as a catalogue's role column would give them. */
+  roles?: Record<string, ImageRole>;
 }
 
-export const DEFAULT_POLICY: Policy = { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 };
+export const DEFAULT_POLICY: Policy = { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3, indiscriminateAbove: null, reviewLimit: 500 };
 
 const split = (ref: string): [string, string] => {
   const i = ref.indexOf(':');
@@ -63,6 +65,8 @@ export function tinyModel(spec: TinySpec): Model {
     return n;
   };
   const m = spec.matches ?? [];
+  const role = new Uint8Array(imgId.length);
+  for (const [ref, r] of Object.entries(spec.roles ?? {})) role[imageNo(ref)] = 1 + IMAGE_ROLES.indexOf(r);
   return {
     projectFile: 'concordance.json',
     project: {
@@ -86,7 +90,7 @@ export function tinyModel(spec: TinySpec): Model {
     },
     works,
     workIndex,
-    images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2) },
+    images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2), role },
     matches: {
       count: m.length,
       a: Int32Array.from(m, (r) => imageNo(r[0])),

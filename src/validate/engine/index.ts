@@ -86,21 +86,23 @@ class Run implements CheckContext {
 export interface CoreEngine {
   /** Result rows (unsorted) for data given as RDF/JS quads; all graphs are merged. */
   rows(data: Iterable<Quad>): Promise<ResultRow[]>;
-  /** Result rows for data given as flat [s, p, o, g, …] n3 term ids (the worker wire format). */
-  rowsOfIds(ids: readonly string[]): ResultRow[];
+  /** Result rows for data given as flat [s, p, o, g, …] n3 term ids (the worker wire format); with `owns`, only
+   *  focus nodes it accepts are validated (a batch judges the nodes it owns, see bounded.ts). */
+  rowsOfIds(ids: readonly string[], owns?: (node: TermId) => boolean): ResultRow[];
   /** Result rows for an index already built. */
-  rowsOf(data: DataGraph): ResultRow[];
+  rowsOf(data: DataGraph, owns?: (node: TermId) => boolean): ResultRow[];
 }
 
 /** Compiles `shapes` for the built-in engine; unsupported (non-core) parameters throw a UserError naming the shape. */
 export function compileCore(shapes: Iterable<Quad>, opts: { shapesLabel?: string; maxErrors?: number } = {}): CoreEngine {
   const { targeted } = compileShapesGraph(shapes, opts.shapesLabel ?? 'shapes');
-  const rowsOf = (data: DataGraph): ResultRow[] => {
+  const rowsOf = (data: DataGraph, owns?: (node: TermId) => boolean): ResultRow[] => {
     const sink: Sink = { rows: [], failed: false, limit: opts.maxErrors ?? Infinity };
     const run = new Run(data, sink);
     for (const shape of targeted) {
       if (shape.deactivated) continue;
       for (const focus of focusNodes(shape, data)) {
+        if (owns && !owns(focus)) continue;
         run.validate(shape, focus);
         if (sink.rows!.length >= sink.limit) return sink.rows!;
       }
@@ -109,7 +111,7 @@ export function compileCore(shapes: Iterable<Quad>, opts: { shapesLabel?: string
   };
   return {
     rows: async (data) => rowsOf(DataGraph.fromQuads(data)),
-    rowsOfIds: (ids) => rowsOf(DataGraph.fromIds(ids)),
+    rowsOfIds: (ids, owns) => rowsOf(DataGraph.fromIds(ids), owns),
     rowsOf,
   };
 }

@@ -1,0 +1,13 @@
+import N3 from 'n3';
+import { BoundedValidation } from '/work/wt/validate/dist/src/validate/bounded.js';
+import { validate } from '/work/wt/validate/dist/src/validate/shacl.js';
+const { namedNode, quad } = N3.DataFactory;
+const shapes = new N3.Parser().parse(`@prefix sh: <http://www.w3.org/ns/shacl#> . <urn:x:S0> a sh:NodeShape ; sh:targetClass <urn:x:C2> ; sh:minCount 0 .`);
+const data = [quad(namedNode('urn:x:n0'), namedNode('http://www.w3.org/1999/02/22-rdf-syntax-ns#type'), namedNode('urn:x:C2'))];
+const whole = await validate(data, shapes, { engine: 'rdf-validate-shacl' });
+const run = new BoundedValidation(shapes, { engine: 'rdf-validate-shacl', workers: 0, inMemoryUpTo: 0, batchTriples: 1, buckets: 1 });
+for (const q of data) run.add(q);
+const b = await run.finish();
+console.log(JSON.stringify(whole.results), JSON.stringify(b.results));
+const w2 = await validate(data, shapes, { engine: 'builtin' });
+console.log(JSON.stringify(w2.results));

@@ -1,0 +1,178 @@
+// Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
+// Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
+import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync } from 'node:fs';
+import path from 'node:path';
+import { writeFolderAtomically } from '../io/atomic.js';
+import { RELEASE_FILES } from '../rdf/formats.js';
+import { streamNQuads, type Statement } from './nquads.js';
+import { Grouper, type ClusterUnit, type Entry, type LinkEntry } from './group.js';
+import { readSiteInfo } from './info.js';
+import { SiteContext, V } from './context.js';
+import { docOf, routeOf, relPath, shardWidth, ROUTES, type DocKind, type ShardWidths } from './routes.js';
+import { jsonldDocument, jsonldNodes } from './jsonld.js';
+import { page, html, Safe } from './html.js';
+import { Spool } from './spool.js';
+import { clusterPage } from './pages/cluster.js';
+import { linkSection, matchSection, genericSection } from './pages/entries.js';
+import { genericPage } from './pages/generic.js';
+import { datasetSummary } from './pages/dataset.js';
+import { SearchIndex } from './search.js';
+import { writeStaticPages } from './pages/static.js';
+import { serverRules } from './rules.js';
+
+export interface SiteSummary {
+  out: string;
+  base: string;
+  version: string;
+  documents: number;
+  files: number;
+  bytes: number;
+  widths: ShardWidths;
+}
+
+/** Shard widths from the size of concordance.nq (bytes per link, match and review measured on generated releases). */
+export function widthsFor(nqBytes: number): ShardWidths {
+  return { link: shardWidth(nqBytes / 16_000), match: shardWidth(nqBytes / 2_500), review: shardWidth(nqBytes / 200_000) };
+}
+
+/** Writes one document in its three forms: `.ttl` (N-Triples lines, which are Turtle too), `.jsonld`, `.html`. */
+class DocWriter {
+  documents = 0;
+  constructor(private readonly dir: string) {}
+  write(doc: string, nt: string, jsonNodes: string[], htmlText: string): void {
+    const f = path.join(this.dir, ...doc.split('/'));
+    mkdirSync(path.dirname(f), { recursive: true });
+    writeFileSync(`${f}.ttl`, nt);
+    writeFileSync(`${f}.jsonld`, jsonldDocument(jsonNodes));
+    writeFileSync(`${f}.html`, htmlText);
+    this.documents++;
+  }
+}
+
+const ntOf = (sts: readonly Statement[]) => sts.map((s) => s.nt).join('');
+
+/**
+ * `concordat site <release> --out <folder>`: reads concordance.nq once in file order (a cluster at a time; links,
+ * matches and reviews spooled to disk by hash prefix and written as shard documents afterwards), so memory holds one
+ * cluster, the shared provenance and one spool file at a time. Written to a temp folder renamed at the end.
+ */
+export async function writeSite(release: string, out: string): Promise<SiteSummary> {
+  const info = await readSiteInfo(release);
+  const nq = path.join(release, RELEASE_FILES.nquads);
+  return writeFolderAtomically(out, async (dir) => {
+    const ctx = new SiteContext(info);
+    ctx.widths = widthsFor(statSync(nq).size);
+    const spoolDir = path.join(dir, '.spool');
+    const spool = new Spool(spoolDir);
+    const docs = new DocWriter(dir);
+    const search = new SearchIndex(spool, ctx);
+    const own = new Map<string, { kind: DocKind; statements: Statement[] }>();
+    const graphs = new Set<string>();
+    const shardDoc = (kind: DocKind, hash: string) => docOf({ kind, key: hash, path: '' }, ctx.widths);
+
+    const spoolLink = (l: LinkEntry, cluster: string | null) => {
+      const doc = shardDoc('link', l.hash);
+      spool.add(`link-${l.hash.slice(0, 2)}`, [l.hash, ntOf(l.statements), jsonldNodes(l.statements), linkSection(ctx, l, doc, cluster)]);
+      for (const m of l.matches) spoolEntry(m, l.iri);
+    };
+    const spoolEntry = (e: Entry, link: string | null) => {
+      const doc = shardDoc(e.kind, e.hash);
+      const section = e.kind === 'match' ? matchSection(ctx, e, doc, link) : genericSection(ctx, e, doc);
+      spool.add(`${e.kind}-${e.hash.slice(0, 2)}`, [e.hash, ntOf(e.statements), jsonldNodes(e.statements), section]);
+    };
+    const grouper = new Grouper(info.base, {
+      cluster(u: ClusterUnit) {
+        docs.write(u.doc, ntOf(u.statements), [jsonldNodes(u.statements)], clusterPage(ctx, u));
+        for (const l of u.links) spoolLink(l, u.iri);
+        search.addWorks(u.statements, u.doc, '');
+      },
+      strayLink(l: LinkEntry) {
+        spoolLink(l, null);
+        search.addWorks(l.statements, shardDoc('link', l.hash), `link/${l.hash}`);
+      },
+      entry(e: Entry) {
+        if (e.kind === 'review') for (const st of e.statements) ctx.addProv(st);
+        spoolEntry(e, null);
+      },
+      own(doc: string, kind: DocKind, st: Statement) {
+        let d = own.get(doc);
+        if (!d) own.set(doc, (d = { kind, statements: [] }));
+        d.statements.push(st);
+        if (kind === 'run' || kind === 'agent' || kind === 'curator' || kind === 'release') ctx.addProv(st);
+      },
+    });
+    await streamNQuads(nq, (st) => {
+      if (st.g !== undefined) graphs.add(st.g);
+      grouper.push(st);
+    });
+    const left = grouper.end();
+    if (left.length) throw new Error(`site: ${left.length} statements about no minted IRI at the end of ${nq}`);
+    spool.close();
+
+    // Documents of their own, and a document for every named graph.
+    for (const g of graphs) {
+      const rel = relPath(g, info.base);
+      const route = rel === null ? null : routeOf(rel);
+      if (route?.kind === 'graph' && !own.has(route.key)) own.set(route.key, { kind: 'graph', statements: [] });
+    }
+    for (const [doc, d] of [...own].sort((a, b) => (a[0] < b[0] ? -1 : 1))) {
+      const extra = d.kind === 'dataset' && info.dataset === info.base + doc.split('/').map(encodeURIComponent).join('/') ? datasetSummary(ctx, doc) : undefined;
+      docs.write(doc, ntOf(d.statements), [jsonldNodes(d.statements)], genericPage(ctx, doc, d.kind, d.statements, extra));
+    }
+
+    // Shard documents: every spool bucket holds whole shards when the width is 2 or more; width 1 joins 16 buckets.
+    for (const rule of ROUTES.filter((r) => r.shardFolder)) {
+      const kind = rule.kind;
+      const k = ctx.widths[kind] ?? 1;
+      const hex = [...'0123456789abcdef'];
+      const groups = k === 1 ? hex.map((a) => hex.map((b) => a + b)) : hex.flatMap((a) => hex.map((b) => [a + b]));
+      for (const buckets of groups) {
+        const records = buckets.flatMap((b) => spool.read(`${kind}-${b}`)) as [string, string, string, string][];
+        records.sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
+        const shards = new Map<string, typeof records>();
+        for (const r of records) { const key = r[0].slice(0, k); const s = shards.get(key); if (s) s.push(r); else shards.set(key, [r]); }
+        for (const [key, rs] of shards) {
+          const doc = `${rule.shardFolder}/${key}`;
+          const label = kind === 'link' ? 'Claims' : kind === 'match' ? 'Image matches' : 'Curator reviews';
+          const main = html`<p>${rs.length} ${label.toLowerCase()} whose identifier begins with <code>${key}</code>.</p>
+<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
+${rs.map((r) => new Safe(r[3]))}`;
+          const text = page({ doc, title: `${label} ${key}…`, siteTitle: info.title, alternates: true, main: html`${main}`, licence: info.licence });
+          docs.write(doc, rs.map((r) => r[1]).join(''), rs.map((r) => r[2]), text);
+        }
+      }
+    }
+    search.finish(dir);
+    writeStaticPages(ctx, dir, own);
+    const downloads = path.join(dir, 'releases', info.version);
+    for (const f of info.files) {
+      if (!f.file) continue;
+      const target = path.join(downloads, ...f.file.split('/'));
+      mkdirSync(path.dirname(target), { recursive: true });
+      try { linkSync(path.join(release, f.file), target); } catch { copyFileSync(path.join(release, f.file), target); }
+    }
+    writeFileSync(path.join(dir, 'site.json'), JSON.stringify({ base: info.base, version: info.version, dataset: info.dataset, widths: ctx.widths }, null, 2) + '\n');
+    for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths))) writeFileSync(path.join(dir, name), body);
+    rmSync(spoolDir, { recursive: true, force: true });
+    // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700
+    const mask = process.umask();
+    chmodSync(dir, 0o755 & ~mask);
+    const { files, bytes } = measure(dir);
+    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files, bytes, widths: ctx.widths };
+  });
+}
+
+/** Files and bytes under a folder (hard-linked downloads counted once each, as the file system stores them). */
+function measure(dir: string): { files: number; bytes: number } {
+  let files = 0, bytes = 0;
+  const walk = (d: string) => {
+    for (const e of readdirSync(d, { withFileTypes: true })) {
+      const p = path.join(d, e.name);
+      if (e.isDirectory()) walk(p);
+      else { files++; bytes += statSync(p).size; }
+    }
+  };
+  walk(dir);
+  return { files, bytes };
+}
+export { V };

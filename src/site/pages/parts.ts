@@ -1,0 +1,61 @@
+// Pieces several pages share: a work's name, a claim's relation and status, who asserted it and when, a match table.
+import { html, text, type Safe } from '../html.js';
+import { refOfWorkIri } from '../../history/names.js';
+import { V, curie, type Node, type SiteContext } from '../context.js';
+import { iri as nsIri } from '../../namespaces.js';
+
+const REVIEW = nsIri('cx', 'CuratorReview');
+
+export interface WorkView { iri: string; partner: string; partnerName: string; id: string; title?: string; date?: string; page?: string }
+
+/** A partner work from its statements: partner key and name, record ID (decoded after the partner's URI space), title, date, record page. */
+export function workView(ctx: SiteContext, iri: string, n: Node | undefined): WorkView {
+  const partner = n?.one(V.partner) ?? '';
+  const p = ctx.info.partners.get(partner);
+  const ref = refOfWorkIri(iri, partner, p?.uriSpace);
+  return { iri, partner, partnerName: p?.name ?? partner, id: ref.startsWith(`${partner}:`) ? ref.slice(partner.length + 1) : ref, title: n?.one(V.title), date: n?.one(V.dateAsCatalogued), page: n?.one(V.page) };
+}
+
+/** "Partner ID" with the title: how a record is named in claims. */
+export const workName = (w: WorkView) => html`<span class="work"><span class="archive">${w.partnerName}</span> <span class="recid">${text(w.id)}</span>${w.title ? html` <span class="title">“${text(w.title)}”</span>` : ''}</span>`;
+
+const STATUS_WORDS: Record<string, string> = { Confirmed: 'confirmed', Proposed: 'proposed', Rejected: 'rejected' };
+/** The status word of a cx:status IRI, shown with a class so its colour never carries the meaning alone. */
+export function status(x: string | undefined): Safe {
+  const w = x ? STATUS_WORDS[x.replace(/^.*#/, '')] ?? curie(x) : 'unknown';
+  return html`<span class="status status-${w}">${w}</span>`;
+}
+
+/** Who or what asserted a link and when: the curator review (curator, date) or the match runs (software, start). */
+export function assertion(ctx: SiteContext, link: Node, doc: string): Safe {
+  const parts: Safe[] = [];
+  for (const g of link.all(V.generatedBy)) {
+    const n = ctx.prov.get(g);
+    const review = n?.all(V.type).includes(REVIEW);
+    const curator = review ? n?.one(V.associatedWith) : undefined;
+    const when = n?.one(V.endedAt) ?? n?.one(V.date) ?? n?.one(V.startedAt);
+    const who = curator ? html`<a href="${ctx.href(curator, doc)}">${text(ctx.label(curator))}</a> (curator review <a href="${ctx.href(g, doc)}">${g.replace(/^.*\//, '')}</a>)` : html`<a href="${ctx.href(g, doc)}">${text(ctx.label(g))}</a>`;
+    parts.push(html`${who}${when ? html`, <time datetime="${when}">${when}</time>` : ''}`);
+  }
+  return parts.length ? html`${parts.map((p, i) => html`${i ? '; ' : ''}${p}`)}` : html`<span class="none">not recorded</span>`;
+}
+
+/** The image pairs behind a link: source and target photograph, score, overlap, run. */
+export function matchTable(ctx: SiteContext, matches: Node[], doc: string, caption: string): Safe {
+  if (!matches.length) return html`<p>No image-match evidence.</p>`;
+  return html`<table class="evidence">
+<caption>${caption}</caption>
+<thead><tr><th scope="col">Image match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th><th scope="col">Run</th></tr></thead>
+<tbody>
+${matches.map((m) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.replace(/^.*\//, '')}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td><td>${m.one(V.generatedBy) ? html`<a href="${ctx.href(m.one(V.generatedBy)!, doc)}">${text(ctx.label(m.one(V.generatedBy)!))}</a>` : ''}</td></tr>
+`)}</tbody>
+</table>`;
+}
+
+/** Every statement of a node as a definition list (the generic view of a resource). */
+export function statementList(ctx: SiteContext, n: Node, doc: string): Safe {
+  return html`<dl class="statements">
+${[...n.by].map(([p, sts]) => html`<dt><a href="${ctx.href(p, doc)}">${curie(p)}</a></dt>
+${sts.map((st) => html`<dd>${st.o.kind === 'iri' ? html`<a href="${ctx.href(st.o.value, doc)}">${text(st.o.value.startsWith(ctx.info.base) ? ctx.label(st.o.value) : curie(st.o.value))}</a>` : st.o.kind === 'bnode' ? html`<code>_:${st.o.value}</code>` : html`${text(st.o.value)}${st.o.datatype ? html` <span class="dt">${curie(st.o.datatype)}</span>` : ''}${st.o.language ? html` <span class="dt">@${st.o.language}</span>` : ''}`}</dd>
+`)}`)}</dl>`;
+}

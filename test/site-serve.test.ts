@@ -1,0 +1,160 @@
+// concordat serve on the demo's sites: every kind of minted IRI by Accept (303, media type, triples of the release),
+// headers, methods, path traversal, downloads; concordat site's own guarantees (every statement in one document,
+// byte-identical output, never overwriting).
+import { test, after } from 'node:test';
+import assert from 'node:assert/strict';
+import { readFileSync, readdirSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
+import path from 'node:path';
+import { request } from 'node:http';
+import { createHash } from 'node:crypto';
+import { spawnSync } from 'node:child_process';
+import { serveSite } from '../src/serve/index.js';
+import { writeSite } from '../src/site/index.js';
+import { negotiate } from '../src/site/negotiate.js';
+import { readSiteInfo } from '../src/site/info.js';
+import { demoSitesOnce, checkMintedIris, triplesBySubject } from './helpers/site.js';
+import { repoRoot, tempDir } from './helpers/fixture.js';
+
+const BASE = 'https://concordance.lanternfield.example.org/';
+const servers: { close: () => Promise<void> }[] = [];
+after(async () => { for (const s of servers) await s.close(); });
+async function start(site: string) {
+  const s = await serveSite(site, { port: 0, host: '127.0.0.1' });
+  servers.push(s);
+  return s.url.replace(/\/$/, '');
+}
+
+test('serve: every kind of minted IRI of release 2027.1, with every Accept, answers 303 to a document holding its triples', async () => {
+  const d = await demoSitesOnce();
+  const origin = await start(d.site2);
+  const n = await checkMintedIris(origin, d.release2, BASE);
+  assert.ok(n > 100, `only ${n} checks`);
+});
+
+test('serve: the same for release 2026.1 (a first release: no earlier states, no tombstones)', async () => {
+  const d = await demoSitesOnce();
+  const origin = await start(d.site1);
+  assert.ok((await checkMintedIris(origin, d.release1, BASE)) > 100);
+});
+
+test('site: every statement of concordance.nq is in exactly one document (.ttl files hold the triples once)', async () => {
+  const d = await demoSitesOnce();
+  const want = new Map<string, number>();
+  for (const line of readFileSync(path.join(d.release2, 'concordance.nq'), 'utf8').split('\n').filter(Boolean)) {
+    const t = line.replace(/ <[^>]*> \.$/, ' .');
+    want.set(t, (want.get(t) ?? 0) + 1);
+  }
+  const got = new Map<string, number>();
+  const walk = (dir: string) => {
+    for (const e of readdirSync(dir, { withFileTypes: true })) {
+      const p = path.join(dir, e.name);
+      if (e.isDirectory()) { if (!['releases', 'vocab'].includes(e.name)) walk(p); }
+      else if (e.name.endsWith('.ttl')) for (const l of readFileSync(p, 'utf8').split('\n').filter(Boolean)) got.set(l, (got.get(l) ?? 0) + 1);
+    }
+  };
+  walk(d.site2);
+  assert.deepEqual([...got].sort(), [...want].sort());
+});
+
+test('site: same release → byte-identical site; an existing folder is never overwritten', async () => {
+  const d = await demoSitesOnce();
+  const again = path.join(d.tmp, 'site-again');
+  await writeSite(d.release2, again);
+  const digest = (dir: string) => {
+    const h = createHash('sha256');
+    const walk = (x: string) => { for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) { const p = path.join(x, e.name); if (e.isDirectory()) walk(p); else h.update(path.relative(dir, p) + '\0').update(readFileSync(p)); } };
+    walk(dir);
+    return h.digest('hex');
+  };
+  assert.equal(digest(again), digest(d.site2));
+  await assert.rejects(writeSite(d.release2, again), /already exists/);
+});
+
+function raw(origin: string, p: string, method = 'GET', headers: Record<string, string> = {}): Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: string }> {
+  const u = new URL(origin);
+  return new Promise((resolve, reject) => {
+    const req = request({ host: u.hostname, port: u.port, path: p, method, headers }, (res) => {
+      let body = '';
+      res.setEncoding('utf8').on('data', (c) => (body += c)).on('end', () => resolve({ status: res.statusCode!, headers: res.headers, body }));
+    });
+    req.on('error', reject).end();
+  });
+}
+
+test('serve: nothing outside the site folder, whatever the path (dot segments, encoded, doubled slashes, NUL, symbolic links)', async () => {
+  const d = await demoSitesOnce();
+  const outside = path.join(d.tmp, 'secret.txt');
+  writeFileSync(outside, 'SECRET-OUTSIDE');
+  const site = path.join(d.tmp, 'site-traversal');
+  await writeSite(d.release1, site);
+  symlinkSync(outside, path.join(site, 'assets', 'link.css'));
+  symlinkSync(d.tmp, path.join(site, 'up'));
+  const origin = await start(site);
+  const rel = path.relative('/', outside);
+  for (const p of ['/../secret.txt', '/%2e%2e/secret.txt', '/%2E%2E%2Fsecret.txt', '/assets/..%2f..%2fsecret.txt', `/..%2f..%2f..%2f..%2f..%2f${rel}`, `//${rel}`, '/assets/link.css', '/up/secret.txt', '/index.html%00.txt', '/work/..%5c..%5csecret.txt', `/${'..%2f'.repeat(12)}etc/passwd`]) {
+    const r = await raw(origin, p);
+    assert.ok([400, 404].includes(r.status), `${p}: ${r.status}`);
+    assert.ok(!r.body.includes('SECRET-OUTSIDE') && !r.body.includes('root:'), p);
+  }
+});
+
+test('serve: headers — media types, Vary, caching, ETag/304, CSP and nosniff; HEAD; 405 for other methods; 406 when nothing offered is acceptable', async () => {
+  const d = await demoSitesOnce();
+  const origin = await start(d.site2);
+  const page = await raw(origin, '/work/c000001.html');
+  assert.equal(page.status, 200);
+  assert.equal(page.headers['content-type'], 'text/html; charset=utf-8');
+  assert.match(String(page.headers['content-security-policy']), /default-src 'none'.*script-src 'self'/);
+  assert.equal(page.headers['x-content-type-options'], 'nosniff');
+  assert.match(String(page.headers['cache-control']), /max-age=\d+/);
+  assert.equal((await raw(origin, '/work/c000001.html', 'GET', { 'if-none-match': String(page.headers.etag) })).status, 304);
+  const head = await raw(origin, '/work/c000001.html', 'HEAD');
+  assert.equal(head.status, 200);
+  assert.equal(head.body, '');
+  assert.equal((await raw(origin, '/work/c000001', 'POST')).status, 405);
+  assert.equal((await raw(origin, '/work/c000001', 'DELETE')).status, 405);
+  const no = await raw(origin, '/work/c000001', 'GET', { accept: 'image/png' });
+  assert.equal(no.status, 406);
+  assert.equal((await raw(origin, '/work/c999999', 'GET', { accept: 'text/turtle' })).status, 404);
+  assert.equal((await raw(origin, '/nothing-here')).status, 404);
+});
+
+test('serve: downloads named by the dataset are served under releases/<version>/ byte for byte', async () => {
+  const d = await demoSitesOnce();
+  const origin = await start(d.site2);
+  const files = (await readSiteInfo(d.release2)).files.map((f) => f.file!).filter(Boolean);
+  assert.ok(files.includes('concordance.nq'));
+  for (const f of files) {
+    const r = await fetch(`${origin}/releases/2027.1/${f}`);
+    assert.equal(r.status, 200, f);
+    assert.equal(Buffer.from(await r.arrayBuffer()).equals(readFileSync(path.join(d.release2, f))), true, f);
+  }
+  const t = await fetch(`${origin}/releases/2027.1/concordance.nq`);
+  assert.equal(t.headers.get('content-type'), 'application/n-quads');
+});
+
+test('negotiation: q-values and specificity decide (RFC 9110 §12.5.1); HTML for no header and */*', () => {
+  const table: [string | undefined, string | null][] = [
+    [undefined, '.html'], ['*/*', '.html'], ['text/turtle', '.ttl'], ['application/ld+json', '.jsonld'], ['application/json', '.jsonld'],
+    ['text/html;q=0.5, text/turtle', '.ttl'], ['text/turtle;q=0.2, application/ld+json;q=0.9', '.jsonld'], ['text/*', '.html'],
+    ['application/n-triples', '.nt'], ['text/turtle;q=0, */*;q=0.1', '.html'], ['image/png', null], ['application/xhtml+xml', '.html'],
+    ['text/html, application/xhtml+xml, application/xml;q=0.9, */*;q=0.8', '.html'],
+  ];
+  for (const [accept, ext] of table) assert.equal(negotiate(accept)?.ext ?? null, ext, String(accept));
+});
+
+test('vocabulary: vocab/cx.ttl is the shipped vocabulary and vocab/index.html lists every term', async () => {
+  const d = await demoSitesOnce();
+  assert.equal(readFileSync(path.join(d.site2, 'vocab', 'cx.ttl'), 'utf8'), readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8'));
+  const page = readFileSync(path.join(d.site2, 'vocab', 'index.html'), 'utf8');
+  for (const m of readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8').matchAll(/^cx:(\w+) a /gm)) assert.ok(page.includes(`id="${m[1]}"`), m[1]);
+});
+
+test('site CLI: prints where it wrote the site and how to serve it; --json; exit 2 for a folder that is not a release', () => {
+  const cli = path.join(repoRoot, 'dist', 'src', 'cli', 'main.js');
+  const tmp = tempDir('concordat-site-cli-');
+  const bad = spawnSync(process.execPath, [cli, 'site', tmp, '--out', path.join(tmp, 'x')], { encoding: 'utf8' });
+  assert.equal(bad.status, 2);
+  assert.match(bad.stderr, /not a release folder/);
+  void triplesBySubject; void statSync;
+});
