@@ -102,7 +102,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     say('rdf, validate, publish');
     releaseGcPolicy();
     // units are made, validated and written one at a time: each step below reads the one before it as a stream
-    const units = releaseStream(view, history.units, previous?.snapshot.dataset);
+    const units = releaseStream(view, history.units, previous?.snapshot.dataset, history.attached);
     const gate = shaclGate(shapes, { validate: validating, workers: opts.workers, batchTriples: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
     const dumps = await writeDumps(dir, model, gate.pass(units.units), units.size, validating ? 'writing + SHACL' : 'writing release');
     const validation = await gate.outcome();

@@ -24,6 +24,8 @@ export type { Changes, PreviousRelease, ReleaseSnapshot } from './types.js';
 export interface ReleaseHistory {
   /** Units to publish after the clusters: release activity, earlier link states, tombstones. */
   units: Unit[];
+  /** Quads about links still published (by link IRI), written in each link's own unit (releaseUnits `attached`). */
+  attached: Map<string, Quad[]>;
   /** Changes against the previous release; undefined for a first release. */
   changes?: Changes;
   /** Who made each added or changed claim, as statements the release also holds (for changes.ttl). */
@@ -38,6 +40,7 @@ export interface ReleaseHistory {
 export async function releaseHistory(view: ReleaseView, clustering: Clustering, previous?: PreviousRelease): Promise<ReleaseHistory> {
   const { namer } = view;
   const units: Unit[] = [];
+  let attached = new Map<string, Quad[]>();
   let changes: Changes | undefined;
   let madeBy: Quad[] | undefined;
   const invalidations = new Map<string, Invalidation>();
@@ -51,7 +54,9 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
     const changed = changedLinks(previous.snapshot, current);
     const evidence = await readLinkEvidence(previous.folder, new Set(changed.map(([old]) => old.iri)));
     const matchesNow = currentMatchIris(view, namer, new Set(changed.filter(([, now]) => now).map(([old]) => old.iri)));
-    units.push(...historyUnits(view.model, namer, previous, current, changed, evidence, matchesNow));
+    const made = historyUnits(view.model, namer, previous, current, changed, evidence, matchesNow);
+    units.push(...made.units);
+    attached = made.attached;
     for (const r of view.retired) {
       const carried = previous.clusterInvalidations.get(namer.iri('cluster', { cluster: r.id }));
       if (carried) invalidations.set(r.id, carried);
@@ -61,7 +66,7 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
     for (const r of changes.clusters.retired) invalidations.set(r.id, { activity, ...(time ? { time } : {}) });
   }
   if (view.retired.length) units.push(retiredUnit(view.retired, namer, invalidations));
-  return { units, changes, madeBy };
+  return { units, attached, changes, madeBy };
 }
 
 /**
@@ -90,9 +95,12 @@ function madeByQuads(changes: Changes, current: ReleaseSnapshot, graph: Quad['gr
   return out;
 }
 
-/** Writes changes.md and changes.ttl (the history units' quads and who made each change, as Turtle) into the release folder. */
+/**
+ * Writes changes.md and changes.ttl (the history units' quads, those attached to links still published, and who made
+ * each change, as Turtle) into the release folder.
+ */
 export async function writeChanges(dir: string, history: ReleaseHistory): Promise<void> {
   if (!history.changes) return;
   await writeFile(path.join(dir, 'changes.md'), changesMarkdown(history.changes));
-  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [...history.units.flatMap((u) => u.quads), ...(history.madeBy ?? [])]);
+  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [...history.units.flatMap((u) => u.quads), ...[...history.attached.values()].flat(), ...(history.madeBy ?? [])]);
 }

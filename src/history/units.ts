@@ -60,8 +60,9 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
  *   the link `prov:wasRevisionOf` that state when it is still published;
  * - a claim that is gone or now rejected: `prov:wasInvalidatedBy` the release activity, `prov:invalidatedAtTime` its date;
  * - the previous release's descriptions of runs, reviews and agents the earlier states name and this release does not.
+ * What is said about a link still published goes into `attached` (by link IRI), to be written with the link itself.
  */
-export function historyUnits(model: Model, namer: Namer, previous: PreviousRelease, current: ReleaseSnapshot, changed: [LinkState, LinkState | undefined][], evidence: LinkEvidence, matchesNow: Set<string>): Unit[] {
+export function historyUnits(model: Model, namer: Namer, previous: PreviousRelease, current: ReleaseSnapshot, changed: [LinkState, LinkState | undefined][], evidence: LinkEvidence, matchesNow: Set<string>): { units: Unit[]; attached: Map<string, Quad[]> } {
   const prev = previous.snapshot;
   const version = model.project.release.version;
   const R = nn(namer.iri('release', { version }));
@@ -92,6 +93,7 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
       shared.push(copy);
     }
   const units: Unit[] = [{ kind: 'provenance', id: 'history', quads: shared, partners: 'all' }];
+  const attached = new Map<string, Quad[]>();
 
   for (const [old, now] of changed) {
     const quads: Quad[] = [];
@@ -116,12 +118,16 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     for (const x of old.generatedBy) p(E, term('prov', 'wasGeneratedBy'), nn(x));
     for (const x of old.attributedTo) p(E, term('prov', 'wasAttributedTo'), nn(x));
     p(E, term('dcterms', 'isVersionOf'), L);
-    if (now) p(L, term('prov', 'wasRevisionOf'), E);
-    else p(L, a, term('prov', 'Entity'));
+    // about the link itself: with its description when it is still published (one unit per subject), else here
+    const about: Quad[] = [];
+    const l = now ? inGraph(G, about) : p;
+    if (now) l(L, term('prov', 'wasRevisionOf'), E);
+    else l(L, a, term('prov', 'Entity'));
     if (isClaim(old) && (!now || !isClaim(now))) {
-      p(L, term('prov', 'wasInvalidatedBy'), R);
-      if (time) p(L, term('prov', 'invalidatedAtTime'), typed(time, 'dateTime'));
+      l(L, term('prov', 'wasInvalidatedBy'), R);
+      if (time) l(L, term('prov', 'invalidatedAtTime'), typed(time, 'dateTime'));
     }
+    if (about.length) attached.set(L.value, about);
     const partners = new Set<number>();
     for (const w of [old.subject, old.object]) {
       const n = partnerNo.get(prev.works.get(w)?.partner ?? '');
@@ -129,5 +135,5 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     }
     units.push({ kind: 'link', id: old.iri, quads: quads.concat(matchQuads), partners });
   }
-  return units;
+  return { units, attached };
 }

@@ -110,16 +110,84 @@ export function claimEnds(l: Link): [number, number] {
 /** Links that appear in the release: every status except `candidate`. */
 export const isPublished = (l: Link) => l.status !== 'candidate';
 
-/** Generates the release's units in a fixed order: shared provenance, clusters by ID, then links outside clusters. */
-export function* releaseUnits(view: ReleaseView, counts: LinksetCounts): Generator<Unit> {
+/**
+ * Where each published link outside every cluster (a stray link) is written, so that every subject is described in one
+ * unit only (one Turtle block per subject): with the cluster of its claim's subject work when that work is clustered,
+ * else in one unit per claim subject (in order of that subject's first stray link).
+ */
+export interface StrayPlan {
+  /** Per cluster index: stray links written with that cluster. */
+  withCluster: number[][];
+  /** Per unclustered claim subject: its stray links, in link order. */
+  bySubject: Map<number, number[]>;
+  /** Cluster index of each work, -1 when unclustered. */
+  clusterOf: Int32Array;
+  /** Per unclustered claim subject: partners of the works whose stray links name it as their object (its unit goes to their slices too, so they get its description). */
+  referrers: Map<number, Set<number>>;
+}
+
+/** Plans where the stray links go (see {@link StrayPlan}). */
+export function strayPlan(view: ReleaseView): StrayPlan {
+  const { model, links } = view;
+  const clusterOf = new Int32Array(model.works.length).fill(-1);
+  const inCluster = new Uint8Array(links.links.length);
+  view.clusters.forEach((c, i) => {
+    for (const w of c.members) clusterOf[w] = i;
+    for (const li of c.links) inCluster[li] = 1;
+  });
+  const withCluster: number[][] = view.clusters.map(() => []);
+  const bySubject = new Map<number, number[]>();
+  for (let li = 0; li < links.links.length; li++) {
+    const l = links.links[li];
+    if (inCluster[li] || !isPublished(l)) continue;
+    const s = claimEnds(l)[0];
+    if (clusterOf[s] >= 0) withCluster[clusterOf[s]].push(li);
+    else {
+      const list = bySubject.get(s);
+      if (list) list.push(li);
+      else bySubject.set(s, [li]);
+    }
+  }
+  const referrers = new Map<number, Set<number>>();
+  const refer = (li: number) => {
+    const [s, o] = claimEnds(links.links[li]);
+    if (!bySubject.has(o)) return;
+    const set = referrers.get(o) ?? referrers.set(o, new Set()).get(o)!;
+    set.add(model.works[s].partner);
+  };
+  for (const list of withCluster) list.forEach(refer);
+  for (const list of bySubject.values()) list.forEach(refer);
+  return { withCluster, bySubject, clusterOf, referrers };
+}
+
+/** Options of {@link releaseUnits}. */
+export interface UnitOptions {
+  /** More quads about published links, by link IRI, written in the link's unit (e.g. `prov:wasRevisionOf` its earlier state). */
+  attached?: ReadonlyMap<string, Quad[]>;
+  /** The stray plan, when the caller made it already. */
+  plan?: StrayPlan;
+}
+
+/**
+ * Generates the release's units in a fixed order: shared provenance, clusters by ID (with the stray links whose claim
+ * subject they hold), then the other stray links, one unit per claim subject (see {@link strayPlan}). Every subject
+ * is described in one unit only; `attached` gives more quads about a published link (by its IRI: e.g. its earlier
+ * state), written in that link's unit.
+ */
+export function* releaseUnits(view: ReleaseView, counts: LinksetCounts, opts: UnitOptions = {}): Generator<Unit> {
   const { model, links, namer } = view;
+  const { attached, plan = strayPlan(view) } = opts;
   const described = new Uint8Array(model.works.length);
   const matchDone = matchIrisCanRepeat(model, namer) ? new Set<string>() : null;
+  /** Works that are described only in the unit of their own stray links (unclustered claim subjects). */
+  const ownUnit = new Uint8Array(model.works.length);
+  for (const s of plan.bySubject.keys()) ownUnit[s] = 1;
+  const ctx: LinkContext = { view, namer, described, matchDone, counts, attached, describe: (w) => plan.clusterOf[w] < 0 && !ownUnit[w] };
 
   yield provenanceUnit(view, namer);
 
-  const inCluster = new Uint8Array(links.links.length);
-  for (const c of view.clusters) {
+  for (let ci = 0; ci < view.clusters.length; ci++) {
+    const c = view.clusters[ci];
     const quads: Quad[] = [];
     const partners = new Set<number>();
     const claims = inGraph(namer.graph('claims'), quads);
@@ -147,19 +215,44 @@ export function* releaseUnits(view: ReleaseView, counts: LinksetCounts): Generat
     for (const p of c.implied) prov(pairNode('implied', 'impliedPair', T.Implied, p), cxThroughThirdArchive, bool(p.throughThirdArchive));
     for (const x of c.conflicts) prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), cxSeverity, str(x.severity));
     for (const li of c.links) {
-      inCluster[li] = 1;
       const l = links.links[li];
-      if (isPublished(l)) linkQuads(l, view, namer, quads, described, matchDone, counts);
+      if (isPublished(l)) linkQuads(l, ctx, quads);
+    }
+    // stray links whose claim subject is a member: their slices are those of both ends' partners
+    for (const li of plan.withCluster[ci]) {
+      const l = links.links[li];
+      linkQuads(l, ctx, quads);
+      partners.add(model.works[l.a].partner);
+      partners.add(model.works[l.b].partner);
     }
     yield { kind: 'cluster', id: c.id, quads, partners };
   }
-  for (let li = 0; li < links.links.length; li++) {
-    const l = links.links[li];
-    if (inCluster[li] || !isPublished(l)) continue;
+  for (const [s, lis] of plan.bySubject) {
     const quads: Quad[] = [];
-    const id = linkQuads(l, view, namer, quads, described, matchDone, counts);
-    yield { kind: 'link', id, quads, partners: new Set([model.works[l.a].partner, model.works[l.b].partner]) };
+    const partners = new Set<number>(plan.referrers.get(s));
+    describeWork(s, described, inGraph(namer.graph('claims'), quads), namer, model);
+    let id = '';
+    for (const li of lis) {
+      const l = links.links[li];
+      const iri = linkQuads(l, ctx, quads);
+      id ||= iri;
+      partners.add(model.works[l.a].partner);
+      partners.add(model.works[l.b].partner);
+    }
+    yield { kind: 'link', id, quads, partners };
   }
+}
+
+/** What linkQuads needs besides the link: the release, the shared bookkeeping, and which ends it may describe. */
+interface LinkContext {
+  view: ReleaseView;
+  namer: Namer;
+  described: Uint8Array;
+  matchDone: Set<string> | null;
+  counts: LinksetCounts;
+  attached?: ReadonlyMap<string, Quad[]>;
+  /** Whether a link's unit describes this end work (false: its own unit does). */
+  describe: (w: number) => boolean;
 }
 
 function describeWork(w: number, described: Uint8Array, emit: ReturnType<typeof inGraph>, namer: Namer, model: Model): void {
@@ -191,14 +284,15 @@ function matchIrisCanRepeat(model: Model, namer: Namer): boolean {
   return false;
 }
 
-function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], described: Uint8Array, matchDone: Set<string> | null, counts: LinksetCounts): string {
+function linkQuads(l: Link, ctx: LinkContext, quads: Quad[]): string {
+  const { view, namer, described, matchDone, counts } = ctx;
   const { model } = view;
   const claims = inGraph(namer.graph('claims'), quads);
   const prov = inGraph(namer.graph('provenance'), quads);
   const ev = inGraph(namer.graph('evidence'), quads);
   const [s, o] = claimEnds(l);
-  describeWork(s, described, claims, namer, model);
-  describeWork(o, described, claims, namer, model);
+  if (ctx.describe(s)) describeWork(s, described, claims, namer, model);
+  if (ctx.describe(o)) describeWork(o, described, claims, namer, model);
   const predicate = view.vocab.predicate(l.kind, l.status);
   const S = nn(namer.workIri(s)), O = nn(namer.workIri(o));
   if (predicate) {
@@ -249,6 +343,8 @@ function linkQuads(l: Link, view: ReleaseView, namer: Namer, quads: Quad[], desc
     for (const r of l.runs) prov(L, provWasGeneratedBy, namer.runNode(r));
     for (const agent of new Set(l.runs.map(namer.agentIri))) prov(L, provWasAttributedTo, nn(agent));
   }
+  const more = ctx.attached?.get(L.value);
+  if (more) for (const q of more) quads.push(q);
   return L.value;
 }
 

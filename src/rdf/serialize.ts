@@ -4,7 +4,7 @@ import { once } from 'node:events';
 import type { Quad } from '@rdfjs/types';
 import { TempFile } from '../io/temp-file.js';
 import { FORMATS, prefixMap, type RdfFormat } from './formats.js';
-import { TurtleEncoder, nquadsText, turtlePrefixes } from './text.js';
+import { TurtleEncoder, bySubject, nquadsText, subjectKey, turtlePrefixes } from './text.js';
 
 export { FORMATS, type RdfFormat } from './formats.js';
 
@@ -25,7 +25,8 @@ const BATCH = 4096;
 
 /**
  * Opens a streaming writer for `path` in `format` (RDF 1.1 Turtle §2, N-Triples §2, N-Quads §2).
- * Turtle gets the given prefixes (default: the fixed publishing set) in a fixed order; graph-less formats
+ * Turtle gets the given prefixes (default: the fixed publishing set) in a fixed order, one block per run of quads
+ * with one subject (batches end between subjects); graph-less formats
  * put every quad into the default graph. Output order is the input order, so equal input gives equal bytes.
  * The file appears under `path` only after `end()` (written to a temporary file, then renamed).
  */
@@ -52,8 +53,9 @@ export function openQuadWriter(path: string, format: RdfFormat, prefixes: Record
   return {
     write(quad) {
       if (failure) throw failure;
+      // Turtle batches end between subjects, so a run of one subject's quads stays one block
+      if (batch.length >= BATCH && (!turtle || subjectKey(quad) !== subjectKey(batch[batch.length - 1]))) flush();
       batch.push(quad);
-      if (batch.length >= BATCH) flush();
       const was = ok;
       ok = true;
       return was;
@@ -84,6 +86,8 @@ export async function writeQuads(
   prefixes?: Record<string, string>,
 ): Promise<void> {
   const writer = openQuadWriter(path, format, prefixes);
+  // an array is in memory already: Turtle gets each subject's quads together (one block per subject)
+  if (Array.isArray(quads) && FORMATS[format].prefixed) quads = bySubject(quads as readonly Quad[]).flat();
   try {
     if (Symbol.iterator in quads) {
       for (const quad of quads) if (!writer.write(quad)) await writer.drain();

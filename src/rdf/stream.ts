@@ -1,6 +1,7 @@
 // The release view + history units → every unit of the release in publishing order, the dataset description last.
 import { datasetUnit } from './dataset.js';
-import { isPublished, releaseUnits, type LinksetCounts, type Unit } from './index.js';
+import type { Quad } from '@rdfjs/types';
+import { releaseUnits, strayPlan, type LinksetCounts, type Unit } from './index.js';
 import type { ReleaseView } from './view.js';
 
 /** The release's units, read once, and what they counted on the way. */
@@ -15,17 +16,15 @@ export interface UnitStream {
 
 /**
  * Units of the whole release (design, "Outputs"): the dataset description comes last because its VoID linksets
- * count the claims of every unit before it; `previousVersion` is the previous release's dataset IRI (dcat:previousVersion).
+ * count the claims of every unit before it; `previousVersion` is the previous release's dataset IRI (dcat:previousVersion);
+ * `attached` holds quads about published links to write in each link's unit (see releaseUnits).
  */
-export function releaseStream(view: ReleaseView, extra: Unit[] = [], previousVersion?: string): UnitStream {
+export function releaseStream(view: ReleaseView, extra: Unit[] = [], previousVersion?: string, attached?: ReadonlyMap<string, Quad[]>): UnitStream {
   const counts: LinksetCounts = new Map();
-  // links outside every cluster become units of their own
-  const inClusters = new Uint8Array(view.links.links.length);
-  for (const c of view.clusters) for (const li of c.links) inClusters[li] = 1;
-  let stray = 0;
-  view.links.links.forEach((l, i) => { if (!inClusters[i] && isPublished(l)) stray++; });
+  // links outside every cluster go with their claim subject's cluster, or into one unit per subject
+  const plan = strayPlan(view);
   function* units(): Generator<Unit> {
-    yield* releaseUnits(view, counts);
+    yield* releaseUnits(view, counts, { plan, attached });
     yield* extra;
     yield datasetUnit(view.model, view.namer, counts, previousVersion);
   }
@@ -37,5 +36,5 @@ export function releaseStream(view: ReleaseView, extra: Unit[] = [], previousVer
     }
     return out;
   };
-  return { units: units(), size: 1 + view.clusters.length + stray + extra.length + 1, claims };
+  return { units: units(), size: 1 + view.clusters.length + plan.bySubject.size + extra.length + 1, claims };
 }

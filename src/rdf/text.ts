@@ -118,22 +118,72 @@ export class TurtleEncoder {
       return `"${escapeString(t.value)}"^^${this.iri(t.datatype)}`;
     return ntTerm(t);
   }
+  /**
+   * One block per subject (Turtle §2.3 predicate lists), subjects in order of first appearance, each subject's
+   * predicates in order of first appearance with their objects as one object list, and a blank line after each block.
+   * Quads keep their relative order within a predicate, so equal input gives equal text.
+   */
   encode(quads: readonly Quad[]): string {
     let out = '';
-    let s = '';
-    let p = '';
-    for (const q of quads) {
-      const subject = q.subject.termType === 'NamedNode' ? q.subject.value : '_:' + q.subject.value;
-      const predicate = q.predicate.value;
-      if (subject === s && predicate === p) out += ', ' + this.term(q.object);
-      else if (subject === s) out += ';\n    ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
-      else {
-        if (s) out += ' .\n';
-        out += this.term(q.subject) + ' ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+    for (const block of bySubject(quads)) {
+      let p = '';
+      for (let i = 0; i < block.length; i++) {
+        const q = block[i];
+        const predicate = q.predicate.value;
+        if (i === 0) out += this.term(q.subject) + ' ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+        else if (predicate === p) out += ', ' + this.term(q.object);
+        else out += ';\n    ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+        p = predicate;
       }
-      s = subject;
-      p = predicate;
+      out += ' .\n\n';
     }
-    return s ? out + ' .\n' : out;
+    return out;
   }
+}
+
+/** A quad's subject as a key: blank nodes as `_:label`, IRIs as themselves. */
+export const subjectKey = (q: Quad) => (q.subject.termType === 'BlankNode' ? '_:' + q.subject.value : q.subject.value);
+
+/**
+ * Quads grouped by subject (first appearance order), and within a subject by predicate (first appearance order).
+ * Runs that are already grouped, the common case, are passed through without maps.
+ */
+export function bySubject(quads: readonly Quad[]): (readonly Quad[])[] {
+  const subjects = new Map<string, Quad[]>();
+  for (const q of quads) {
+    const k = subjectKey(q);
+    const list = subjects.get(k);
+    if (list) list.push(q);
+    else subjects.set(k, [q]);
+  }
+  const out: (readonly Quad[])[] = [];
+  for (const list of subjects.values()) out.push(byPredicate(list));
+  return out;
+}
+
+/** One subject's quads with each predicate's quads together (first appearance order, stable within a predicate). */
+function byPredicate(list: Quad[]): Quad[] {
+  // grouped already when every predicate change goes to a predicate not seen before
+  let seen: Set<string> | null = null;
+  let prev = '';
+  let grouped = true;
+  for (const q of list) {
+    const p = q.predicate.value;
+    if (p === prev) continue;
+    seen ??= new Set();
+    if (seen.has(p)) {
+      grouped = false;
+      break;
+    }
+    seen.add(p);
+    prev = p;
+  }
+  if (grouped) return list;
+  const byP = new Map<string, Quad[]>();
+  for (const q of list) {
+    const l = byP.get(q.predicate.value);
+    if (l) l.push(q);
+    else byP.set(q.predicate.value, [q]);
+  }
+  return [...byP.values()].flat();
 }
