@@ -31,7 +31,7 @@ function releaseQuads(ctx: SiteContext): Quad[] {
 export const CITATION_FORMATS: readonly { id: string; label: string; render: (c: Citation) => string }[] = [
   { id: 'text', label: 'Plain text', render: citationText },
   { id: 'markdown', label: 'Markdown', render: citationMarkdown },
-  { id: 'csl', label: 'CSL-JSON', render: (c) => JSON.stringify(citationCsl(c), null, 2) + '\n' },
+  { id: 'csl', label: 'CSL-JSON', render: (c) => JSON.stringify(citationCsl(c)) + '\n' },
 ];
 
 const STATUS_ORDER: Record<string, number> = { confirmed: 0, proposed: 1, rejected: 2 };
