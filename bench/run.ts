@@ -100,6 +100,9 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
   say('  chunked SHACL share (with − without)', `${s(chunkedMs)}, ${rate(triples, chunkedMs)}`);
 
   const nq = path.join(dir, 'release', 'concordance.nq');
+  // `concordat validate` on the release's N-Quads: bounded memory whatever the file's size (target: ≤ 2 GiB at 10M triples)
+  const v = child('validate', [nq]);
+  say('concordat validate concordance.nq: time / peak RSS', v.out ? `${s(v.out.ms)} (CPU ${s(v.cpuMs)}), ${rate(v.out.triples, v.out.ms)} / ${mib(v.peakKiB)}` : `FAILED: ${v.error}`);
 
   // the release as a static site (target: written in no more than the build's own time, at most 1.5× its bytes)
   const site = child('site', [path.join(dir, 'release'), path.join(dir, 'site')]);
