@@ -86,7 +86,8 @@ export function clusterCitation(ctx: SiteContext, clusterIri: string, statements
     };
   });
   claims.sort((x, y) => STATUS_ORDER[x.status] - STATUS_ORDER[y.status] || (y.score ?? -1) - (x.score ?? -1) || (x.link < y.link ? -1 : 1));
-  return { query: clusterIri, target: { kind: 'cluster', iri: clusterIri }, release, claims, quads: [] };
+  const conflicts = sorted(node(clusterIri), V.hasDateConflict).map((x) => ({ iri: x, severity: one(node(x), V.severity), a: work(one(node(x), V.workA) ?? ''), b: work(one(node(x), V.workB) ?? '') }));
+  return { query: clusterIri, target: { kind: 'cluster', iri: clusterIri }, release, claims, conflicts, quads: [] };
 }
 
 const releases = new WeakMap<SiteContext, CitedRelease | undefined>();
