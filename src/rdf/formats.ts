@@ -40,7 +40,7 @@ export const FORMATS: Readonly<Record<FormatName, FormatInfo>> = {
   ntriples: row('N-Triples', 'application/n-triples', '.nt', 'n3', 'nquads', false, false),
   nquads: row('N-Quads', 'application/n-quads', '.nq', 'n3', 'nquads', true, false),
   trig: row('TriG', 'application/trig', '.trig', 'n3', null, true, true),
-  jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', false, false),
+  jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', true, false),
 };
 
 /** Formats written by the quad stream writer of src/rdf/serialize.ts. */
