@@ -107,7 +107,7 @@ test('uploads sent to a wrong Graph Store URL fail and leave the previous graph 
 
 test('wrong credentials: exit 1, a clear message, and the password appears nowhere', { skip }, () => {
   const secret = `pw-${randomBytes(8).toString('hex')}`;
-  const args = [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query', ENDPOINTS.query];
+  const args = [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query-endpoint', ENDPOINTS.query];
   const r = spawnSync(process.execPath, args, { encoding: 'utf8', env: { ...process.env, CONCORDAT_STORE_USER: 'dba', CONCORDAT_STORE_PASSWORD: secret, NETRC: '/nonexistent' } });
   assert.equal(r.status, 1, r.stderr);
   assert.match(r.stderr, /refused the credentials from CONCORDAT_STORE_USER\/CONCORDAT_STORE_PASSWORD \(HTTP 401\)/);
@@ -118,7 +118,7 @@ test('no credentials at all: exit 1 and a hint naming the environment variables'
   const env: NodeJS.ProcessEnv = { ...process.env, NETRC: '/nonexistent', HOME: '/nonexistent' };
   delete env.CONCORDAT_STORE_USER;
   delete env.CONCORDAT_STORE_PASSWORD;
-  const r = spawnSync(process.execPath, [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query', ENDPOINTS.query], { encoding: 'utf8', env });
+  const r = spawnSync(process.execPath, [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query-endpoint', ENDPOINTS.query], { encoding: 'utf8', env });
   assert.equal(r.status, 1);
   assert.match(r.stderr, /asks for credentials \(HTTP 401\).*CONCORDAT_STORE_USER/);
 });

@@ -74,5 +74,5 @@ test('concordat sweep prints a table or JSON; exit 2 without gold or with a bad 
   assert.match(g.stderr, /gold: the project has no gold concordance pairs/);
   const b = cli(['sweep', project, '--step', '0']);
   assert.equal(b.status, 2);
-  assert.match(b.stderr, /--step: 0 is not a positive step/);
+  assert.match(b.stderr, /option '--step <score>' argument '0' is invalid/);
 });

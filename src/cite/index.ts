@@ -19,6 +19,12 @@ export const CITE_FORMATS: Record<CiteFormat, (c: Citation) => Promise<string> |
   'csl-json': (c) => JSON.stringify(citationCsl(c), null, 2) + '\n',
 };
 
+/** The citation as plain data (`cite --json`): everything but the statements it rests on. */
+export function citationData(c: Citation): Omit<Citation, 'quads'> {
+  const { quads: _quads, ...data } = c;
+  return data;
+}
+
 const STATUS_ORDER = { confirmed: 0, proposed: 1, rejected: 2 };
 
 /**

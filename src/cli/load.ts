@@ -1,10 +1,13 @@
 // `concordat load <release>`: a release folder → graphs in a store folder or a remote SPARQL store.
-import type { Command } from 'commander';
+import { Option, type Command } from 'commander';
+import { deprecated } from './options.js';
 
 interface LoadOpts {
   store?: string;
   endpoint?: string;
   update?: string;
+  queryEndpoint?: string;
+  /** Deprecated spelling of --query-endpoint. */
   query?: string;
   graph?: string;
   partner?: string;
@@ -19,7 +22,8 @@ export function register(program: Command): void {
     .option('--store <folder>', 'embedded store folder (created if missing; one N-Quads file per graph + manifest.json)')
     .option('--endpoint <url>', 'remote SPARQL 1.1 Graph Store Protocol URL')
     .option('--update <url>', 'remote SPARQL 1.1 Update URL')
-    .option('--query <url>', 'remote SPARQL 1.1 Query URL')
+    .option('--query-endpoint <url>', 'remote SPARQL 1.1 Query URL (as in concordat query)')
+    .addOption(new Option('--query <url>', 'deprecated: --query-endpoint').hideHelp())
     .option('--graph <iri>', 'load all statements (graph names dropped) into this one graph')
     .option('--partner <key>', 'load partners/<key>.nq into --graph or {base}graph/partner/<key>')
     .option('--json', 'print what was loaded as JSON on stdout')
@@ -27,14 +31,15 @@ export function register(program: Command): void {
       'after',
       '\nExamples:\n  concordat load releases/2026.1 --store store/\n' +
         '  concordat load releases/2026.1 --partner harbour --endpoint http://127.0.0.1:8890/sparql-graph-crud-auth \\\n' +
-        '      --update http://127.0.0.1:8890/sparql-auth --query http://127.0.0.1:8890/sparql\n\n' +
+        '      --update http://127.0.0.1:8890/sparql-auth --query-endpoint http://127.0.0.1:8890/sparql\n\n' +
         'Credentials for a remote store: CONCORDAT_STORE_USER and CONCORDAT_STORE_PASSWORD, or a netrc entry ($NETRC or ~/.netrc).\n' +
         'A graph is replaced all or nothing. Exit codes: 0 loaded, 1 the store refused or failed (target graph unchanged), 2 bad input.',
     )
     .action(async (release: string, opts: LoadOpts) => {
       const { openStore } = await import('../store/open.js');
       const { loadPlanned, planRelease } = await import('../store/release.js');
-      const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.query });
+      if (opts.query) deprecated('--query', '--query-endpoint');
+      const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.queryEndpoint ?? opts.query });
       try {
         const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
         const t0 = performance.now();

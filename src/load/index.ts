@@ -4,6 +4,7 @@ import { ProblemList, type Problem } from '../errors.js';
 import type { Model, Work, Decision, GoldPair, RunConfig } from '../model.js';
 import { int32 } from '../util/columns.js';
 import { loadProjectFile } from './project.js';
+import { placeholderWarnings } from './placeholders.js';
 import { loadCatalogue, type ImageColumns } from './catalogue.js';
 import { loadEvidence, newMatchColumns } from './evidence.js';
 import { loadDecisions, loadGold } from './decisions.js';
@@ -28,7 +29,7 @@ export interface Loaded {
 export async function load(projectFile: string): Promise<Loaded> {
   const project = loadProjectFile(projectFile);
   const problems = new ProblemList();
-  const warnings: Problem[] = [];
+  const warnings: Problem[] = placeholderWarnings(project, projectFile);
   const works: Work[] = [];
   const workIndex = project.partners.map(() => new Map<string, number>());
   const imageIndex = project.partners.map(() => new Map<string, number>());

@@ -60,34 +60,57 @@ export function valueScore(values: string[], role: Role): number {
 export interface Proposal {
   columns: Partial<ColumnMap>;
   /** Role → why that column was chosen. */
-  reasons: Partial<Record<Role, string>>;
+  reasons: Partial<Record<keyof ColumnMap, string>>;
+  /** Roles whose column was guessed from sampled values alone, with no header name to go by: each deserves a check. */
+  fromValues: Role[];
+  /** Columns left unmapped that look like a role (by header name or values), with why. */
+  unmapped: { column: string; role: Role; why: string }[];
 }
 
 /** Lowest score for a proposal: work and image need some evidence; the optional roles need a header hint or clear values. */
 const MIN: Record<Role, number> = { work: 2, image: 2, title: 4, date: 4, width: 6, height: 6 };
 
-/** Proposes one column per role, greedily by score (header name first, then values), each column used once. */
-export function proposeColumns(header: string[], rows: string[][]): Proposal {
-  const cands: { role: Role; col: number; score: number; why: string }[] = [];
+/**
+ * Proposes one column per role, greedily by score (header name first, then values), each column used once. `fixed`
+ * holds the columns a person chose (`--column role=header`): they are kept as given and taken out of the guessing.
+ */
+export function proposeColumns(header: string[], rows: string[][], fixed: Partial<ColumnMap> = {}): Proposal {
+  const cands: { role: Role; col: number; score: number; why: string; byValues: boolean }[] = [];
+  const taken = new Set(Object.values(fixed));
   header.forEach((h, col) => {
+    if (taken.has(h)) return;
     const values = rows.map((r) => r[col] ?? '');
     for (const role of ROLES) {
       const hs = headerScore(h, role), vs = valueScore(values, role);
       const score = hs + vs;
-      if (score >= MIN[role]) cands.push({ role, col, score, why: hs ? `header name${vs ? ' and values' : ''}` : 'values' });
+      if (score >= MIN[role]) cands.push({ role, col, score, why: hs ? `header name${vs ? ' and values' : ''}` : 'values', byValues: hs === 0 });
     }
   });
   cands.sort((x, y) => y.score - x.score || ROLES.indexOf(x.role) - ROLES.indexOf(y.role) || x.col - y.col);
-  const out: Proposal = { columns: {}, reasons: {} };
+  const out: Proposal = { columns: {}, reasons: {}, fromValues: [], unmapped: [] };
+  const byValues = new Set<Role>();
   const used = new Set<number>();
   for (const c of cands) {
-    if (out.columns[c.role] !== undefined || used.has(c.col)) continue;
+    if (fixed[c.role] !== undefined || out.columns[c.role] !== undefined || used.has(c.col)) continue;
     out.columns[c.role] = header[c.col];
     out.reasons[c.role] = `${c.why} (score ${c.score})`;
+    if (c.byValues) byValues.add(c.role);
     used.add(c.col);
   }
-  if (!(out.columns.width && out.columns.height)) for (const r of ['width', 'height'] as const) { delete out.columns[r]; delete out.reasons[r]; }
-  const ordered: Proposal = { columns: {}, reasons: {} };
-  for (const r of ROLES) if (out.columns[r] !== undefined) [ordered.columns[r], ordered.reasons[r]] = [out.columns[r], out.reasons[r]];
+  if (!(out.columns.width && out.columns.height) && !(fixed.width || fixed.height))
+    for (const r of ['width', 'height'] as const) if (out.columns[r] !== undefined) { used.delete(header.indexOf(out.columns[r]!)); delete out.columns[r]; delete out.reasons[r]; byValues.delete(r); }
+  const ordered: Proposal = { columns: {}, reasons: {}, fromValues: [], unmapped: [] };
+  for (const r of [...ROLES, 'role'] as const) {
+    if (fixed[r] !== undefined) [ordered.columns[r], ordered.reasons[r]] = [fixed[r], 'set with --column'];
+    else if (r !== 'role' && out.columns[r] !== undefined) [ordered.columns[r], ordered.reasons[r]] = [out.columns[r], out.reasons[r]];
+  }
+  ordered.fromValues = ROLES.filter((r) => byValues.has(r) && ordered.columns[r] !== undefined && fixed[r] === undefined);
+  const noted = new Set<number>();
+  for (const c of cands) {
+    if (used.has(c.col) || noted.has(c.col)) continue;
+    noted.add(c.col);
+    ordered.unmapped.push({ column: header[c.col], role: c.role, why: `${c.why} (score ${c.score})` });
+  }
+  ordered.unmapped.sort((x, y) => header.indexOf(x.column) - header.indexOf(y.column));
   return ordered;
 }

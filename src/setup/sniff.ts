@@ -17,9 +17,9 @@ export interface Sniffed {
   rows: string[][];
 }
 
-/** Reads the header and the first `limit` rows of a CSV/TSV export with its sniffed delimiter. */
-export async function sniffCatalogue(file: string, limit = 200): Promise<Sniffed> {
-  const delimiter = sniffDelimiter(headerLine(file));
+/** Reads the header and the first `limit` rows of a CSV/TSV export with its delimiter (`given`, or sniffed from the header). */
+export async function sniffCatalogue(file: string, limit = 200, given?: string): Promise<Sniffed> {
+  const delimiter = given ?? sniffDelimiter(headerLine(file));
   let header: string[] | undefined;
   const rows: string[][] = [];
   for await (const r of readCsv(file, delimiter)) {

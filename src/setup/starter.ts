@@ -3,19 +3,23 @@ import { existsSync, mkdirSync } from 'node:fs';
 import path from 'node:path';
 import { UserError } from '../errors.js';
 import { writeJsonFile } from '../io/json-file.js';
+import { STARTER_PLACEHOLDERS } from '../load/placeholders.js';
 
 export interface StarterOptions {
   title?: string;
   base?: string;
 }
 
-/** The starter project file (design, "Project file"): no partners yet; `add-partner` adds them. */
+/**
+ * The starter project file (design, "Project file"): no partners yet (`add-partner` adds them); the publisher and the
+ * licence are placeholders that `check` flags until the consortium fills them in.
+ */
 export function starterProject(folder: string, opts: StarterOptions = {}): Record<string, unknown> {
   return {
     title: opts.title ?? `${path.basename(path.resolve(folder))} concordance`,
     base: opts.base ?? 'https://concordance.example.org/',
-    license: 'https://creativecommons.org/publicdomain/zero/1.0/',
-    publisher: { name: 'Example Consortium', homepage: 'https://consortium.example.org/' },
+    license: STARTER_PLACEHOLDERS.license,
+    publisher: { name: STARTER_PLACEHOLDERS.publisherName },
     partners: [],
     evidence: [],
     decisions: [],

@@ -30,7 +30,7 @@ export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Pro
     throw usage('--store', `${c.store} holds no loaded release`, 'load one first: concordat load <release> --store <folder>');
   if (c.store) return EmbeddedStore.open(c.store);
   if (!c.query) throw usage('--store', 'no store given', 'give --store <folder>, or the remote endpoint URLs');
-  for (const [field, url] of Object.entries({ '--endpoint': c.endpoint, '--update': c.update, '--query': c.query })) {
+  for (const [field, url] of Object.entries({ '--endpoint': c.endpoint, '--update': c.update, '--query-endpoint': c.query })) {
     if (url && !/^https?:\/\//.test(url)) throw usage(field, `"${url}" is not an http(s) URL`, 'e.g. http://127.0.0.1:8890/sparql');
     if (url && new URL(url).password) throw usage(field, 'the URL carries a password', 'remove it; credentials come from CONCORDAT_STORE_USER / CONCORDAT_STORE_PASSWORD or netrc');
   }

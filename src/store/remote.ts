@@ -62,7 +62,7 @@ export class RemoteStore implements Store {
 
   private writeUrls(): { gsp: string; update: string } {
     const { gsp, update } = this.endpoints;
-    if (!gsp || !update) throw new UserError({ file: 'command line', line: 0, field: gsp ? '--update' : '--endpoint', message: 'is needed to change a remote store', hint: 'give --endpoint <Graph Store URL> --update <SPARQL Update URL> --query <SPARQL Query URL>' }, EXIT.badInput);
+    if (!gsp || !update) throw new UserError({ file: 'command line', line: 0, field: gsp ? '--update' : '--endpoint', message: 'is needed to change a remote store', hint: 'give --endpoint <Graph Store URL> --update <SPARQL Update URL> --query-endpoint <SPARQL Query URL>' }, EXIT.badInput);
     return { gsp, update };
   }
 
