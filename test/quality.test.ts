@@ -10,6 +10,9 @@ import { weighEvidence, IMAGE_VERDICTS } from '../src/evidence/index.js';
 import { link, matchesOf, isClaim } from '../src/link/index.js';
 import { cluster } from '../src/cluster/index.js';
 import { workRef } from '../src/model.js';
+import { analyse, REVIEW_REASONS } from '../src/analyse/index.js';
+import { reportData } from '../src/report/index.js';
+import { workContext } from '../src/report/context.js';
 
 const demo = (rel: string) => fileURLToPath(new URL(`../../demo-data/${rel}`, import.meta.url));
 
@@ -69,4 +72,22 @@ test('every published claim of the demo traces to a named curator or to evidence
     }
     assert.ok(claims > 50);
   }
+});
+
+test('demo report: says which images were set aside (partner, image, works matched), which links were held back, and counts before and after', async () => {
+  const key = JSON.parse(readFileSync(demo('answer-key.json'), 'utf8'));
+  const { model } = await load(demo('concordance.json'));
+  const ls = link(model);
+  const c = cluster(model, ls);
+  const a = analyse(model, ls, c);
+  const w = reportData(model, ls, c, a, workContext(model)).withheld;
+  assert.equal(w.indiscriminateImages, 19);
+  assert.deepEqual(w.byVerdict, { hub: 12, uncorroborated: 7, role: 0 });
+  assert.deepEqual(new Set(w.images.map((i) => `${i.partner}:${i.image}`)), new Set([...key.phenomena.mountBacks, ...key.phenomena.charts]));
+  assert.ok(w.images.every((i) => i.worksMatched >= 6), 'each matched at least six works');
+  // three prints from one plate (three links) and two pairs of pendants: five look-alike links held back at least
+  assert.ok(w.heldLinks['look-alike'] >= 5, `${w.heldLinks['look-alike']} look-alike links held`);
+  assert.ok(w.heldLinks.indiscriminate > 0);
+  assert.ok(w.before.sameClaims > w.after.sameClaims, 'claims before weighing and splitting, and after');
+  assert.ok(a.review.byReason[REVIEW_REASONS.indexOf('look-alike')] >= 5, 'look-alikes queued for review');
 });

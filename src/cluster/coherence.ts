@@ -38,7 +38,9 @@ export function coherentClaims(model: Model, linkSet: LinkSet, sameEdges: readon
   const links = linkSet.links;
   const n = model.works.length;
   const curator = (e: number) => links[e].decision !== undefined;
-  const order = [...sameEdges].sort((x, y) => Number(curator(y)) - Number(curator(x)) || links[y].confidence - links[x].confidence || x - y);
+  // sort keys read once into typed arrays (links are records over columns: a getter per read)
+  const cur = Uint8Array.from(sameEdges, (e) => Number(curator(e))), conf = Float64Array.from(sameEdges, (e) => links[e].confidence);
+  const order = Int32Array.from(sameEdges.keys()).sort((x, y) => cur[y] - cur[x] || conf[y] - conf[x] || sameEdges[x] - sameEdges[y]).map((k) => sameEdges[k]);
   const uf = new UnionFind(n);
   const size = new Int32Array(n).fill(1);
   const kept: number[] = [], cut: number[] = [], reason: number[] = [];

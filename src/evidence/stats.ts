@@ -87,25 +87,25 @@ export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array)
   for (let r = 0; r < matches.count; r++) ids[r] = r;
   const rows = countingSort(countingSort(ids, hi, n), lo, n);
   const out = new Uint8Array(matches.count);
-  const tally = new Map<number, number>();
+  const tally = new Int32Array(images.count); // eligible rows of the current group per image; reset after each group
   for (let s = 0; s < rows.length;) {
     let e = s + 1;
     while (e < rows.length && lo[rows[e]] === lo[rows[s]] && hi[rows[e]] === hi[rows[s]]) e++;
     // eligible rows of the group, and how many of them each image takes part in
     let eligible = 0;
-    tally.clear();
     for (let k = s; k < e; k++) {
       const r = rows[k], a = matches.a[r], b = matches.b[r];
       if (ignore[a] || ignore[b] || !use[r]) continue;
       eligible++;
-      tally.set(a, (tally.get(a) ?? 0) + 1);
-      tally.set(b, (tally.get(b) ?? 0) + 1);
+      tally[a]++;
+      tally[b]++;
     }
     for (let k = s; k < e; k++) {
       const r = rows[k];
-      if (eligible - (tally.get(matches.a[r]) ?? 0) > 0) out[r] |= 1;
-      if (eligible - (tally.get(matches.b[r]) ?? 0) > 0) out[r] |= 2;
+      if (eligible - tally[matches.a[r]] > 0) out[r] |= 1;
+      if (eligible - tally[matches.b[r]] > 0) out[r] |= 2;
     }
+    for (let k = s; k < e; k++) { tally[matches.a[rows[k]]] = 0; tally[matches.b[rows[k]]] = 0; }
     s = e;
   }
   return out;
