@@ -134,30 +134,71 @@ test('JSON-LD output: every statement is in the release and the link\'s status i
   assert.ok(quads.some((q) => q.subject.value === c.claims[0].link && q.predicate.value.endsWith('#status')));
 });
 
-// CSL-JSON schema, citation-style-language/schema, csl-data.json (CSL 1.0.2), transcribed from memory: the item
-// types, `id` and `type` required, name and date variables as below, no properties outside the listed variables.
-const CSL_TYPES = ['article', 'article-journal', 'article-magazine', 'article-newspaper', 'bill', 'book', 'broadcast', 'chapter', 'classic', 'collection', 'dataset', 'document', 'entry', 'entry-dictionary', 'entry-encyclopedia', 'event', 'figure', 'graphic', 'hearing', 'interview', 'legal_case', 'legislation', 'manuscript', 'map', 'motion_picture', 'musical_score', 'pamphlet', 'paper-conference', 'patent', 'performance', 'periodical', 'personal_communication', 'post', 'post-weblog', 'regulation', 'report', 'review', 'review-book', 'software', 'song', 'speech', 'standard', 'thesis', 'treaty', 'webpage'] as const;
+// CSL-JSON schema: citation-style-language/schema, schemas/input/csl-data.json (the stored copy at commit 00412663),
+// transcribed in part: the item types, `id` and `type` required, name and date variables as defined there, the
+// string variables used here, `custom` an object, and no property outside the schema's variables.
+const CSL_TYPES = ['article', 'article-journal', 'article-magazine', 'article-newspaper', 'bill', 'book', 'broadcast', 'chapter', 'classic', 'collection', 'dataset', 'document', 'entry', 'entry-dictionary', 'entry-encyclopedia', 'figure', 'graphic', 'hearing', 'interview', 'legal_case', 'legislation', 'manuscript', 'map', 'motion_picture', 'musical_score', 'pamphlet', 'paper-conference', 'patent', 'performance', 'periodical', 'personal_communication', 'post', 'post-weblog', 'regulation', 'report', 'review', 'review-book', 'software', 'song', 'speech', 'standard', 'thesis', 'treaty', 'webpage'] as const;
 const CslName = z.strictObject({ family: z.string().optional(), given: z.string().optional(), 'dropping-particle': z.string().optional(), 'non-dropping-particle': z.string().optional(), suffix: z.string().optional(), 'comma-suffix': z.union([z.string(), z.number(), z.boolean()]).optional(), 'static-ordering': z.union([z.string(), z.number(), z.boolean()]).optional(), literal: z.string().optional(), 'parse-names': z.union([z.string(), z.number(), z.boolean()]).optional() });
-const CslDate = z.strictObject({ 'date-parts': z.array(z.array(z.union([z.string(), z.number()])).min(1).max(3)).min(1).max(2).optional(), season: z.union([z.string(), z.number()]).optional(), circa: z.union([z.string(), z.number(), z.boolean()]).optional(), literal: z.string().optional(), raw: z.string().optional() });
-const text = z.union([z.string(), z.number()]);
+const CslDate = z.union([z.string(), z.strictObject({ 'date-parts': z.array(z.array(z.union([z.string(), z.number()])).min(1).max(3)).min(1).max(2).optional(), season: z.union([z.string(), z.number()]).optional(), circa: z.union([z.string(), z.number(), z.boolean()]).optional(), literal: z.string().optional(), raw: z.string().optional(), edtf: z.string().optional() })]);
+const text = z.string();
 const CslItem = z.strictObject({
   id: z.union([z.string(), z.number()]), type: z.enum(CSL_TYPES),
-  author: z.array(CslName).optional(), editor: z.array(CslName).optional(), issued: CslDate.optional(), accessed: CslDate.optional(),
-  title: text.optional(), version: text.optional(), publisher: text.optional(), 'publisher-place': text.optional(), license: text.optional(),
-  URL: text.optional(), DOI: text.optional(), note: text.optional(), medium: text.optional(), genre: text.optional(), abstract: text.optional(), 'container-title': text.optional(),
+  author: z.array(CslName).optional(), curator: z.array(CslName).optional(), editor: z.array(CslName).optional(), issued: CslDate.optional(), accessed: CslDate.optional(),
+  title: text.optional(), 'container-title': text.optional(), version: text.optional(), publisher: text.optional(), 'publisher-place': text.optional(),
+  URL: text.optional(), DOI: text.optional(), note: text.optional(), medium: text.optional(), genre: text.optional(), abstract: text.optional(),
+  custom: z.record(z.string(), z.unknown()).optional(),
 });
 const CslData = z.array(CslItem);
 
-test('CSL-JSON output conforms to the CSL-JSON item schema, type "dataset", with the release\'s version and date', async () => {
-  await ready;
-  const c = await cite('fontclaire:Réf. 146', { release });
+test('CSL-JSON: one item per claim, URL the claim\'s link IRI, the curator who decided, both record pages as related links', async () => {
+  const r = await ready;
+  // a record with several published claims, one of them decided by a curator
+  const claimsOf = new Map<number, number>();
+  for (const l of r.links.links) if (l.status !== 'candidate') for (const w of [l.a, l.b]) claimsOf.set(w, (claimsOf.get(l.a === w ? l.a : l.b) ?? 0) + 1);
+  const decided = r.links.links.find((l) => l.decision !== undefined && l.status === 'confirmed' && (claimsOf.get(l.a) ?? 0) >= 2)!;
+  assert.ok(decided, 'the demo has such a record');
+  const ref = `${r.model.project.partners[r.model.works[decided.a].partner].key}:${r.model.works[decided.a].id}`;
+  const c = await cite(ref, { release });
   const items = CslData.parse(JSON.parse(await CITE_FORMATS['csl-json'](c)));
-  assert.equal(items.length, 1);
-  assert.equal(items[0].type, 'dataset');
-  assert.equal(items[0].version, '2026.1');
-  assert.deepEqual(items[0].issued, { 'date-parts': [[2026, 11, 30]] });
-  assert.equal(items[0].URL, c.target.iri);
-  assert.ok(String(items[0].note).includes(c.claims[0].link));
+  assert.ok(c.claims.length >= 2, 'the record has several claims');
+  assert.equal(items.length, c.claims.length);
+  c.claims.forEach((claim, i) => {
+    const it = items[i];
+    assert.equal(it.type, 'dataset');
+    assert.equal(it.id, claim.link);
+    assert.equal(it.URL, claim.link, 'URL is the claim, not a partner record');
+    assert.equal(it.version, '2026.1');
+    assert.deepEqual(it.issued, { 'date-parts': [[2026, 11, 30]] });
+    const pages = [claim.subject.page, claim.object.page];
+    assert.ok(pages.every((p) => p?.startsWith('https://')));
+    assert.deepEqual((it.custom as { related: string[] }).related, pages);
+    for (const p of pages) assert.ok(String(it.note).includes(p!), 'record pages in the note');
+    if (claim.review) assert.deepEqual(it.curator, [{ literal: claim.review.curatorName ?? claim.review.curator }]);
+    else assert.equal(it.curator, undefined);
+  });
+  assert.ok(items.some((it) => it.curator), 'a curator-confirmed claim names its curator');
   assert.throws(() => CslData.parse([{ ...citationCsl(c)[0], type: 'data-set' }]), 'the schema rejects an unknown type');
-  assert.throws(() => CslData.parse([{ ...citationCsl(c)[0], issued: '2026-11-30' }]), 'the schema rejects a date as a plain string');
+  assert.throws(() => CslData.parse([{ ...citationCsl(c)[0], relatedLinks: [] }]), 'the schema rejects a property it does not define');
+});
+
+test('citing a cluster with date conflicts lists them in every format', async () => {
+  const r = await ready;
+  const withConflict = r.analysis.conflicts[0];
+  assert.ok(withConflict, 'the demo has date conflicts');
+  const id = r.clustering.clusters[withConflict.cluster].id;
+  const iri = `${loadProjectFile(project).base}work/${id}`;
+  const c = await cite(iri, { release });
+  const expected = r.analysis.conflicts.filter((x) => x.cluster === withConflict.cluster).length;
+  assert.equal(c.conflicts?.length, expected);
+  const refs = (c.conflicts ?? []).map((x) => [x.a.ref, x.b.ref].sort().join(' '));
+  const ref = (w: number) => `${r.model.project.partners[r.model.works[w].partner].key}:${r.model.works[w].id}`;
+  assert.deepEqual(refs.sort(), r.analysis.conflicts.filter((x) => x.cluster === withConflict.cluster).map((x) => [ref(x.a), ref(x.b)].sort().join(' ')).sort());
+  const items = CslData.parse(citationCsl(c));
+  const cluster = items.find((it) => it.id === iri)!;
+  assert.equal(cluster.URL, iri);
+  assert.equal((cluster.custom as { dateConflicts: unknown[] }).dateConflicts.length, expected);
+  assert.match(CITE_FORMATS.text(c) as string, new RegExp(`Date conflicts in this cluster \\(${expected}\\)`));
+  assert.match(CITE_FORMATS.markdown(c) as string, /## Date conflicts in this cluster/);
+  const one = await cite(c.claims[0].link, { release });
+  assert.deepEqual(one.conflicts, [], 'a link has no cluster conflicts');
 });

@@ -218,7 +218,7 @@ test('the language setting decides a phrase that differs between languages, and 
   assert.equal(span('v. 1480', 'de'), '1430/1480'); // vor 1480
   assert.equal(span('v. 1480', 'nl'), '1430/1480'); // voor 1480
   assert.equal(span('v. 1480'), '1430/1490'); // no language: the hull of both readings
-  assert.equal(span('vers 1480', 'de'), 'invalid'); // a German partner's French word is not read…
+  assert.equal(span('vers 1480', 'de'), 'unread'); // a German partner's French word is not read…
   assert.equal(span('late 15th century', 'de'), '1467/1500'); // …but English phrases are read for every partner
   assert.equal(span('1480', 'it'), '1480/1480');
 });
@@ -226,11 +226,11 @@ test('the language setting decides a phrase that differs between languages, and 
 test('text that is no date stays unread in every language', () => {
   for (const t of ['Renaissance', 'undatiert', 'sans date', 'fine', 'mitte', 'v.', 'XV', 'late', 'siglo']) {
     const r = parseDate(t, 'unknown');
-    assert.equal(r.kind, 'invalid', `${t}: ${JSON.stringify(r)}`);
-    if (r.kind === 'invalid') assert.equal(r.reason, 'not a date form we can read', t);
+    assert.equal(r.kind, 'unread', `${t}: ${JSON.stringify(r)}`);
+    if (r.kind === 'unread') assert.equal(r.reason, 'not a date form we can read', t);
   }
   const r = parseDate('0. Jh.', 'unknown', 'de');
-  assert.ok(r.kind === 'invalid' && /0th century/.test(r.reason), 'impossible stays impossible in another language');
+  assert.ok(r.kind === 'impossible' && /0th century/.test(r.reason), 'impossible stays impossible in another language');
 });
 
 test('Roman numerals and the canonical phrase', () => {

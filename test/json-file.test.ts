@@ -5,7 +5,7 @@ import { rmSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { parseJson, readJsonFile, lineColumn } from '../src/io/json-file.js';
 import { loadVocabMap } from '../src/rdf/vocab-map.js';
-import { jsonldToNQuads } from '../src/rdf/jsonld-read.js';
+import { jsonldToNQuads } from '../src/rdf/jsonld.js';
 import { readJsonObject } from '../src/io/json-file.js';
 import type { UserError } from '../src/errors.js';
 import { tempDir } from './helpers/fixture.js';

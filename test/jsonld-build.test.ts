@@ -11,8 +11,8 @@ import { releaseView } from '../src/rdf/view.js';
 import { releaseStream } from '../src/rdf/stream.js';
 import { loadVocabMap } from '../src/rdf/vocab-map.js';
 import { isomorphic } from '../src/rdf/isomorphic.js';
-import { jsonldToNQuads } from '../src/rdf/jsonld-read.js';
-import { unitNodes, JSONLD_CONTEXT } from '../src/publish/jsonld.js';
+import { JSONLD_CONTEXT, jsonldToNQuads } from '../src/rdf/jsonld.js';
+import { unitNodes } from '../src/publish/jsonld.js';
 import { NS } from '../src/namespaces.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
 

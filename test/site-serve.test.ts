@@ -3,7 +3,8 @@
 // byte-identical output, never overwriting).
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { readFileSync, readdirSync, statSync, symlinkSync, writeFileSync } from 'node:fs';
+import { readFileSync, readdirSync, statSync, symlinkSync, writeFileSync, rmSync } from 'node:fs';
+import { build } from '../src/pipeline.js';
 import path from 'node:path';
 import { request } from 'node:http';
 import { createHash } from 'node:crypto';
@@ -37,10 +38,10 @@ test('serve: the same for release 2026.1 (a first release: no earlier states, no
   assert.ok((await checkMintedIris(origin, d.release1, BASE)) > 100);
 });
 
-test('site: every statement of concordance.nq is in exactly one document (.ttl files hold the triples once)', async () => {
+test('site: every statement of concordance.nq is in exactly one document (.ttl files hold the triples once; release 2026.1, no earlier site)', async () => {
   const d = await demoSitesOnce();
   const want = new Map<string, number>();
-  for (const line of readFileSync(path.join(d.release2, 'concordance.nq'), 'utf8').split('\n').filter(Boolean)) {
+  for (const line of readFileSync(path.join(d.release1, 'concordance.nq'), 'utf8').split('\n').filter(Boolean)) {
     const t = line.replace(/ <[^>]*> \.$/, ' .');
     want.set(t, (want.get(t) ?? 0) + 1);
   }
@@ -52,14 +53,14 @@ test('site: every statement of concordance.nq is in exactly one document (.ttl f
       else if (e.name.endsWith('.ttl')) for (const l of readFileSync(p, 'utf8').split('\n').filter(Boolean)) got.set(l, (got.get(l) ?? 0) + 1);
     }
   };
-  walk(d.site2);
+  walk(d.site1);
   assert.deepEqual([...got].sort(), [...want].sort());
 });
 
 test('site: same release → byte-identical site; an existing folder is never overwritten', async () => {
   const d = await demoSitesOnce();
   const again = path.join(d.tmp, 'site-again');
-  await writeSite(d.release2, again);
+  await writeSite(d.release2, again, { previous: d.site1 });
   const digest = (dir: string) => {
     const h = createHash('sha256');
     const walk = (x: string) => { for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) { const p = path.join(x, e.name); if (e.isDirectory()) walk(p); else h.update(path.relative(dir, p) + '\0').update(readFileSync(p)); } };
@@ -157,4 +158,32 @@ test('site CLI: prints where it wrote the site and how to serve it; --json; exit
   assert.equal(bad.status, 2);
   assert.match(bad.stderr, /not a release folder/);
   void triplesBySubject; void statSync;
+});
+
+test('a link IRI from any earlier release resolves: release 3 no longer describes links gone in release 2, its site keeps them from the earlier sites', async () => {
+  const d = await demoSitesOnce();
+  const project = JSON.parse(readFileSync(path.join(repoRoot, 'demo-data', 'release-2', 'concordance.json'), 'utf8'));
+  const dir = path.join(repoRoot, 'demo-data', 'release-2');
+  const p3 = path.join(dir, '.release-3-test.json');
+  writeFileSync(p3, JSON.stringify({ ...project, previous: undefined, release: { ...project.release, version: '2028.1' } }));
+  const release3 = path.join(d.tmp, 'releases', '2028.1');
+  try { await build(p3, release3, { previous: d.release2 }); } finally { rmSync(p3) }
+  const site3 = path.join(d.tmp, 'site', '2028.1');
+  await writeSite(release3, site3, { previous: d.site2 });
+  const linksOf = (release: string) => new Set([...readFileSync(path.join(release, 'concordance.nq'), 'utf8').matchAll(/^<(https:[^>]*\/link\/[0-9a-f]+)> /gm)].map((m) => m[1]));
+  const in1 = linksOf(d.release1), in3 = linksOf(release3);
+  const gone = [...in1].filter((l) => !in3.has(l));
+  assert.ok(gone.length > 0, 'the demo has links of release 1 that release 3 no longer describes');
+  const origin = await start(site3);
+  for (const l of gone) {
+    for (const accept of ['text/html', 'text/turtle']) {
+      const r = await fetch(origin + new URL(l).pathname, { headers: { accept } });
+      assert.equal(r.status, 200, `${l} ${accept}`);
+      const body = await r.text();
+      assert.ok(accept === 'text/html' ? body.includes(`id="link/${l.replace(/^.*\//, '')}"`) : body.includes(`<${l}> <http://www.w3.org/1999/02/22-rdf-syntax-ns#type>`), `${l} ${accept}`);
+    }
+  }
+  // and the earlier releases' datasets and downloads are there too
+  for (const v of ['2026.1', '2027.1']) assert.equal((await fetch(`${origin}/dataset/${v}`, { headers: { accept: 'text/turtle' } })).status, 200, v);
+  assert.equal((await fetch(`${origin}/releases/2026.1/concordance.nq`)).status, 200);
 });

@@ -3,7 +3,7 @@ import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
 import { iri } from '../namespaces.js';
 import { KIND_OF, STATUS_OF, refOfWorkIri } from '../history/names.js';
-import type { CitedClaim, CitedMatch, CitedRelease, CitedReview, CitedRun, CitedWork } from './types.js';
+import type { CitedClaim, CitedConflict, CitedMatch, CitedRelease, CitedReview, CitedRun, CitedWork } from './types.js';
 
 const { namedNode } = N3.DataFactory;
 const T = (p: Parameters<typeof iri>[0], l: string) => namedNode(iri(p, l));
@@ -86,6 +86,15 @@ export function citedClaim(r: Reader, link: string): CitedClaim {
     score: score === undefined ? undefined : Number(score), support: Number(r.one(link, T('cx', 'support')) ?? 0),
     matches, runs: runIris.map((x) => citedRun(r, x)), review: reviewIri ? citedReview(r, reviewIri) : undefined,
   };
+}
+
+/** The date conflicts of a cluster (cx:hasDateConflict → cx:DateConflict with cx:workA, cx:workB, cx:severity), by IRI. */
+export function citedConflicts(r: Reader, cluster: string): CitedConflict[] {
+  return r.all(cluster, T('cx', 'hasDateConflict')).map((x) => {
+    r.describe(x);
+    const [a, b] = [r.one(x, T('cx', 'workA')), r.one(x, T('cx', 'workB'))];
+    return { iri: x, severity: r.one(x, T('cx', 'severity')), a: citedWork(r, a ?? ''), b: citedWork(r, b ?? '') };
+  });
 }
 
 /**

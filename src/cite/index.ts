@@ -2,7 +2,7 @@
 import { UserError, EXIT } from '../errors.js';
 import { readSource, type CiteSource } from './source.js';
 import { findTarget } from './find.js';
-import { Reader, citedClaim, citedRelease } from './gather.js';
+import { Reader, citedClaim, citedConflicts, citedRelease } from './gather.js';
 import { citationText, citationMarkdown } from './text.js';
 import { citationCsl } from './csl.js';
 import { citationJsonLd } from './jsonld.js';
@@ -42,5 +42,6 @@ export async function cite(query: string, source: CiteSource): Promise<Citation>
   if (!release) throw new UserError({ file: source.release ?? source.store!, line: 0, field: 'dcat:version', message: 'no dataset description (dcat:Dataset with dcat:version) found', hint: 'load the whole release, including its dataset graph' });
   const claims = found.links.map((l) => citedClaim(r, l));
   claims.sort((x, y) => STATUS_ORDER[x.status] - STATUS_ORDER[y.status] || (y.score ?? -1) - (x.score ?? -1) || (x.link < y.link ? -1 : 1));
-  return { query, target: { kind: found.kind, iri: found.iri }, release, claims, quads: r.quads() };
+  const conflicts = found.kind === 'cluster' ? citedConflicts(r, found.iri) : [];
+  return { query, target: { kind: found.kind, iri: found.iri }, release, claims, conflicts, quads: r.quads() };
 }

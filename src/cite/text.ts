@@ -1,8 +1,8 @@
 // A citation → a footnote-ready sentence per claim plus its evidence list, as plain text or Markdown.
-import type { Citation, CitedClaim, CitedRelease, CitedWork } from './types.js';
+import type { Citation, CitedClaim, CitedConflict, CitedRelease, CitedWork } from './types.js';
 
 const ID_OF = (w: CitedWork) => (w.ref.startsWith(`${w.partner}:`) ? w.ref.slice(w.partner.length + 1) : w.ref);
-const name = (w: CitedWork) => `${w.partnerName ?? w.partner} ${ID_OF(w)}${w.title ? ` ("${w.title}")` : ''}`;
+export const name = (w: CitedWork) => `${w.partnerName ?? w.partner} ${ID_OF(w)}${w.title ? ` ("${w.title}")` : ''}`;
 const plural = (n: number, one: string) => `${n} ${one}${n === 1 ? '' : 'es'}`;
 
 /** Verb phrase by kind and status (a table: kind/status → how the sentence joins the two works). */
@@ -15,6 +15,16 @@ const VERB: Record<string, (s: string, o: string) => string> = {
   'related/proposed': (s, o) => `${s} and ${o} probably show related works`,
 };
 const verb = (c: CitedClaim) => (c.status === 'rejected' ? (s: string, o: string) => `${s} and ${o} do not show the same work` : VERB[`${c.kind}/${c.status}`]);
+
+/** "A and B show the same work" (the claim without its basis and release). */
+export const claimPhrase = (c: CitedClaim) => verb(c)(name(c.subject), name(c.object));
+
+/** Who asserted the claim: the curator of its review, else its runs ("a matcher" when none is recorded). */
+export function assertedBy(c: CitedClaim): { kind: 'curator' | 'run'; name: string } {
+  if (c.review) return { kind: 'curator', name: c.review.curatorName ?? c.review.curator };
+  const run = c.runs[0];
+  return { kind: 'run', name: run ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})` : 'a matcher' };
+}
 
 function basis(c: CitedClaim): string {
   const r = c.review;
@@ -49,12 +59,18 @@ function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): s
   return out;
 }
 
+/** A date conflict in words: both records with their dates as catalogued. */
+export function conflictLine(x: CitedConflict): string {
+  return `${x.severity ?? 'conflict'}: ${name(x.a)} dated "${x.a.date ?? ''}", ${name(x.b)} dated "${x.b.date ?? ''}" <${x.iri}>`;
+}
+
 const heading = (c: Citation) => `${c.claims.length} claim${c.claims.length === 1 ? '' : 's'} about ${c.query} in release ${c.release.version}`;
 
 /** Plain text: per claim, the sentence, then "Evidence:" and one indented line per fact. */
 export function citationText(c: Citation): string {
   const blocks = c.claims.map((x) => [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`)].join('\n'));
-  return [heading(c), '', blocks.join('\n\n'), ''].join('\n');
+  const conflicts = c.conflicts?.length ? ['', `Date conflicts in this cluster (${c.conflicts.length}):`, ...c.conflicts.map((x) => `  - ${conflictLine(x)}`)] : [];
+  return [heading(c), '', blocks.join('\n\n'), ...conflicts, ''].join('\n');
 }
 
 /** Escapes Markdown punctuation (CommonMark §2.4) and `<` that would open an HTML tag; keeps `<https://…>` autolinks. */
@@ -72,5 +88,6 @@ export function citationMarkdown(c: Citation): string {
     }
     out.push(...details(x, c.release, (s) => `- ${md(s)}`).filter((l) => !l.startsWith('- image match')), '');
   }
+  if (c.conflicts?.length) out.push('## Date conflicts in this cluster', '', ...c.conflicts.map((x) => `- ${md(conflictLine(x))}`), '');
   return out.join('\n');
 }

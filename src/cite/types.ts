@@ -64,12 +64,22 @@ export interface CitedClaim {
   review?: CitedReview;
 }
 
+/** Two records of a cited cluster whose catalogued dates disagree (cx:DateConflict). */
+export interface CitedConflict {
+  iri: string;
+  severity?: string;
+  a: CitedWork;
+  b: CitedWork;
+}
+
 export interface Citation {
   /** What was asked for, as given. */
   query: string;
   target: { kind: 'work' | 'link' | 'cluster'; iri: string };
   release: CitedRelease;
   claims: CitedClaim[];
+  /** For a cluster: its date conflicts (absent or empty for a work or a link). */
+  conflicts?: CitedConflict[];
   /** The statements the citation rests on (links, matches, runs, reviews, works, dataset), for JSON-LD. */
   quads: Quad[];
 }

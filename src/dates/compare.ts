@@ -10,7 +10,7 @@ function overlaps(a: YearSpan, b: YearSpan): boolean {
 /**
  * Compares two readings as inclusive year intervals (design: analyse, "disjoint intervals = conflict, different
  * century only = soft conflict"):
- * - `unknown` when either side is empty or invalid;
+ * - `unknown` when either side is empty, impossible or unread;
  * - `conflict` when the intervals, as read under each side's own convention, share no year;
  * - `soft` when they share a year, at least one side is a century label (`byConvention` set), and reading every
  *   century label on both sides by one strict convention (all ordinal, or all ISO) makes them disjoint: the overlap

@@ -1,5 +1,5 @@
 // An EDTF string (date, interval, set, ISO 8601-2 century) → an interval of years, or why it is impossible.
-import { type DateReading, type IntervalReading, LATEST_YEAR, invalid } from './types.js';
+import { type DateReading, type IntervalReading, LATEST_YEAR, impossible, unread } from './types.js';
 import { SUB_YEAR_TOLERANCE, tolerance } from './calendar.js';
 import { type Point, parsePoint } from './point.js';
 
@@ -29,7 +29,7 @@ export function parseEdtf(text: string): DateReading | null {
   if (s !== null) return set(s[1] ?? s[2]);
   const p = parsePoint(text, true);
   if (p === null) return null;
-  if (typeof p === 'string') return invalid(p, HINT);
+  if (typeof p === 'string') return impossible(p, HINT);
   const w = widen(p);
   return reading(p.minYear - w, p.maxYear + w, p.approx || p.significant, p.uncertain, p.century);
 }
@@ -43,7 +43,7 @@ function reading(start: number, end: number, approximate: boolean, uncertain: bo
 /** ISO 8601-2 century `14` (years 1400–1499), optionally qualified. */
 function century(n: number, qual: string | undefined): DateReading {
   const start = n * 100;
-  if (start > LATEST_YEAR) return invalid(`impossible century ${n}: in the future (after ${LATEST_YEAR})`, HINT);
+  if (start > LATEST_YEAR) return impossible(`impossible century ${n}: in the future (after ${LATEST_YEAR})`, HINT);
   const approximate = qual === '~' || qual === '%';
   const w = approximate ? tolerance(100) : 0;
   return { kind: 'interval', start: start - w, end: start + 99 + w, form: 'century', approximate,
@@ -54,14 +54,14 @@ function century(n: number, qual: string | undefined): DateReading {
 function interval(text: string, slash: number): DateReading | null {
   if (text.indexOf('/', slash + 1) >= 0) return null;
   const a = text.slice(0, slash), b = text.slice(slash + 1);
-  if (a === '' && b === '') return invalid('no date on either side of "/"', HINT);
+  if (a === '' && b === '') return unread('no date on either side of "/"', HINT);
   const p = a === '' || a === '..' ? undefined : parsePoint(a, false);
   const q = b === '' || b === '..' ? undefined : parsePoint(b, false);
   if (p === null || q === null) return null;
-  if (typeof p === 'string') return invalid(p, HINT);
-  if (typeof q === 'string') return invalid(q, HINT);
+  if (typeof p === 'string') return impossible(p, HINT);
+  if (typeof q === 'string') return impossible(q, HINT);
   if (p !== undefined && q !== undefined && p.minKey > q.maxKey) {
-    return invalid(`impossible interval ${text}: ends before it starts`, 'put the earlier date first');
+    return impossible(`impossible interval ${text}: ends before it starts`, 'put the earlier date first');
   }
   return reading(p === undefined ? -Infinity : p.minYear - widen(p), q === undefined ? Infinity : q.maxYear + widen(q),
     estimated(p) || estimated(q), (p?.uncertain ?? false) || (q?.uncertain ?? false), 0);
@@ -81,9 +81,9 @@ function set(body: string): DateReading | null {
     const p = left === '' ? undefined : parsePoint(left, false);
     const q = right === '' ? undefined : dots < 0 ? p : parsePoint(right, false);
     if (p === null || q === null) return null;
-    if (typeof p === 'string') return invalid(p, HINT);
-    if (typeof q === 'string') return invalid(q, HINT);
-    if (p !== undefined && q !== undefined && p.minKey > q.maxKey) return invalid(`impossible set member ${part}: ends before it starts`, HINT);
+    if (typeof p === 'string') return impossible(p, HINT);
+    if (typeof q === 'string') return impossible(q, HINT);
+    if (p !== undefined && q !== undefined && p.minKey > q.maxKey) return impossible(`impossible set member ${part}: ends before it starts`, HINT);
     start = Math.min(start, p === undefined ? -Infinity : p.minYear - widen(p));
     end = Math.max(end, q === undefined ? Infinity : q.maxYear + widen(q));
     approx ||= estimated(p) || estimated(q);

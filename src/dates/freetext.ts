@@ -1,5 +1,5 @@
 // Cataloguers' free-text dates (1475, ca. 1480, 1470-90, 1470s, before 1500) → an interval of years.
-import { type DateForm, type DateReading, type IntervalReading, LATEST_YEAR, invalid } from './types.js';
+import { type DateForm, type DateReading, type IntervalReading, LATEST_YEAR, impossible } from './types.js';
 import { BEFORE_AFTER_WIDTH, tolerance } from './calendar.js';
 
 const A = '(?:circa|ca\\.?|c\\.?|approx\\.?|approximately|about|around|~)';
@@ -21,7 +21,7 @@ export function interval(start: number, end: number, form: DateForm, approximate
 }
 
 function future(y: number): DateReading {
-  return invalid(`impossible year ${y}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error');
+  return impossible(`impossible year ${y}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error');
 }
 
 /**
@@ -36,7 +36,7 @@ export function parseYearForms(s: string, approx: boolean, uncertain: boolean): 
   if (m !== null) {
     const n = Number(m[1]), era = m[2];
     if (era === undefined && m[1].length < 3) return null; // "90" is not a year we dare read
-    if (n === 0 && era !== undefined) return invalid('impossible year 0: AD/BC counting has no year 0', 'write 1 BC or 1 AD');
+    if (n === 0 && era !== undefined) return impossible('impossible year 0: AD/BC counting has no year 0', 'write 1 BC or 1 AD');
     const y = era !== undefined && era.startsWith('b') ? 1 - n : n;
     if (y > LATEST_YEAR) return future(y);
     const w = approx ? tolerance(1) : 0;
@@ -76,7 +76,7 @@ function range(m: RegExpExecArray, approx: boolean, uncertain: boolean): DateRea
   if (endText.length < startText.length) { const unit = 10 ** endText.length; end += start - (start % unit); }
   const endLast = s2 !== undefined ? end + 9 : end;
   if (endLast < start) {
-    return invalid(`impossible range ${startText}-${endText}: ends before it starts`, 'put the earlier year first (1470-1490)');
+    return impossible(`impossible range ${startText}-${endText}: ends before it starts`, 'put the earlier year first (1470-1490)');
   }
   if (start > LATEST_YEAR || endLast > LATEST_YEAR) return future(Math.max(start, endLast));
   const w1 = approx || a1 !== undefined ? tolerance(s1 !== undefined ? 10 : 1) : 0;

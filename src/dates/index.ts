@@ -1,11 +1,11 @@
-// Catalogued date text → an interval of astronomical years (or empty / invalid); two readings → agreement.
-import { type CenturyConvention, type DateReading, type IntervalReading, EMPTY, LATEST_YEAR, invalid } from './types.js';
+// Catalogued date text → an interval of astronomical years (or empty / impossible / unread); two readings → agreement.
+import { type CenturyConvention, type DateReading, type IntervalReading, EMPTY, LATEST_YEAR, impossible, unread } from './types.js';
 import { parseEdtf } from './edtf.js';
 import { APPROX_PREFIX, HINT, interval, parseYearForms } from './freetext.js';
 import { parseCentury } from './century.js';
 import { type DateLanguage, DATE_LANGUAGES, canonicalPhrase } from './languages.js';
 
-export type { CenturyConvention, DateForm, DateReading, EmptyReading, IntervalReading, InvalidReading, YearSpan } from './types.js';
+export type { CenturyConvention, DateForm, DateReading, EmptyReading, IntervalReading, ImpossibleReading, InvalidReading, UnreadReading, YearSpan } from './types.js';
 export { LATEST_YEAR } from './types.js';
 export { DATE_LANGUAGES, type DateLanguage } from './languages.js';
 export { type DateAgreement, compareDates } from './compare.js';
@@ -26,7 +26,7 @@ const APPROX_SUFFIX = / (?:approx\.?|approximately|circa|ca\.?)$/;
  * ca./c./circa/about/approx. or followed by approx./approximately (widened by `tolerance`) and suffixed with `?` (uncertain). `YYYY-NN` with NN greater
  * than YYYY's last two digits (`1520-22`, `1910-30`) is read as the abbreviated range, which also covers the EDTF
  * month or season reading. Impossible dates (month 13, 31 June, 29 February 1475, range ending before its start,
- * year after LATEST_YEAR, 0th century) are `invalid` with a reason that says so; text we cannot read is `invalid`
+ * year after LATEST_YEAR, 0th century) are `impossible` with a reason naming the broken rule; text we cannot read is `unread`
  * with reason "not a date form we can read". Free text that is not canonical English is then read in the partner's
  * `language` (canonicalPhrase), or, when the partner names none, in every language of DATE_LANGUAGES: one reading
  * if they agree, the hull of the readings if a phrase means different things in different languages (`v. 1480`:
@@ -37,7 +37,7 @@ export function parseDate(text: string, convention: CenturyConvention, language?
   if (t === '') return EMPTY;
   if (YEAR4.test(t)) {
     const y = Number(t);
-    return y > LATEST_YEAR ? invalid(`impossible year ${t}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error')
+    return y > LATEST_YEAR ? impossible(`impossible year ${t}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error')
       : interval(y, y, 'year', false, false);
   }
   const yd = YEAR_DASH_TWO.exec(t);
@@ -46,7 +46,7 @@ export function parseDate(text: string, convention: CenturyConvention, language?
     if (e !== null) return e;
   }
   const s = t.toLowerCase().replace(WHITESPACE, ' ').replace(DASHES, '-');
-  return parseCanonical(s, convention) ?? parsePhrase(s, convention, language) ?? invalid('not a date form we can read', HINT);
+  return parseCanonical(s, convention) ?? parsePhrase(s, convention, language) ?? unread('not a date form we can read', HINT);
 }
 
 /** Distinct phrases read through the language tables, by convention, language and text (bounded; cleared when full). */

@@ -1,4 +1,4 @@
-// The shapes a catalogued date turns into: an interval of years, empty, or invalid with a reason and a hint.
+// The shapes a catalogued date turns into: an interval of years, empty, impossible or unread (each with a reason and a hint).
 import type { CenturyConvention } from '../model.js';
 
 export type { CenturyConvention };
@@ -37,14 +37,27 @@ export interface EmptyReading {
   readonly kind: 'empty';
 }
 
-/** `reason` names what is wrong; impossible dates say "impossible" (or name the broken rule), unreadable ones do not. */
-export interface InvalidReading {
-  readonly kind: 'invalid';
+/**
+ * A date that breaks a rule of the calendar or of order (month 13, 31 April, a range that ends before it starts, a
+ * year after LATEST_YEAR, a 0th century): bad input. `reason` names the broken rule.
+ */
+export interface ImpossibleReading {
+  readonly kind: 'impossible';
   readonly reason: string;
   readonly hint: string;
 }
 
-export type DateReading = IntervalReading | EmptyReading | InvalidReading;
+/** Text that is no date form we read ("undated", "Renaissance"): kept as catalogued, left out of date comparisons. */
+export interface UnreadReading {
+  readonly kind: 'unread';
+  readonly reason: string;
+  readonly hint: string;
+}
+
+/** Impossible or unread: the text gives no interval. */
+export type InvalidReading = ImpossibleReading | UnreadReading;
+
+export type DateReading = IntervalReading | EmptyReading | ImpossibleReading | UnreadReading;
 
 /**
  * Latest year a catalogued date may name. A fixed constant, not the clock, so readings are deterministic.
@@ -55,6 +68,10 @@ export const LATEST_YEAR = 2100;
 
 export const EMPTY: EmptyReading = Object.freeze({ kind: 'empty' });
 
-export function invalid(reason: string, hint: string): InvalidReading {
-  return { kind: 'invalid', reason, hint };
+export function impossible(reason: string, hint: string): ImpossibleReading {
+  return { kind: 'impossible', reason, hint };
+}
+
+export function unread(reason: string, hint: string): UnreadReading {
+  return { kind: 'unread', reason, hint };
 }

@@ -1,15 +1,12 @@
 // Units of quads → JSON-LD 1.1 graph objects of framed nodes (a JSON-LD dataset), and the streamed .jsonld file around them.
-import { readFileSync } from 'node:fs';
-import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import type { Quad } from '@rdfjs/types';
 import type { Unit } from '../rdf/index.js';
+import { JSONLD_CONTEXT } from '../rdf/jsonld.js';
 import { iri } from '../namespaces.js';
 import { ContextTables } from './jsonld-context.js';
 import { frameQuads } from './jsonld-frame.js';
 
-export const CONTEXT_FILE = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'vocab-map', 'context.jsonld');
-const context = JSON.parse(readFileSync(CONTEXT_FILE, 'utf8'))['@context'];
+const context = JSONLD_CONTEXT;
 
 /** Frame per unit kind (JSON-LD 1.1 Framing §2.3): top-level node types; the rest is embedded once where referenced. */
 const FRAME_TYPES: Record<Unit['kind'], string[]> = {
@@ -87,5 +84,3 @@ export class JsonLdFile {
     this.write(JsonLdFile.tail);
   }
 }
-
-export { context as JSONLD_CONTEXT };

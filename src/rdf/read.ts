@@ -5,7 +5,7 @@ import { extname } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import N3 from 'n3';
 import { UserError } from '../errors.js';
-import { jsonldToNQuads } from './jsonld-read.js';
+import { jsonldToNQuads } from './jsonld.js';
 import { FORMATS } from './formats.js';
 
 /** Extension → parser input format, from the format table (RDF 1.1 Turtle, N-Triples, N-Quads, TriG; JSON-LD 1.1). */

@@ -3,19 +3,12 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { createReadStream, existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import path from 'node:path';
-import { UserError } from '../errors.js';
 import { docOf, routeOf, safeSegment, ROUTES, type ShardWidths } from '../site/routes.js';
 import { negotiate, REPRESENTATIONS, FILE_TYPES } from '../site/negotiate.js';
 import { SECURITY_HEADERS, CACHE } from '../site/rules.js';
+import { readManifest, type SiteManifest } from '../site/manifest.js';
 
-export interface SiteManifest { base: string; version: string; dataset: string; widths: ShardWidths }
-
-/** Reads site.json of a folder written by `concordat site`. */
-export function readManifest(site: string): SiteManifest {
-  const f = path.join(site, 'site.json');
-  if (!existsSync(f)) throw new UserError({ file: site, line: 0, field: 'site', message: 'not a site folder (no site.json)', hint: 'name a folder written by concordat site' });
-  return JSON.parse(readFileSync(f, 'utf8')) as SiteManifest;
-}
+export type { SiteManifest };
 
 /** Route kinds whose 303 names the resource as a fragment of its document (as the generated rules do). */
 const FRAGMENT_KINDS = new Set(ROUTES.filter((r) => r.shardFolder || r.pattern.includes('(?:/.*)?')).map((r) => r.kind));

@@ -12,6 +12,18 @@ const { namedNode, literal, blankNode, quad } = N3.DataFactory;
 const term = (o: Term) => (o.kind === 'iri' ? namedNode(o.value) : o.kind === 'bnode' ? blankNode(o.value) : literal(o.value, o.language ?? (o.datatype ? namedNode(o.datatype) : undefined)));
 const toQuad = (st: Statement) => quad(namedNode(st.s), namedNode(st.p), term(st.o));
 
+const cache = new WeakMap<SiteContext, Quad[]>();
+/** The quads of dataset.ttl a citation reads: the dataset, its publisher, the partner datasets (not the linksets or files). */
+function releaseQuads(ctx: SiteContext): Quad[] {
+  let q = cache.get(ctx);
+  if (!q) {
+    const keep = new Set([ctx.info.dataset, ctx.info.publisher?.iri, ...[...ctx.info.partners.values()].map((p) => p.iri)]);
+    q = (ctx.info.quads as Quad[]).filter((x) => keep.has(x.subject.value));
+    cache.set(ctx, q);
+  }
+  return q;
+}
+
 /** Citation formats shown on a cluster page, each with the label of its copy button (one row per format). */
 export const CITATION_FORMATS: readonly { id: string; label: string; render: (c: Citation) => string }[] = [
   { id: 'text', label: 'Plain text', render: citationText },
@@ -29,7 +41,7 @@ export function clusterCitation(ctx: SiteContext, clusterIri: string, statements
   if (links.length === 0) return null;
   const store = new N3.Store();
   store.addQuads(statements.map(toQuad));
-  store.addQuads(ctx.info.quads as Quad[]);
+  store.addQuads(releaseQuads(ctx));
   const seen = new Set<string>();
   const want = (x: string) => {
     if (seen.has(x)) return;

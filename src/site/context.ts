@@ -76,8 +76,21 @@ export class SiteContext {
   /** A link from the page of `fromDoc` to the HTML document describing `x` (the IRI itself when it is not minted here). */
   href(x: string, fromDoc: string): string {
     const at = this.locate(x);
-    if (!at) return x;
+    if (!at || !this.hasDoc(x)) return x;
     return `${rootOf(fromDoc)}${at.doc.split('/').map(encodeURIComponent).join('/')}.html${at.fragment ? `#${at.fragment.split('/').map(encodeURIComponent).join('/')}` : ''}`;
+  }
+
+  /** Documents known to be in this site beyond the release's own (carried over from an earlier site). */
+  readonly carried = new Set<string>();
+  /**
+   * Whether the document of a minted IRI is in the site. Every document of the release is, except the datasets of
+   * other releases (`dcat:previousVersion`, the release activity's `prov:used`): those only when carried over.
+   */
+  hasDoc(x: string): boolean {
+    const at = this.locate(x);
+    if (!at) return false;
+    const route = routeOf(decodeURIComponent(x.slice(this.info.base.length)));
+    return route?.kind !== 'dataset' || x.startsWith(this.info.dataset) || this.carried.has(at.doc);
   }
 
   /** A short human name: rdfs:label of runs, agents and curators; else the last path segment or compact IRI. */

@@ -65,6 +65,7 @@ export function page(p: PageInput): string {
 <meta name="viewport" content="width=device-width, initial-scale=1">
 <title>${p.title} · ${p.siteTitle}</title>
 <link rel="stylesheet" href="${root}assets/site.css">
+<link rel="icon" href="${root}assets/icon.svg" type="image/svg+xml">
 ${alts.map((a) => html`<link rel="alternate" type="${a.type}" href="${a.href}" title="${a.label}">
 `)}<script src="${root}assets/site.js" defer></script>
 </head>

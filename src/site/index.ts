@@ -1,6 +1,6 @@
 // Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
-import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync } from 'node:fs';
+import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync, existsSync } from 'node:fs';
 import path from 'node:path';
 import { writeFolderAtomically } from '../io/atomic.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
@@ -13,12 +13,13 @@ import { jsonldDocument, jsonldNodes } from './jsonld.js';
 import { page, html, Safe } from './html.js';
 import { Spool } from './spool.js';
 import { clusterPage } from './pages/cluster.js';
-import { linkSection, matchSection, genericSection } from './pages/entries.js';
+import { linkSection, matchSection, genericSection, MATCH_TABLE_HEAD, MATCH_TABLE_TAIL } from './pages/entries.js';
 import { genericPage } from './pages/generic.js';
 import { datasetSummary } from './pages/dataset.js';
 import { SearchIndex } from './search.js';
 import { writeStaticPages } from './pages/static.js';
 import { serverRules } from './rules.js';
+import { readEarlierSite, carryDocuments, earlierLinks } from './carry.js';
 
 export interface SiteSummary {
   out: string;
@@ -26,7 +27,9 @@ export interface SiteSummary {
   version: string;
   documents: number;
   files: number;
+  /** Bytes of the site without the downloads (the release's own files, hard-linked under releases/). */
   bytes: number;
+  downloadBytes: number;
   widths: ShardWidths;
 }
 
@@ -56,12 +59,15 @@ const ntOf = (sts: readonly Statement[]) => sts.map((s) => s.nt).join('');
  * matches and reviews spooled to disk by hash prefix and written as shard documents afterwards), so memory holds one
  * cluster, the shared provenance and one spool file at a time. Written to a temp folder renamed at the end.
  */
-export async function writeSite(release: string, out: string): Promise<SiteSummary> {
+export async function writeSite(release: string, out: string, opts: { previous?: string } = {}): Promise<SiteSummary> {
   const info = await readSiteInfo(release);
+  const earlier = opts.previous ? readEarlierSite(opts.previous, info.base) : undefined;
   const nq = path.join(release, RELEASE_FILES.nquads);
   return writeFolderAtomically(out, async (dir) => {
     const ctx = new SiteContext(info);
     ctx.widths = widthsFor(statSync(nq).size);
+    for (const d of earlier?.ownDocs ?? []) ctx.carried.add(d);
+    const linkHashes = new Set<string>();
     const spoolDir = path.join(dir, '.spool');
     const spool = new Spool(spoolDir);
     const docs = new DocWriter(dir);
@@ -72,6 +78,7 @@ export async function writeSite(release: string, out: string): Promise<SiteSumma
 
     const spoolLink = (l: LinkEntry, cluster: string | null) => {
       const doc = shardDoc('link', l.hash);
+      linkHashes.add(l.hash);
       spool.add(`link-${l.hash.slice(0, 2)}`, [l.hash, ntOf(l.statements), jsonldNodes(l.statements), linkSection(ctx, l, doc, cluster)]);
       for (const m of l.matches) spoolEntry(m, l.iri);
     };
@@ -120,6 +127,17 @@ export async function writeSite(release: string, out: string): Promise<SiteSumma
       docs.write(doc, ntOf(d.statements), [jsonldNodes(d.statements)], genericPage(ctx, doc, d.kind, d.statements, extra));
     }
 
+    // Claims of an earlier site that this release no longer describes: kept as that site described them.
+    if (earlier) {
+      for (const e of earlierLinks(earlier, info.base)) {
+        if (linkHashes.has(e.hash)) continue;
+        const entry: LinkEntry = { kind: 'link', hash: e.hash, iri: `${info.base}link/${e.hash}`, statements: e.statements, matches: [] };
+        const note = `<p class="aside">This claim is not in release ${info.version}; it is shown as the site of release ${earlier.version} described it.</p>\n`;
+        spool.add(`link-${e.hash.slice(0, 2)}`, [e.hash, ntOf(e.statements), jsonldNodes(e.statements), linkSection(ctx, entry, shardDoc('link', e.hash), null).replace(/(<\/h2>\n)/, `$1${note}`)]);
+      }
+      spool.close();
+    }
+
     // Shard documents: every spool bucket holds whole shards when the width is 2 or more; width 1 joins 16 buckets.
     for (const rule of ROUTES.filter((r) => r.shardFolder)) {
       const kind = rule.kind;
@@ -135,14 +153,15 @@ export async function writeSite(release: string, out: string): Promise<SiteSumma
           const doc = `${rule.shardFolder}/${key}`;
           const label = kind === 'link' ? 'Claims' : kind === 'match' ? 'Image matches' : 'Curator reviews';
           const main = html`<p>${rs.length} ${label.toLowerCase()} whose identifier begins with <code>${key}</code>.</p>
-<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
-${rs.map((r) => new Safe(r[3]))}`;
+${kind === 'match' ? new Safe(MATCH_TABLE_HEAD + rs.map((r) => r[3]).join('') + MATCH_TABLE_TAIL) : html`<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
+${rs.map((r) => new Safe(r[3]))}`}`;
           const text = page({ doc, title: `${label} ${key}…`, siteTitle: info.title, alternates: true, main: html`${main}`, licence: info.licence });
           docs.write(doc, rs.map((r) => r[1]).join(''), rs.map((r) => r[2]), text);
         }
       }
     }
     search.finish(dir);
+    if (earlier) carryDocuments(earlier, dir);
     writeStaticPages(ctx, dir, own);
     const downloads = path.join(dir, 'releases', info.version);
     for (const f of info.files) {
@@ -157,8 +176,8 @@ ${rs.map((r) => new Safe(r[3]))}`;
     // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700
     const mask = process.umask();
     chmodSync(dir, 0o755 & ~mask);
-    const { files, bytes } = measure(dir);
-    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files, bytes, widths: ctx.widths };
+    const all = measure(dir), dl = measure(path.join(dir, "releases"));
+    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files: all.files, bytes: all.bytes - dl.bytes, downloadBytes: dl.bytes, widths: ctx.widths };
   });
 }
 
@@ -166,6 +185,7 @@ ${rs.map((r) => new Safe(r[3]))}`;
 function measure(dir: string): { files: number; bytes: number } {
   let files = 0, bytes = 0;
   const walk = (d: string) => {
+    if (!existsSync(d)) return;
     for (const e of readdirSync(d, { withFileTypes: true })) {
       const p = path.join(d, e.name);
       if (e.isDirectory()) walk(p);

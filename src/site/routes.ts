@@ -79,6 +79,7 @@ export function relPath(iri: string, base: string): string | null {
   const raw = iri.slice(base.length);
   if (/[?#]/.test(raw)) return null;
   let rel: string;
-  try { rel = raw.split('/').map(decodeURIComponent).join('/'); } catch { return null; }
+  if (!raw.includes('%')) rel = raw;
+  else try { rel = raw.split('/').map(decodeURIComponent).join('/'); } catch { return null; }
   return rel.split('/').every(safeSegment) ? rel : null;
 }

@@ -12,16 +12,28 @@ export const SECURITY_HEADERS: Record<string, string> = {
 /** Cache lifetimes: documents may change with the next release (an hour); the 303s are per release too. */
 export const CACHE = { document: 'public, max-age=3600', redirect: 'public, max-age=3600' };
 
-/** One regex per route kind over the path after the base; group 1 the whole relative path, group 2 the document. */
-export function routePatterns(widths: ShardWidths): { kind: string; regex: string; doc: string; fragment: boolean }[] {
+/**
+ * One regex per route kind over the path after the base: group 1 (`rel`) the whole relative path, group 2 (`doc`)
+ * the document part; `named` uses named groups, because nginx's map with regexes resets numbered captures.
+ */
+export function routePatterns(widths: ShardWidths): { kind: string; regex: string; named: string; doc: string; namedDoc: string; fragment: boolean }[] {
   return ROUTES.map((r) => {
+    let regex: string, named: string, doc: string, namedDoc: string;
     if (r.shardFolder) {
       const k = widths[r.kind] ?? 1;
-      const tail = r.pattern.replace(/^\^[^(]*\(\[0-9a-f\]\+\)/, '');
-      return { kind: r.kind, regex: `^(${r.shardFolder}/([0-9a-f]{${k}})[0-9a-f]*${tail.replace(/\$$/, '')})$`, doc: `${r.shardFolder}/$2`, fragment: true };
+      const tail = r.pattern.replace(/^\^[^(]*\(\[0-9a-f\]\+\)/, '').replace(/\$$/, '');
+      regex = `^(${r.shardFolder}/([0-9a-f]{${k}})[0-9a-f]*${tail})$`;
+      named = `^(?<rel>${r.shardFolder}/(?<doc>[0-9a-f]{${k}})[0-9a-f]*${tail})$`;
+      doc = `${r.shardFolder}/$2`;
+      namedDoc = `${r.shardFolder}/$doc`;
+    } else {
+      const inner = r.pattern.replace(/^\^/, '').replace(/\$$/, '');
+      regex = `^(${inner})$`;
+      named = `^(?<rel>${inner.replace(/^\(/, '(?<doc>')})$`;
+      doc = '$2';
+      namedDoc = '$doc';
     }
-    const inner = r.pattern.replace(/^\^/, '').replace(/\$$/, '');
-    return { kind: r.kind, regex: `^(${inner})$`, doc: '$2', fragment: inner.includes('(?:/.*)?') };
+    return { kind: r.kind, regex, named, doc, namedDoc, fragment: !!r.shardFolder || r.pattern.includes('(?:/.*)?') };
   });
 }
 
@@ -44,8 +56,8 @@ map $http_accept $concordat_ext {
 }
 `;
   const redirects = routePatterns(widths).map((r) => `    # ${r.kind}
-    location ~ "^${P}${r.regex.slice(1)}" {
-        return 303 ${P}${r.doc}.$concordat_ext${r.fragment ? '#$1' : ''};
+    location ~ "^${P}${r.named.slice(1)}" {
+        return 303 ${P}${r.namedDoc}.$concordat_ext${r.fragment ? '#$rel' : ''};
 ${nginxHeaders({ Vary: 'Accept', 'Cache-Control': CACHE.redirect })}
     }`).join('\n');
   const server = `# concordat site rules for ${base}: include in a server { } block whose root holds this folder at ${P}.

@@ -39,6 +39,7 @@ export class SearchIndex {
   /** Writes `search/<prefix>.json`: `{ token: [[id, title, archive, href], …] }`, tokens and records sorted. */
   finish(dir: string): void {
     mkdirSync(path.join(dir, 'search'), { recursive: true });
+    const keys: string[] = [];
     for (const first of '_0123456789abcdefghijklmnopqrstuvwxyz') {
       const rows = this.spool.read(`search-${first}`) as string[][];
       const shards = new Map<string, Map<string, string[][]>>();
@@ -56,7 +57,10 @@ export class SearchIndex {
           obj[t] = { n: list.length, r: list.slice(0, MAX_POSTINGS) };
         }
         writeFileSync(path.join(dir, 'search', `${key}.json`), JSON.stringify(obj));
+        keys.push(key);
       }
     }
+    // the prefix files that exist, so the browser asks for no other
+    writeFileSync(path.join(dir, 'search', 'prefixes.json'), JSON.stringify(keys.sort()));
   }
 }

@@ -4,7 +4,7 @@ import { spawnSync } from 'node:child_process';
 import { readFileSync } from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import N3 from 'n3';
-import { jsonldToNQuads } from '../../src/rdf/jsonld-read.js';
+import { jsonldToNQuads } from '../../src/rdf/jsonld.js';
 
 export type DumpFormat = 'turtle' | 'nquads' | 'jsonld';
 
@@ -16,7 +16,7 @@ export function formatOf(file: string): DumpFormat {
   throw new Error(`not an RDF dump: ${file}`);
 }
 
-/** Parses a dump with our own stack: n3 for Turtle and N-Quads, jsonld.js toRdf (via src/rdf/jsonld-read.ts) for JSON-LD. */
+/** Parses a dump with our own stack: n3 for Turtle and N-Quads, jsonld.js toRdf (via src/rdf/jsonld.ts) for JSON-LD. */
 export async function ourQuads(file: string): Promise<N3.Quad[]> {
   const text = readFileSync(file, 'utf8');
   const format = formatOf(file);

@@ -6,7 +6,7 @@ import N3 from 'n3';
 import { build } from '../../src/pipeline.js';
 import { writeSite } from '../../src/site/index.js';
 import { streamRdfFile } from '../../src/rdf/read.js';
-import { jsonldToNQuads } from '../../src/rdf/jsonld-read.js';
+import { jsonldToNQuads } from '../../src/rdf/jsonld.js';
 import { relPath, routeOf } from '../../src/site/routes.js';
 import { repoRoot, tempDir } from './fixture.js';
 
@@ -24,7 +24,7 @@ export function demoSitesOnce(): Promise<DemoSites> {
     await build(path.join(demo, 'release-2', 'concordance.json'), release2, { previous: release1 });
     const site1 = path.join(tmp, 'site', '2026.1'), site2 = path.join(tmp, 'site', '2027.1');
     await writeSite(release1, site1);
-    await writeSite(release2, site2);
+    await writeSite(release2, site2, { previous: site1 });
     return { tmp, release1, release2, site1, site2 };
   })();
   return demoSites;

@@ -23,7 +23,12 @@
   }
   function shard(t) { return t.slice(0, 2).replace(/[^a-z0-9]/g, '_'); }
   var cache = {};
+  var prefixes = null;
   function load(key) {
+    if (!prefixes) prefixes = fetch(form.getAttribute('data-index') + 'prefixes.json').then(function (r) { return r.ok ? r.json() : []; }, function () { return []; });
+    return prefixes.then(function (keys) { return keys.indexOf(key) < 0 ? {} : shardFile(key); });
+  }
+  function shardFile(key) {
     if (!cache[key]) cache[key] = fetch(form.getAttribute('data-index') + key + '.json').then(function (r) { return r.ok ? r.json() : {}; }, function () { return {}; });
     return cache[key];
   }

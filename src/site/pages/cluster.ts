@@ -6,6 +6,9 @@ import type { ClusterUnit } from '../group.js';
 import { CITATION_FORMATS, clusterCitation } from '../citation.js';
 import { assertion, matchTable, status, workName, workView, type WorkView } from './parts.js';
 
+/** Archive key and record ID: the records table above gives titles and dates. */
+const shortName = (w: WorkView) => html`${w.partner} <bdi class="recid">${w.id}</bdi>`;
+
 const relOf = (x: string) => x.replace(/^.*?\/(work\/)/, '$1');
 
 /** The HTML of a cluster's document (`work/<id>.html`). */
@@ -57,7 +60,7 @@ ${groups.get(name)!.map((w) => html`<tr id="${w.iri}"><td class="recid">${text(w
 function claimsSection(ctx: SiteContext, links: Node[], wv: (x?: string) => WorkView | undefined, doc: string): Safe {
   return html`<section aria-labelledby="claims"><h2 id="claims">Claims between the records</h2>
 <table class="claims"><thead><tr><th scope="col">Records</th><th scope="col">Relation</th><th scope="col">Status</th><th scope="col" class="num">Score</th><th scope="col" class="num">Matching photographs</th><th scope="col">Asserted by, when</th></tr></thead><tbody>
-${links.map((l) => { const s = wv(l.one(V.subjectWork)), o = wv(l.one(V.objectWork)); return html`<tr><td>${s ? workName(s) : ''} — ${o ? workName(o) : ''}<br><a href="${ctx.href(l.iri, doc)}" class="small">claim ${l.iri.replace(/^.*\//, '')}</a></td><td>${l.one(V.relation) ? curie(l.one(V.relation)!) : html`<span class="none">no claim triple</span>`}</td><td>${status(l.one(V.status))}${l.one(V.invalidatedBy) ? html` <span class="status status-withdrawn">withdrawn</span>` : ''}</td><td class="num">${l.one(V.score) ?? ''}</td><td class="num">${l.one(V.support) ?? '0'}</td><td>${assertion(ctx, l, doc)}</td></tr>
+${links.map((l) => { const s = wv(l.one(V.subjectWork)), o = wv(l.one(V.objectWork)); return html`<tr><td><a href="${ctx.href(l.iri, doc)}">${s ? shortName(s) : ''} — ${o ? shortName(o) : ''}</a></td><td>${l.one(V.relation) ? curie(l.one(V.relation)!) : html`<span class="none">no claim triple</span>`}</td><td>${status(l.one(V.status))}${l.one(V.invalidatedBy) ? html` <span class="status status-withdrawn">withdrawn</span>` : ''}</td><td class="num">${l.one(V.score) ?? ''}</td><td class="num">${l.one(V.support) ?? '0'}</td><td>${assertion(ctx, l, doc)}</td></tr>
 `; })}</tbody></table></section>`;
 }
 
@@ -90,8 +93,8 @@ ${earlier.map((e) => { const s = wv(e.one(V.subjectWork)), o = wv(e.one(V.object
 
 function citeSection(c: NonNullable<ReturnType<typeof clusterCitation>>): Safe {
   return html`<section aria-labelledby="cite"><h2 id="cite">Cite these claims</h2>
-${CITATION_FORMATS.map((f) => html`<div class="citation"><h3 id="cite-${f.id}-h">${f.label}</h3>
-<button type="button" class="copy" data-copy="cite-${f.id}" hidden>Copy ${f.label.toLowerCase()} citation</button>
-<pre id="cite-${f.id}" tabindex="0" aria-labelledby="cite-${f.id}-h">${f.render(c)}</pre></div>
+${CITATION_FORMATS.map((f, i) => html`<div class="citation"><button type="button" class="copy" data-copy="cite-${f.id}" hidden>Copy the ${f.label.toLowerCase()} citation</button>
+<details${i === 0 ? ' open' : ''}><summary id="cite-${f.id}-h">${f.label}</summary>
+<pre id="cite-${f.id}" tabindex="0" aria-labelledby="cite-${f.id}-h">${f.render(c)}</pre></details></div>
 `)}</section>`;
 }

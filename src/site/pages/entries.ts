@@ -25,21 +25,20 @@ ${n && current ? html`<h3>Provenance</h3><p>Asserted by ${assertion(ctx, n, doc)
 <h3>Evidence chain</h3>
 ${matchTable(ctx, ms, doc, `Image matches behind claim ${l.hash}`)}
 ${states.length ? html`<h3>Earlier states</h3>${states.map((x) => html`<section id="${rel(ctx, x.iri)}" class="state"><h4>As published in release ${decodeURIComponent(x.iri.replace(/^.*\/v\//, ''))}</h4>${statementList(ctx, x, doc)}</section>`)}` : ''}
-<details><summary>All statements about this claim</summary>${n ? statementList(ctx, n, doc) : ''}</details>
 </article>
 `.text;
 }
 
-/** An image match's section: photographs, score, overlap, run, and the claim it is evidence for. */
+/** The head of the table of a match shard page; each match is one row of it (a million matches: no more markup than needed). */
+export const MATCH_TABLE_HEAD = '<table class="evidence"><caption>Image matches: photographs, score, overlap, run, and the claim each is evidence for</caption>\n<thead><tr><th scope="col">Match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th><th scope="col">Run</th><th scope="col">Claim</th></tr></thead><tbody>\n';
+export const MATCH_TABLE_TAIL = '</tbody></table>\n';
+
+/** An image match's row: its photographs, score, overlap, run, and the claim it is evidence for. */
 export function matchSection(ctx: SiteContext, m: Entry, doc: string, link: string | null): string {
   const n = nodesOf(m.statements).get(m.iri);
   if (!n) return '';
-  return html`<article class="entry" id="${rel(ctx, m.iri)}" aria-labelledby="h-${m.hash}">
-<h2 id="h-${m.hash}">Image match ${m.hash}</h2>
-<p class="iri">Identifier: <code>${m.iri}</code></p>
-${link ? html`<p>Evidence for the claim <a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>.</p>` : ''}
-${statementList(ctx, n, doc)}
-</article>
+  const run = n.one(V.generatedBy);
+  return html`<tr id="${rel(ctx, m.iri)}"><th scope="row"><code>${m.hash}</code></th><td><code>${n.one(V.sourceImage)}</code></td><td><code>${n.one(V.targetImage)}</code></td><td class="num">${n.one(V.score)}</td><td class="num">${n.one(V.overlap)}</td><td>${run ? html`<a href="${ctx.href(run, doc)}">${run.replace(/^.*\//, '')}</a>` : ''}</td><td>${link ? html`<a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>` : ''}</td></tr>
 `.text;
 }
 

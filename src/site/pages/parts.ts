@@ -40,16 +40,18 @@ export function assertion(ctx: SiteContext, link: Node, doc: string): Safe {
   return parts.length ? html`${parts.map((p, i) => html`${i ? '; ' : ''}${p}`)}` : html`<span class="none">not recorded</span>`;
 }
 
-/** The image pairs behind a link: source and target photograph, score, overlap, run. */
+/** The image pairs behind a link: photograph A and B, score, overlap (the run is named once, under the table). */
 export function matchTable(ctx: SiteContext, matches: Node[], doc: string, caption: string): Safe {
   if (!matches.length) return html`<p>No image-match evidence.</p>`;
+  const runs = [...new Set(matches.map((m) => m.one(V.generatedBy)).filter((x): x is string => !!x))];
   return html`<table class="evidence">
 <caption>${caption}</caption>
-<thead><tr><th scope="col">Image match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th><th scope="col">Run</th></tr></thead>
+<thead><tr><th scope="col">Match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th></tr></thead>
 <tbody>
-${matches.map((m) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.replace(/^.*\//, '')}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td><td>${m.one(V.generatedBy) ? html`<a href="${ctx.href(m.one(V.generatedBy)!, doc)}">${text(ctx.label(m.one(V.generatedBy)!))}</a>` : ''}</td></tr>
+${matches.map((m) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td></tr>
 `)}</tbody>
-</table>`;
+</table>
+${runs.length ? html`<p class="small">Matched by ${runs.map((r, i) => html`${i ? ', ' : ''}<a href="${ctx.href(r, doc)}">${text(ctx.label(r))}</a>`)}.</p>` : ''}`;
 }
 
 /** Every statement of a node as a definition list (the generic view of a resource). */

@@ -13,7 +13,7 @@ const here = path.dirname(fileURLToPath(import.meta.url));
 /** The shipped vocabulary (vocab-map/cx.ttl) and the page assets (src/site/assets, copied as they are). */
 export const VOCAB_FILE = path.resolve(here, '..', '..', '..', '..', 'vocab-map', 'cx.ttl');
 export const ASSETS_DIR = path.resolve(here, '..', '..', '..', '..', 'src', 'site', 'assets');
-export const ASSETS = ['site.css', 'site.js'];
+export const ASSETS = ['site.css', 'site.js', 'icon.svg'];
 
 export function writeStaticPages(ctx: SiteContext, dir: string, own: Map<string, { kind: DocKind; statements: Statement[] }>): void {
   const i = ctx.info;
