@@ -4,7 +4,8 @@ import { build } from '../src/pipeline.js';
 import { load } from '../src/load/index.js';
 import { UserError, EXIT } from '../src/errors.js';
 import { validate, type ShaclEngine } from '../src/validate/shacl.js';
-import { loadDataFiles, loadShapesFolder, defaultShapesDir } from '../src/validate/files.js';
+import { loadDataFiles, loadShapesFolder, defaultShapesDir, streamDataFiles } from '../src/validate/files.js';
+import { BoundedValidation } from '../src/validate/bounded.js';
 
 type Job = (args: string[]) => Promise<Record<string, number>>;
 
@@ -49,6 +50,15 @@ const JOBS: Record<string, Job> = {
     const t1 = performance.now();
     const outcome = await validate(store, shapes, { engine: engine as ShaclEngine });
     return { loadMs: t1 - t0, validateMs: performance.now() - t1, triples: store.size, violations: outcome.violations };
+  },
+  /** validate <file>: what `concordat validate <file>` does, bounded validation of a file with the shipped shapes. */
+  async validate([file]) {
+    const shapes = (await loadShapesFolder(defaultShapesDir())).quads;
+    const t = performance.now();
+    const run = new BoundedValidation(shapes, { dataLabel: file });
+    await streamDataFiles([file], (q) => run.add(q));
+    const outcome = await run.finish();
+    return { ms: performance.now() - t, triples: outcome.triples, violations: outcome.violations };
   },
   /** load <project>: the load stage alone. */
   async load([project]) {

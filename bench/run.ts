@@ -100,6 +100,9 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
   say('  chunked SHACL share (with − without)', `${s(chunkedMs)}, ${rate(triples, chunkedMs)}`);
 
   const nq = path.join(dir, 'release', 'concordance.nq');
+  // `concordat validate` on the release's N-Quads: bounded memory whatever the file's size (target: ≤ 2 GiB at 10M triples)
+  const v = child('validate', [nq]);
+  say('concordat validate concordance.nq: time / peak RSS', v.out ? `${s(v.out.ms)} (CPU ${s(v.cpuMs)}), ${rate(v.out.triples, v.out.ms)} / ${mib(v.peakKiB)}` : `FAILED: ${v.error}`);
 
   if (whole) {
     const w = child('whole', [nq, 'rdf-validate-shacl']);

@@ -62,6 +62,8 @@ export interface Policy {
   indiscriminateAbove: number | null;
   /** Most rows review-queue.csv lists, most useful first; the rest are counted in the report. */
   reviewLimit: number;
+  /** Years two dates of one artwork may lie apart before they are listed as a date conflict (default DATE_TOLERANCE). */
+  dateTolerance?: number;
 }
 
 /** A decisions file as the project names it: `delimiter` absent = detected from the header line. */

@@ -7,7 +7,7 @@ import { cluster } from '../src/cluster/index.js';
 import { analyse, agreement, formatInterval, REVIEW_REASONS } from '../src/analyse/index.js';
 import { percent } from '../src/report/context.js';
 import { workRef, type Model } from '../src/model.js';
-import { tinyModel } from './helpers/model.js';
+import { tinyModel, type TinySpec } from './helpers/model.js';
 
 const run = (m: Model) => {
   const ls = link(m);
@@ -15,25 +15,75 @@ const run = (m: Model) => {
   return { ls, c, a: analyse(m, ls, c) };
 };
 
-test('date conflicts: disjoint intervals conflict, century-counting differences are soft, only inside clusters', () => {
-  const m = tinyModel({
+/** Conflicts as [record, consensus record, years apart, support, against] for reading at a glance. */
+const rows = (m: Model, a: ReturnType<typeof run>['a']) =>
+  a.conflicts.map((x) => [workRef(m, x.work), workRef(m, x.anchor), x.apart, `${x.support}/${x.dated}${x.tie ? ' tie' : ''}`, x.against]);
+
+// The tolerance (policy dateTolerance, default 25 years) is common practice, no source: see DATE_TOLERANCE.
+test('date conflicts: one row per record off its cluster\'s consensus, most years apart first, within the tolerance not listed', () => {
+  const spec: TinySpec = {
     partners: [{ key: 'a', convention: 'ordinal' }, { key: 'b', convention: 'iso' }, { key: 'c', convention: 'unknown' }],
     works: [
-      { ref: 'a:1', date: '1475' }, { ref: 'b:1', date: '1520' }, { ref: 'c:1', date: '15th century' }, { ref: 'c:9', date: '' },
-      { ref: 'a:2', date: '15th century' }, { ref: 'b:2', date: '1500' },
-      { ref: 'a:3', date: '1300' },
+      // cluster 1: four records around 1475, one record two centuries later, one undated
+      { ref: 'a:1', date: '1475' }, { ref: 'b:1', date: 'ca. 1480' }, { ref: 'c:1', date: '15th century' }, { ref: 'c:2', date: '1475' },
+      { ref: 'b:2', date: '17th century' }, { ref: 'c:9', date: '' },
+      // cluster 2: 1500 vs an ordinal 15th century: apart only by how centuries are counted, and 1520 (20 years): none listed
+      { ref: 'a:2', date: '15th century' }, { ref: 'b:3', date: '1500' }, { ref: 'c:3', date: '1520' },
+      // cluster 3: a pair 35 years apart: no majority, both records listed against each other
+      { ref: 'a:3', date: '1465' }, { ref: 'b:4', date: '16th century' },
     ],
-    matches: [['a:1', 'b:1', 0.9], ['b:1', 'c:1', 0.9], ['c:1', 'c:9', 0.9], ['a:2', 'b:2', 0.9], ['a:3', 'b:2', 0.2]],
-  });
-  const { c, a } = run(m);
-  const got = a.conflicts.map((x) => [c.clusters[x.cluster].id, workRef(m, x.a), workRef(m, x.b), x.severity, formatInterval(x.readingA), formatInterval(x.readingB)]);
-  assert.deepEqual(got, [
-    ['c000001', 'a:1', 'b:1', 'conflict', '1475', '1520'],
-    // c:1 "15th century" with the convention unknown reads as the union 1400–1500 (design: centuryConvention)
-    ['c000001', 'b:1', 'c:1', 'conflict', '1520', '1400/1500'],
-    // ordinal 15th century = 1401–1500 holds 1500, the ISO reading 1400–1499 does not: soft
-    ['c000002', 'a:2', 'b:2', 'soft', '1401/1500', '1500'],
+    matches: [
+      ['a:1', 'b:1', 0.9], ['b:1', 'c:1', 0.9], ['c:1', 'c:2', 0.9], ['c:2', 'b:2', 0.9], ['b:2', 'c:9', 0.9],
+      ['a:2', 'b:3', 0.9], ['b:3', 'c:3', 0.9],
+      ['a:3', 'b:4', 0.9],
+    ],
+  };
+  const m = tinyModel(spec);
+  const { a } = run(m);
+  assert.deepEqual(rows(m, a), [
+    // 17th century (ISO at b: 1600–1699) against the consensus span 1400–1500 of the other four: 100 years
+    ['b:2', 'a:1', 100, '4/5', 'cluster'], // anchor: 1475, the reading two of the four give
+    ['a:3', 'b:4', 35, '1/2 tie', 'cluster'], // 1465 against 1500–1599
+    ['b:4', 'a:3', 35, '1/2 tie', 'cluster'],
   ]);
+  const strict = tinyModel({ ...spec, policy: { dateTolerance: 0 } });
+  assert.deepEqual(rows(strict, run(strict).a).map((r) => r.slice(0, 3)), [
+    ['b:2', 'a:1', 100], ['a:3', 'b:4', 35], ['b:4', 'a:3', 35],
+    ['c:3', 'a:2', 20], // with no tolerance, 1520 is 20 years off the 1401–1500 / 1500 consensus
+  ]);
+  const wide = tinyModel({ ...spec, policy: { dateTolerance: 100 } });
+  assert.deepEqual(rows(wide, run(wide).a), []);
+});
+
+test('date conflicts: a detail is checked against the work it is part of', () => {
+  const m = tinyModel({
+    partners: ['a', 'b'],
+    works: [
+      { ref: 'a:1', date: '1480' }, { ref: 'b:1', date: 'ca. 1480' }, // the whole, in a cluster
+      { ref: 'a:7', date: '1620' }, // a detail of it, dated 140 years later
+      { ref: 'b:7', date: '1490' }, // another detail, within the tolerance
+      { ref: 'b:8', date: '1700' }, { ref: 'a:8', date: '1300' }, // a detail and its whole in no cluster
+    ],
+    // overlap 0.5 < partOverlapBelow 0.7: a partial match, image_a is the detail
+    matches: [['a:1', 'b:1', 0.9], ['a:7', 'b:1', 0.8, 0.5], ['b:7', 'a:1', 0.8, 0.5], ['b:8', 'a:8', 0.8, 0.5]],
+  });
+  const { a } = run(m);
+  assert.deepEqual(rows(m, a), [
+    ['b:8', 'a:8', 400, '1/1', 'whole'],
+    ['a:7', 'a:1', 130, '2/2', 'whole'], // 1620 against the whole's cluster consensus 1470–1490
+  ]);
+  assert.deepEqual(a.conflicts.map((x) => x.cluster), [-1, 0]);
+});
+
+test('date conflicts: a cluster of thousands is one sweep, not pairs', () => {
+  const n = 3000;
+  const works = Array.from({ length: n }, (_, i) => ({ ref: `a:${String(i).padStart(5, '0')}`, date: i % 1000 === 7 ? '1650' : String(1470 + (i % 11)) })); // 1470–1480, three at 1650
+  // curators confirmed a chain of `same` decisions: one cluster of 3000 records whatever the evidence stage thinks
+  const decisions = works.slice(1).map((w, i): [string, string, 'same'] => [works[i].ref, w.ref, 'same']);
+  const m = tinyModel({ partners: ['a'], works, decisions });
+  const { c, a } = run(m);
+  assert.equal(c.clusters[0].members.length, n);
+  assert.deepEqual(rows(m, a).map((r) => [r[0], r[2], r[3]]), [['a:00007', 170, '2997/3000'], ['a:01007', 170, '2997/3000'], ['a:02007', 170, '2997/3000']]);
 });
 
 test('overlap per ordered partner pair and per century: same or part claims, or one cluster', () => {

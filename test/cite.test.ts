@@ -192,7 +192,7 @@ test('citing a cluster with date conflicts lists them in every format', async ()
   assert.equal(c.conflicts?.length, expected);
   const refs = (c.conflicts ?? []).map((x) => [x.a.ref, x.b.ref].sort().join(' '));
   const ref = (w: number) => `${r.model.project.partners[r.model.works[w].partner].key}:${r.model.works[w].id}`;
-  assert.deepEqual(refs.sort(), r.analysis.conflicts.filter((x) => x.cluster === withConflict.cluster).map((x) => [ref(x.a), ref(x.b)].sort().join(' ')).sort());
+  assert.deepEqual(refs.sort(), r.analysis.conflicts.filter((x) => x.cluster === withConflict.cluster).map((x) => [ref(x.work), ref(x.anchor)].sort().join(' ')).sort());
   const items = CslData.parse(citationCsl(c));
   const cluster = items.find((it) => it.id === iri)!;
   assert.equal(cluster.URL, iri);

@@ -9,7 +9,7 @@ import { csvCell, csvLine, neutralise } from '../src/io/csv-write.js';
 import { link } from '../src/link/index.js';
 import { cluster, readClusterRegistry, registryOf } from '../src/cluster/index.js';
 import { analyse } from '../src/analyse/index.js';
-import { writeReports, REPORT_FILES, REVIEW_HEADER } from '../src/report/index.js';
+import { writeReports, REPORT_FILES, REVIEW_HEADER, CONFLICTS_HEADER } from '../src/report/index.js';
 import { readCsv } from '../src/io/csv-read.js';
 import { loadDecisions } from '../src/load/decisions.js';
 import { load } from '../src/load/index.js';
@@ -101,7 +101,9 @@ test('report files: neutralised spreadsheet cells, untouched references; CSV fil
   assert.ok(queue.includes(`"'=HYPERLINK(""http://evil.example/"",""Madonna"")"`), 'title neutralised and quoted');
   assert.ok(queue.includes(`,'@Madonna,`));
   const conflicts = readFileSync(path.join(dir, 'conflicts.csv'), 'utf8');
-  assert.ok(conflicts.includes(",'-0500/-0401,'-0300,'-500/-401,'-300,"), 'dates as catalogued and intervals read neutralised');
+  assert.equal(conflicts.slice(1).split('\r\n')[0], CONFLICTS_HEADER.join(','));
+  // b:2 (-0300) and a:2 (-0500/-0401) are 101 years apart, a pair with no majority: each listed against the other
+  assert.ok(conflicts.includes(",'-0300,'-300,'-0500/-0401,'-500/-401,1 of 2 (tie: no majority),101,its cluster,"), 'dates as catalogued and intervals read neutralised');
   const registry = readFileSync(path.join(dir, 'clusters.csv'), 'utf8');
   assert.ok(!registry.includes("'"), 'clusters.csv is never neutralised');
 });

@@ -3,7 +3,8 @@
 // is spilled into many small batches as when it is validated at once, for both engines.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-import { existsSync, readdirSync } from 'node:fs';
+import { existsSync, mkdirSync, readdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
 import fc from 'fast-check';
 import N3 from 'n3';
 import { iri } from '../src/namespaces.js';
@@ -163,4 +164,20 @@ test('unbounded shapes are validated whole up to the limit, then refused naming 
   assert.equal(readdirSync(parent).length, 1);
   assert.equal((await spilled.finish()).violations, 10);
   assert.ok(existsSync(parent) && readdirSync(parent).length === 0);
+});
+
+test('a spill folder left by a killed run is removed by the next run; a live owner\'s is kept', async () => {
+  const parent = tempDir('concordat-bounded-');
+  const { spawnSync } = await import('node:child_process');
+  const { hostname } = await import('node:os');
+  const dead = spawnSync(process.execPath, ['-e', 'process.stdout.write(String(process.pid))'], { encoding: 'utf8' }).stdout;
+  mkdirSync(join(parent, 'concordat-validate-stale'));
+  writeFileSync(join(parent, 'concordat-validate-stale', 'owner'), `${dead} ${hostname()}\n`);
+  mkdirSync(join(parent, 'concordat-validate-live'));
+  writeFileSync(join(parent, 'concordat-validate-live', 'owner'), `${process.pid} ${hostname()}\n`);
+  const shapes = new N3.Parser().parse(`@prefix sh: <http://www.w3.org/ns/shacl#> . <urn:x:S> sh:targetSubjectsOf <urn:x:p> ; sh:class <urn:x:C> .`);
+  const run = new BoundedValidation(shapes, { inMemoryUpTo: 0, tempParent: parent, workers: 0 });
+  run.add(quad(namedNode('urn:x:a'), namedNode('urn:x:p'), namedNode('urn:x:b')));
+  assert.deepEqual(readdirSync(parent).filter((n) => n.endsWith('stale') || n.endsWith('live')), ['concordat-validate-live']);
+  assert.equal((await run.finish()).violations, 1);
 });

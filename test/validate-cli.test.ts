@@ -120,4 +120,18 @@ test('--shacl-engine rdf-validate-shacl writes the same report bytes as the buil
   assert.match(bad.stderr, /argument 'fastest' is invalid\. Allowed choices are builtin, rdf-validate-shacl/);
 });
 
+test('a JSON-LD document above the bounded-memory limit is refused naming the limit and what to do instead', async () => {
+  const { streamDataFiles } = await import('../src/validate/files.js');
+  let quads = 0;
+  await assert.rejects(streamDataFiles([join(fixtures, 'link.jsonld')], () => quads++, 100), (err: Error & { problems: Array<{ file: string; hint: string }> }) => {
+    assert.match(err.message, /JSON-LD document is read whole.*above the 0\.0 MiB/);
+    assert.match(err.problems[0].hint, /N-Quads/);
+    assert.equal(err.problems[0].file, join(fixtures, 'link.jsonld'));
+    return true;
+  });
+  assert.equal(quads, 0);
+  await streamDataFiles([join(fixtures, 'link.jsonld')], () => quads++);
+  assert.ok(quads > 0);
+});
+
 test('clean up', () => rmSync(tmp, { recursive: true, force: true }));

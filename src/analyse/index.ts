@@ -12,6 +12,7 @@ import type { Analysis } from './types.js';
 export type { Analysis, Agreement, CenturyCell, DateConflict, MissedPair, OverlapCell, OverlapStats, ReviewQueue, ReviewReason } from './types.js';
 export { REVIEW_REASONS } from './types.js';
 export { agreement } from './agreement.js';
+export { DATE_TOLERANCE, yearsApart } from './conflicts.js';
 export { HIGH_SCORE_AT } from './review.js';
 export { sweep, sweepValues, type SweepRow } from './sweep.js';
 export { sweepTable } from './sweep-table.js';
@@ -29,7 +30,7 @@ export interface AnalyseOptions {
 export function analyse(model: Model, linkSet: LinkSet, clustering: Clustering, options: AnalyseOptions = {}): Analysis {
   const read = dateReader(model);
   return {
-    conflicts: dateConflicts(model, clustering, read),
+    conflicts: dateConflicts(model, linkSet, clustering, read),
     overlap: overlapStats(model, linkSet, clustering, read),
     agreement: model.project.gold !== undefined || model.gold.length > 0 ? agreement(model, linkSet, clustering) : null,
     review: reviewQueue(model, linkSet, clustering, options.highScoreAt),

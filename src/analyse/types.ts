@@ -1,17 +1,31 @@
 // What the analyse stage finds: date conflicts, overlap statistics, agreement with the gold concordance, review queue.
-import type { IntervalReading } from '../dates/index.js';
+import type { IntervalReading, YearSpan } from '../dates/index.js';
 import type { LinkKind, LinkStatus } from '../link/types.js';
 
-/** Two members of one cluster whose catalogued dates disagree (compareDates `conflict` or `soft`). */
+/**
+ * A record whose catalogued date lies more than the policy's dateTolerance from the date most of its cluster gives
+ * (`against: 'cluster'`), or a detail whose date lies that far from the work it is part of (`against: 'whole'`).
+ */
 export interface DateConflict {
-  /** Index into Clustering.clusters. */
+  /** Index into Clustering.clusters: the record's cluster (for a detail in none, its whole's); -1 when neither has one. */
   cluster: number;
-  /** Work numbers, ordered by reference. */
-  a: number;
-  b: number;
-  severity: 'conflict' | 'soft';
-  readingA: IntervalReading;
-  readingB: IntervalReading;
+  /** The record (work number) whose date disagrees. */
+  work: number;
+  reading: IntervalReading;
+  against: 'cluster' | 'whole';
+  /** For `whole`: the work the record is part of. */
+  whole?: number;
+  /** A record carrying the consensus date (the most common reading in the consensus group), or the whole. */
+  anchor: number;
+  /** Years the consensus dates span (for `whole`: its cluster's consensus, or its own date). */
+  consensus: YearSpan;
+  /** Records whose dates make the consensus, of `dated` records with a readable date. */
+  support: number;
+  dated: number;
+  /** No majority: another group of records as large gives another date. */
+  tie: boolean;
+  /** Years between the record's date and the consensus span (more than the tolerance). */
+  apart: number;
 }
 
 /** For partner `from` (P) and partner `to` (Q): P's works that match a work at Q, and their share of P's works. */

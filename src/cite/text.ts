@@ -59,9 +59,9 @@ function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): s
   return out;
 }
 
-/** A date conflict in words: both records with their dates as catalogued. */
+/** A date conflict in words: the record whose date disagrees (work A), then a record giving the cluster's date (work B). */
 export function conflictLine(x: CitedConflict): string {
-  return `${x.severity ?? 'conflict'}: ${name(x.a)} dated "${x.a.date ?? ''}", ${name(x.b)} dated "${x.b.date ?? ''}" <${x.iri}>`;
+  return `${x.severity ?? 'conflict'}: ${name(x.a)} dated "${x.a.date ?? ''}", where ${name(x.b)} gives the date most of the cluster gives, "${x.b.date ?? ''}" <${x.iri}>`;
 }
 
 const heading = (c: Citation) => `${c.claims.length} claim${c.claims.length === 1 ? '' : 's'} about ${c.query} in release ${c.release.version}`;

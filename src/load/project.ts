@@ -73,6 +73,7 @@ const PolicySchema = z
     minOverlap: unit.default(0.3),
     indiscriminateAbove: z.number().int().min(1).nullable().default(null),
     reviewLimit: z.number().int().min(1).default(500),
+    dateTolerance: z.number().int({ message: 'dateTolerance: whole years, e.g. 25' }).min(0).optional(),
   })
   .refine((p) => p.autoConfirmAt === null || p.autoConfirmAt >= p.proposeAt, {
     message: 'autoConfirmAt must be at least proposeAt (or null)',

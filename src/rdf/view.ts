@@ -49,6 +49,6 @@ function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[
   for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
   const im = clustering.implied;
   for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
-  for (const c of analysis?.conflicts ?? []) views[c.cluster].conflicts.push({ a: c.a, b: c.b, severity: c.severity });
+  for (const c of analysis?.conflicts ?? []) if (c.cluster >= 0) views[c.cluster].conflicts.push({ a: c.work, b: c.anchor, severity: 'conflict' });
   return views;
 }

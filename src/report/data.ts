@@ -2,7 +2,8 @@
 import type { Model } from '../model.js';
 import type { LinkKind, LinkSet, LinkStatus } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
-import { REVIEW_REASONS, formatInterval, type Analysis } from '../analyse/index.js';
+import { DATE_TOLERANCE, REVIEW_REASONS, formatInterval, type Analysis, type DateConflict } from '../analyse/index.js';
+import { CONFLICTS_HEADER, conflictCells } from './csv-files.js';
 import { num, type WorkContext } from './context.js';
 import { withheldData } from './withheld.js';
 
@@ -27,6 +28,8 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
   const oversized = clustering.clusters.filter((c) => c.oversized);
   let throughThird = 0;
   for (let i = 0; i < clustering.implied.count; i++) throughThird += clustering.implied.throughThird[i];
+  const partnerName = (w: number) => partners[model.works[w].partner].name;
+  const cells = (c: DateConflict) => conflictCells(c, clustering, ctx, partnerName);
   const reasons = Object.fromEntries(REVIEW_REASONS.map((r, k) => [r, analysis.review.byReason[k]]));
   const listed = Object.fromEntries(REVIEW_REASONS.map((r) => [r, 0]));
   for (let i = 0; i < analysis.review.count; i++) listed[REVIEW_REASONS[analysis.review.reason[i]]]++;
@@ -63,12 +66,10 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
       centuries: analysis.overlap.centuries.map((c) => ({ from: key(c.from), to: key(c.to), century: c.century, works: c.works, matched: c.matched, share: r4(c.share) })),
     },
     conflicts: {
-      conflict: analysis.conflicts.filter((c) => c.severity === 'conflict').length,
-      soft: analysis.conflicts.filter((c) => c.severity === 'soft').length,
-      listed: analysis.conflicts.slice(0, LIST_LIMIT).map((c) => ({
-        cluster: clustering.clusters[c.cluster].id, severity: c.severity, work_a: ctx.ref(c.a), work_b: ctx.ref(c.b),
-        date_a: ctx.date(c.a), date_b: ctx.date(c.b), interval_a: formatInterval(c.readingA), interval_b: formatInterval(c.readingB),
-      })),
+      tolerance: model.project.policy.dateTolerance ?? DATE_TOLERANCE,
+      records: analysis.conflicts.length,
+      centuriesApart: analysis.conflicts.filter((c) => c.apart >= 100).length,
+      listed: analysis.conflicts.slice(0, LIST_LIMIT).map((c) => Object.fromEntries(CONFLICTS_HEADER.map((h, i) => [h, cells(c)[i]]))),
     },
     agreement: ag && {
       goldPairs: ag.goldPairs, found: ag.found, recall: r4(ag.recall),

@@ -31,6 +31,11 @@ function writeText(file: string, text: string): string {
  * byte-identical files: no clock, no absolute paths, fixed orders. CSV files are written for spreadsheets (UTF-8 with
  * BOM, CRLF) unless the project's `release.csv` is `plain`; `namer` gives the queue its link and image IRIs. Returns the paths written, in REPORT_FILES order.
  */
+/** A work's partner name, for the conflicts a cataloguer reads. */
+export function partnerNamer(model: Model): (w: number) => string {
+  return (w) => model.project.partners[model.works[w].partner].name;
+}
+
 export async function writeReports(dir: string, model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis, namer: Namer): Promise<string[]> {
   const ctx = workContext(model);
   const form = model.project.release.csv ?? 'spreadsheet';
@@ -39,7 +44,7 @@ export async function writeReports(dir: string, model: Model, linkSet: LinkSet, 
   return [
     writeText(at('report.md'), reportMarkdown(data)),
     writeText(at('report.json'), JSON.stringify(data, null, 2) + '\n'),
-    await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx, form),
+    await writeConflicts(at('conflicts.csv'), clustering, analysis, ctx, partnerNamer(model), form),
     await writeReviewQueue(at('review-queue.csv'), model, linkSet, analysis, ctx, namer, form),
     await writeClusterRegistry(at(RELEASE_FILES.clusters), model, clustering),
   ];

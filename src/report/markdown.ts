@@ -52,8 +52,9 @@ export function reportMarkdown(d: ReportData): string {
   })])));
   out.push('### Per century', '', 'Century of the midpoint of the work\'s date interval.', '', ...table(['from', 'to', 'century', 'matched', 'works', 'share'], d.overlap.centuries.map((x) => [x.from, x.to, x.century, x.matched, x.works, percent(x.share)])));
 
-  out.push('## Date conflicts inside clusters', '', `${d.conflicts.conflict} conflicts (disjoint dates), ${d.conflicts.soft} soft (apart only by how centuries are counted).`, '');
-  out.push(...table(['cluster', 'severity', 'work_a', 'work_b', 'date_a', 'date_b', 'read as'], d.conflicts.listed.map((x) => [x.cluster, x.severity, x.work_a, x.work_b, x.date_a, x.date_b, `${x.interval_a} vs ${x.interval_b}`])), ...more(d.conflicts.listed.length, d.conflicts.conflict + d.conflicts.soft, 'conflicts.csv'));
+  const dc = d.conflicts;
+  out.push('## Date conflicts', '', `${dc.records} records whose date lies more than ${dc.tolerance} years from what most records of their artwork give (or, for a detail, from the work it is part of); ${dc.centuriesApart} of them a century or more. Most years apart first.`, '');
+  out.push(...table(['record', 'date as catalogued', 'consensus date', 'records', 'years apart', 'compared with'], dc.listed.map((x) => [x.record, x.date_as_catalogued, x.consensus_date, x.consensus_records, x.years_apart, x.compared_with])), ...more(dc.listed.length, dc.records, 'conflicts.csv'));
 
   out.push('## Agreement with the gold concordance', '');
   const a = d.agreement;

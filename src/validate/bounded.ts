@@ -1,8 +1,7 @@
 // Triples pushed one by one + a shapes graph → the whole-graph SHACL outcome in bounded memory: small input validated at
 // once, large input spilled into hashed buckets each carrying its focus nodes' footprint, batches on worker threads.
-import { mkdtempSync, rmSync } from 'node:fs';
+import { rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
 import { UserError } from '../errors.js';
@@ -12,6 +11,7 @@ import { footprintOf, type Footprint } from './footprint.js';
 import { outcomeOf, type ResultRow, type ValidationOutcome } from './report.js';
 import { compileShapes, type CompiledShapes, type ValidateOptions } from './shacl.js';
 import { Spill, SUBCLASS_LIMIT, type Triple } from './spill.js';
+import { makeSpillDir } from './spill-dir.js';
 import { encodeQuads } from './wire.js';
 
 /** Options for bounded validation. */
@@ -113,7 +113,7 @@ export class BoundedValidation {
   }
 
   private startSpill(): void {
-    this.dir = mkdtempSync(join(this.opts.tempParent ?? tmpdir(), 'concordat-validate-'));
+    this.dir = makeSpillDir(this.opts.tempParent ?? tmpdir());
     process.once('exit', this.removeOnExit);
     this.spill = new Spill(this.dir, this.opts.buckets ?? 128, this.footprint);
     for (let i = 0; i < this.ids.length; i += 4) this.spill.add([this.ids[i], this.ids[i + 1], this.ids[i + 2]]);

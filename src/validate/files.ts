@@ -52,12 +52,12 @@ export const JSONLD_LIMIT_BYTES = 64 * 1024 * 1024;
  * they are read; a JSON-LD document above {@link JSONLD_LIMIT_BYTES} is refused before it is read, since it cannot be
  * streamed.
  */
-export async function streamDataFiles(files: string[], onQuad: (q: N3.Quad) => void): Promise<void> {
+export async function streamDataFiles(files: string[], onQuad: (q: N3.Quad) => void, jsonldLimit = JSONLD_LIMIT_BYTES): Promise<void> {
   for (const f of files) {
     if (extname(f).toLowerCase() === '.jsonld') {
       const size = await stat(f).then((s) => s.size, () => 0);
-      if (size > JSONLD_LIMIT_BYTES)
-        throw new UserError({ file: f, line: 0, field: '', message: `a JSON-LD document is read whole, and this one is ${(size / 2 ** 20).toFixed(0)} MiB, above the ${JSONLD_LIMIT_BYTES / 2 ** 20} MiB that validate reads in bounded memory`,
+      if (size > jsonldLimit)
+        throw new UserError({ file: f, line: 0, field: '', message: `a JSON-LD document is read whole, and this one is ${(size / 2 ** 20).toFixed(1)} MiB, above the ${(jsonldLimit / 2 ** 20).toFixed(1)} MiB that validate reads in bounded memory`,
           hint: 'validate the release\'s N-Quads or Turtle instead (concordance.nq), or convert the document to N-Quads first' });
     }
     await streamRdfFile(f, onQuad);

@@ -62,6 +62,9 @@ export function readLines<T>(file: string, distinct = false): T[] {
   return JSON.parse(`[${body}]`) as T[];
 }
 
+/** Requests remembered to skip repeats (common practice, no source: a bounded set, cleared when full). */
+const RECENT_REQUESTS = 50_000;
+
 /** Limits that bound memory; exceeding one is refused with a message naming it. */
 export const SUBCLASS_LIMIT = 100_000;
 
@@ -103,12 +106,25 @@ export class Spill {
     const bo = l0.in.has(p) || this.footprint.objectsOf.has(p) || this.deeperIn.has(p) || l0.inv.has(p) || l0.fwd.has(p) ? bucketOf(o, this.buckets) : -1;
     if (l0.in.has(p) || this.footprint.objectsOf.has(p)) this.out.write(this.file('ctx', bo), line);
     if (this.deeperIn.has(p)) this.out.write(this.file('inv', bo), line);
-    if (l0.fwd.has(p) && this.leadsTo(1, o)) this.out.write(this.file('req1', bo), JSON.stringify([o, bs]) + '\n');
-    if (l0.inv.has(p)) this.out.write(this.file('req1', bs), JSON.stringify([s, bo]) + '\n');
+    if (l0.fwd.has(p) && this.leadsTo(1, o)) this.request(1, o, bo, bs);
+    if (l0.inv.has(p)) this.request(1, s, bs, bo);
     if (p === SUBCLASS_OF) {
       if (this.subclass.length >= SUBCLASS_LIMIT) throw new RangeError('subclass');
       this.subclass.push(t);
     }
+  }
+
+  /** Recent requests, to write a shared node's request (a run every link points to) once per batch of requests. */
+  private recent = new Set<string>();
+
+  /** Asks bucket `holder` to send what level `depth` reads of `node` to bucket `to`. */
+  private request(depth: number, node: string, holder: number, to: number): void {
+    const line = JSON.stringify([node, to]) + '\n';
+    const key = depth + line;
+    if (this.recent.has(key)) return;
+    if (this.recent.size >= RECENT_REQUESTS) this.recent = new Set();
+    this.recent.add(key);
+    this.out.write(this.file(`req${depth}`, holder), line);
   }
 
   /** Whether a node reached at `depth` can have anything read there (a literal has no triples of its own). */
@@ -142,12 +158,12 @@ export class Spill {
           for (const t of bySubject.get(n) ?? []) {
             if (!level.all && !level.out.has(t[1])) continue;
             this.out.write(this.file('ctx', b), JSON.stringify(t) + '\n');
-            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2])) this.out.write(this.file(`req${k + 1}`, bucketOf(t[2], this.buckets)), JSON.stringify([t[2], b]) + '\n');
+            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2])) this.request(k + 1, t[2], bucketOf(t[2], this.buckets), b);
           }
           for (const t of byObject.get(n) ?? []) {
             if (!level.in.has(t[1])) continue;
             this.out.write(this.file('ctx', b), JSON.stringify(t) + '\n');
-            if (level.inv.has(t[1])) this.out.write(this.file(`req${k + 1}`, bucketOf(t[0], this.buckets)), JSON.stringify([t[0], b]) + '\n');
+            if (level.inv.has(t[1])) this.request(k + 1, t[0], bucketOf(t[0], this.buckets), b);
           }
         }
       }
