@@ -43,6 +43,18 @@ export const FORMATS: Readonly<Record<FormatName, FormatInfo>> = {
   jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', true, false),
 };
 
+/** Compressions a release's dumps can also be written in: file extension and IANA media type (RFC 6713 application/gzip). */
+export type Compression = 'gzip';
+export interface CompressionInfo {
+  extension: string;
+  mediaType: string;
+  /** The media type as an IRI, for DCAT 3 dcat:compressFormat (range dcterms:MediaType). */
+  mediaTypeIri: string;
+}
+export const COMPRESSIONS: Readonly<Record<Compression, CompressionInfo>> = {
+  gzip: { extension: '.gz', mediaType: 'application/gzip', mediaTypeIri: iri('iana', 'application/gzip') },
+};
+
 /** Formats written by the quad stream writer of src/rdf/serialize.ts. */
 export type RdfFormat = 'turtle' | 'ntriples' | 'nquads';
 
