@@ -110,6 +110,9 @@ export interface Images {
   line: Int32Array;
   /** 1 + index into IMAGE_ROLES; 0 when the catalogue records no role. */
   role: Uint8Array;
+  /** Size in pixels as catalogued (mapped `width` and `height` columns); 0 when not recorded. */
+  width: Int32Array;
+  height: Int32Array;
 }
 
 /** Columnar match table: one entry per evidence row (image pair), in input order. */

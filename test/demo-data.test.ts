@@ -128,8 +128,10 @@ test('release 1 catalogues carry the export habits and date forms of real archiv
   for (const re of [/ /, /\//, /[À-ÿ]/]) assert.ok(ids.some((id) => re.test(id.split(':')[1])), `an ID matching ${re}`);
 
   const dates = r.project.partners.flatMap((p) => r.catalogues.get(p.key)!.map((row) => row[p.catalogue.columns.date]));
-  const forms: [string, RegExp][] = [['year', /^\d{4}$/], ['ca.', /^ca\. \d{4}$/], ['range', /^\d{4}-\d{4}$/],
-    ['late century', /^late 15th century$/], ['abbreviated century', /^15th c\.$/], ['16th century', /^16th century$/],
+  // English at Vellmar, German at Kessling, French at Fontclaire, EDTF at Kessling
+  const forms: [string, RegExp][] = [['year', /^\d{4}$/], ['ca.', /^ca\. \d{4}$/], ['late century', /^late 15th century$/],
+    ['century', /^1\dth century$/], ['um', /^um \d{4}$/], ['bis', /^\d{4} bis \d{4}$/], ['Jh.', /^1\d\. Jh\.$/],
+    ['vers', /^vers \d{4}$/], ['entre … et', /^entre \d{4} et \d{4}$/], ['siècle', /^X[IVX]+e siècle$/], ['s.', /^X[IVX]+e s\.$/],
     ['EDTF decade', /^\d{3}X$/], ['EDTF approximate', /^\d{4}~$/], ['EDTF interval', /^\d{4}\/\d{4}$/]];
   for (const [name, re] of forms) assert.ok(dates.some((d) => re.test(d)), `date form ${name}`);
 

@@ -37,6 +37,14 @@ test('an image role column is read through the partner\'s roles map, case-insens
   assert.equal(model.images.role[model.images.id.indexOf('n3')], 0, 'beta records no roles');
 });
 
+test('image sizes are kept in the model (0 where a partner records none or a cell is blank)', async () => {
+  const dir = fixtureCopy('load/base', { 'catalogues/alpha.csv': (t) => t.replace('800,600', ',600') });
+  const { model } = await load(path.join(dir, 'concordance.json'));
+  const size = (id: string) => { const i = model.images.id.indexOf(id); return [model.images.width[i], model.images.height[i]]; };
+  assert.deepEqual(['a-1', 'a-2', 'a-3', 'a-4'].map(size), [[1200, 900], [0, 600], [1000, 1000], [250, 400]]);
+  assert.deepEqual(size('n3'), [0, 0], 'beta maps no size columns');
+});
+
 test('BOM and CRLF line ends are read like plain UTF-8 with LF', async () => {
   const dir = fixtureCopy('load/base', { 'catalogues/alpha.csv': (t) => Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from(t.replace(/\n/g, '\r\n'))]) });
   const { model } = await load(path.join(dir, 'concordance.json'));
@@ -72,6 +80,8 @@ const cases: BadCase[] = [
   { name: 'stray quote', edits: { 'catalogues/alpha.csv': addRow('A 9,a-9,Bad"title,1500,1000,1000') }, file: 'catalogues/alpha.csv', line: 7, field: '', message: /stray quote/ },
   { name: 'unterminated quote', edits: { 'catalogues/alpha.csv': addRow('A 9,a-9,"Open title,1500,1000,1000') }, file: 'catalogues/alpha.csv', line: 7, field: '', message: /unterminated quoted field/ },
   { name: 'invalid UTF-8', edits: { 'catalogues/beta.tsv': (t) => Buffer.concat([Buffer.from(t), Buffer.from('B9\tn9\tBad \xff\t1500\n', 'latin1')]) }, file: 'catalogues/beta.tsv', line: 6, field: '', message: /invalid UTF-8/ },
+  { name: 'width not a whole number', edits: { 'catalogues/alpha.csv': addRow('A 9,a-9,Title,1500,12.5,1000') }, file: 'catalogues/alpha.csv', line: 7, field: 'W', message: /"12.5" is not a positive whole number of pixels/ },
+  { name: 'height beyond any photograph', edits: { 'catalogues/alpha.csv': addRow('A 9,a-9,Title,1500,1000,3000000000') }, file: 'catalogues/alpha.csv', line: 7, field: 'H', message: /"3000000000" is not a positive whole number of pixels/ },
   { name: 'missing file', edits: { 'concordance.json': json((o) => (o.partners[1].catalogue.file = 'catalogues/nope.tsv')) }, file: 'catalogues/nope.tsv', line: 0, field: '', message: /file not found/ },
   { name: 'mapped column absent', edits: { 'concordance.json': json((o) => (o.partners[0].catalogue.columns.title = 'Titel')) }, file: 'catalogues/alpha.csv', line: 1, field: 'Titel', message: /column "Titel".*not in the header/, hint: /did you mean "Title"/ },
   { name: 'header-only file', edits: { 'catalogues/beta.tsv': 'Inv\tNeg\tTitel\tDatierung\n' }, file: 'catalogues/beta.tsv', line: 1, field: '', message: /header but no rows/ },

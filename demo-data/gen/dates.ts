@@ -1,4 +1,5 @@
-// A true year and a partner's cataloguing style → the free-text date a partner's export would carry.
+// A true year and a partner's cataloguing style and language → the free-text date a partner's export would carry.
+import type { Lang } from './titles.js';
 
 /** How a partner counts centuries; `unknown` when the partner does not say. */
 export type Convention = 'ordinal' | 'iso' | 'unknown';
@@ -39,7 +40,45 @@ const RENDER: Record<DateStyle, (y: number, c: Convention) => string | null> = {
   'edtf-interval': (y) => `${y - 10}/${y + 10}`,
 };
 
-/** The text of year y in a style, or null when the style does not fit that year (EDTF Level 1 for the EDTF forms). */
-export function renderDate(year: number, style: DateStyle, convention: Convention): string | null {
-  return RENDER[style](year, convention);
+/** Roman numeral for a century number (French catalogues write XVe siècle). */
+export function roman(n: number): string {
+  const parts: [number, string][] = [[10, 'X'], [9, 'IX'], [5, 'V'], [4, 'IV'], [1, 'I']];
+  let out = '';
+  for (const [v, r] of parts) while (n >= v) { out += r; n -= v; }
+  return out;
+}
+
+/**
+ * The same styles as catalogues in German and French write them (each the same interval as the English form, so
+ * the story's dates do not move): `um 1480`, `1470 bis 1490`, `15. Jh.`; `vers 1480`, `entre 1470 et 1490`,
+ * `XVe siècle`, `XVe s.`, `fin du XVe siècle`. Styles a language does not list keep the English (or EDTF) form.
+ */
+const IN_LANGUAGE: Partial<Record<Lang, Partial<Record<DateStyle, (y: number, c: Convention) => string | null>>>> = {
+  de: {
+    ca: (y) => `um ${y}`,
+    range: (y) => `${y - 10} bis ${y + 10}`,
+    century: (y, c) => `${centuryOf(y, c)}. Jh.`,
+    'century-abbr': (y, c) => `${centuryOf(y, c)}. Jahrhundert`,
+    'late-century': (y, c) => (RENDER['late-century'](y, c) === null ? null : `Ende ${centuryOf(y, c)}. Jh.`),
+  },
+  fr: {
+    ca: (y) => `vers ${y}`,
+    range: (y) => `entre ${y - 10} et ${y + 10}`,
+    century: (y, c) => `${roman(centuryOf(y, c))}e siècle`,
+    'century-abbr': (y, c) => `${roman(centuryOf(y, c))}e s.`,
+    'late-century': (y, c) => (RENDER['late-century'](y, c) === null ? null : `fin du ${roman(centuryOf(y, c))}e siècle`),
+  },
+};
+
+/**
+ * The text of year y in a style and the partner's language, or null when the style does not fit that year (EDTF
+ * Level 1 for the EDTF forms).
+ */
+export function renderDate(year: number, style: DateStyle, convention: Convention, lang: Lang = 'en'): string | null {
+  return (IN_LANGUAGE[lang]?.[style] ?? RENDER[style])(year, convention);
+}
+
+/** A century label in the partner's language: `16th century`, `16. Jh.`, `XVIe siècle`. */
+export function centuryLabel(n: number, lang: Lang): string {
+  return lang === 'de' ? `${n}. Jh.` : lang === 'fr' ? `${roman(n)}e siècle` : `${ordinal(n)} century`;
 }

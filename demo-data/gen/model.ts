@@ -149,7 +149,7 @@ export class Builder {
     const styles: readonly (readonly [DateStyle, number])[] = art.narrow
       ? spec.narrow.map((s) => [s, 1] as const) : spec.styles;
     for (;;) {
-      const text = renderDate(year, this.rng.weighted(styles), convention);
+      const text = renderDate(year, this.rng.weighted(styles), convention, spec.lang);
       if (text !== null) return text;
     }
   }

@@ -22,6 +22,8 @@ export interface PartnerSpec {
   /** Header → field, in file order. */
   columns: readonly (readonly [string, Field])[];
   lang: Lang;
+  /** The date language written to the project file; omitted means every language is tried. */
+  language?: 'fr';
   /** Date styles the partner uses, with weights. */
   styles: readonly (readonly [DateStyle, number])[];
   /** Exact styles used where a wide date would blur a deliberate conflict. */
@@ -46,15 +48,15 @@ export const PARTNERS: Record<PartnerKey, PartnerSpec> = {
     convention: 'iso', file: 'catalogues/kessling.csv', format: { delimiter: ';', bom: false, eol: '\n' },
     columns: [['Aufnahme', 'image'], ['Inventarnummer', 'work'], ['Titel', 'title'], ['Datierung', 'date'],
       ['Fotograf', 'photographer'], ['Standort', 'location']],
-    lang: 'de', styles: [['year', 2], ['edtf-decade', 2], ['edtf-approx', 2], ['edtf-interval', 2]],
-    narrow: ['year', 'edtf-approx'], order: 'image',
+    lang: 'de', styles: [['year', 2], ['edtf-decade', 2], ['ca', 2], ['range', 2]],
+    narrow: ['year', 'ca'], order: 'image',
     paths: { work: 'id/objekt/', image: 'id/aufnahme/', page: 'photothek/objekt/' },
   },
   fontclaire: {
     key: 'fontclaire', name: 'Photothèque de la Maison Fontclaire', host: 'fontclaire.example.org',
     file: 'catalogues/fontclaire.csv', format: { delimiter: ',', bom: true, eol: '\r\n' },
     columns: [['cote', 'work'], ['cliché', 'image'], ['intitulé', 'title'], ['datation', 'date'], ['remarques', 'remark']],
-    lang: 'fr', styles: [['century-abbr', 2], ['century', 2], ['range', 3], ['ca', 2]], narrow: ['ca', 'range'],
+    lang: 'fr', language: 'fr', styles: [['century-abbr', 2], ['century', 2], ['range', 3], ['ca', 2]], narrow: ['ca', 'range'],
     order: 'shuffled', paths: { work: 'id/oeuvre/', image: 'id/cliche/', page: 'fiche/' },
   },
   brindle: {

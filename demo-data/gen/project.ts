@@ -27,6 +27,7 @@ function partner(key: PartnerKey, prefix: string) {
     imageIri: `https://${p.host}/${p.paths.image}{image}`,
     recordPage: `https://${p.host}/${p.paths.page}{work}`,
     ...(p.convention ? { centuryConvention: p.convention } : {}),
+    ...(p.language ? { language: p.language } : {}),
     catalogue: { file: prefix + p.file, delimiter: p.format.delimiter, columns },
   };
 }

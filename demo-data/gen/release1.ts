@@ -1,5 +1,5 @@
 // The release-1 story (three archives, one matcher run) → artworks, records and matched pairs, each difficulty named.
-import { centuryOf, ordinal } from './dates.js';
+import { centuryLabel, centuryOf } from './dates.js';
 import { Builder, type Rec } from './model.js';
 import { IdMint, type PartnerKey } from './partners.js';
 import { Rng } from './rng.js';
@@ -37,12 +37,15 @@ export interface Release1 {
   smallImages: string[];
 }
 
-/** The date a partner writes for a later year, far enough from the true one that the intervals are disjoint. */
+/**
+ * The date a partner writes, in its own language, for a year about a century after the true one: far enough that the
+ * intervals lie more than the default date tolerance (25 years) apart.
+ */
 function conflictingDate(partner: PartnerKey, year: number): string {
   const table: Record<PartnerKey, () => string> = {
-    vellmar: () => `${ordinal(centuryOf(year, 'ordinal'))} century`,
-    kessling: () => `${year - 10}/${year + 10}`,
-    fontclaire: () => `${ordinal(centuryOf(year, 'unknown'))} century`,
+    vellmar: () => centuryLabel(centuryOf(year, 'ordinal'), 'en'),
+    kessling: () => `${year - 10}/${year + 10}`, // EDTF interval: Kessling writes EDTF beside German phrases
+    fontclaire: () => centuryLabel(centuryOf(year, 'unknown'), 'fr'),
     brindle: () => `${year}`,
   };
   return table[partner]();
@@ -51,9 +54,9 @@ function conflictingDate(partner: PartnerKey, year: number): string {
 /** Same year 1500, different century words: compatible once each partner's convention is applied. */
 const CONVENTION_ONLY: readonly [[PartnerKey, string], [PartnerKey, string]][] = [
   [[V, '15th century'], [K, '1500']],
-  [[V, '1500'], [K, '16th century']],
-  [[V, '15th century'], [K, '16th century']],
-  [[F, '15th c.'], [K, '1500']],
+  [[V, '1500'], [K, '16. Jh.']],
+  [[V, '15th century'], [K, '16. Jh.']],
+  [[F, 'XVe s.'], [K, '1500']],
 ];
 
 /** Tells the release-1 story with its own random streams. */
@@ -79,7 +82,7 @@ export function release1(): Release1 {
     const art = b.art(i === 0 ? { year: 1465, narrow: true } : {});
     const a = b.rec(e1, art);
     const m = b.rec(mid, art, i === 0 ? { date: '' } : {});
-    const c = b.rec(e2, art, i === 0 ? { date: conflictingDate(e2, art.year + 70) } : {});
+    const c = b.rec(e2, art, i === 0 ? { date: conflictingDate(e2, art.year + 130) } : {});
     if (i === 0) conflicts.push({ a, b: c, implied: true });
     b.link(a, m, 'same'); b.link(m, c, 'same');
     return { ends: [a, c] as [Rec, Rec], mid: m };
@@ -98,7 +101,7 @@ export function release1(): Release1 {
     const [p, q] = PAIRINGS[i % 3];
     const hard = i < PLAN1.hardConflicts;
     const art = b.art(hard ? { year: 5 * rng.int(288, 296), narrow: true } : {});
-    const pair: [Rec, Rec] = [b.rec(p, art), b.rec(q, art, hard ? { date: conflictingDate(q, art.year + 65) } : {})];
+    const pair: [Rec, Rec] = [b.rec(p, art), b.rec(q, art, hard ? { date: conflictingDate(q, art.year + 130) } : {})];
     if (hard) conflicts.push({ a: pair[0], b: pair[1], implied: false });
     b.link(pair[0], pair[1], 'same');
     return pair;

@@ -5,100 +5,115 @@ import { HELD_REASONS, type HeldReason, type Link, type LinkKind, type LinkStatu
 const KINDS: readonly LinkKind[] = ['same', 'part', 'related'];
 const STATUSES: readonly LinkStatus[] = ['confirmed', 'proposed', 'rejected', 'candidate'];
 
-/** The values of one link, as makeLink computes them. */
-export interface LinkValues {
-  a: number;
-  b: number;
-  kind: LinkKind;
-  status: LinkStatus;
-  part: number | undefined;
-  support: number;
-  reliableSupport: number;
-  best: number;
-  mean: number;
-  maxOverlap: number;
-  confidence: number;
-  setAside: number;
-  held: HeldReason | undefined;
-  coverageA: number;
-  coverageB: number;
-  runs: readonly number[];
-  decision: number | undefined;
-  matchStart: number;
+type ArrayType = Int32ArrayConstructor | Uint8ArrayConstructor | Float64ArrayConstructor;
+type Stored = Int32Array | Uint8Array | Float64Array;
+
+/**
+ * How one field is stored: the typed array that holds it, and, made once per column, a function that stores a value
+ * and a getter that reads it back for a record `{ i }`. Each kind of codec has its own function bodies, so every getter reads one array type
+ * (V8 keeps such sites monomorphic: a generic getter over all fields was several times slower).
+ */
+interface Codec<T, A extends ArrayType> {
+  array: A;
+  writer(column: InstanceType<A>, name: string, columns: LinkColumns): (i: number, values: Record<string, unknown>) => void;
+  getter(column: InstanceType<A>, columns: LinkColumns): (this: { i: number }) => T;
 }
 
-/** Fixed-size columns for `size` links. */
-export class LinkColumns {
-  readonly a: Int32Array;
-  readonly b: Int32Array;
-  readonly kind: Uint8Array;
-  readonly status: Uint8Array;
-  /** -1: none. */
-  readonly part: Int32Array;
-  readonly support: Int32Array;
-  readonly reliableSupport: Int32Array;
-  readonly best: Float64Array;
-  readonly mean: Float64Array;
-  readonly maxOverlap: Float64Array;
-  readonly confidence: Float64Array;
-  readonly setAside: Int32Array;
-  /** 0: none, else 1 + index into HELD_REASONS. */
-  readonly held: Uint8Array;
-  readonly coverageA: Float64Array;
-  readonly coverageB: Float64Array;
-  /** Index into `runLists`. */
-  readonly runs: Int32Array;
-  /** -1: none. */
-  readonly decision: Int32Array;
-  readonly matchStart: Int32Array;
+const int: Codec<number, Int32ArrayConstructor> = {
+  array: Int32Array,
+  writer: (col, name) => (i, v) => { col[i] = v[name] as number; },
+  getter: (col) => function () { return col[this.i]; },
+};
+const float: Codec<number, Float64ArrayConstructor> = {
+  array: Float64Array,
+  writer: (col, name) => (i, v) => { col[i] = v[name] as number; },
+  getter: (col) => function () { return col[this.i]; },
+};
+/** A number or none (stored as -1). */
+const optional: Codec<number | undefined, Int32ArrayConstructor> = {
+  array: Int32Array,
+  writer: (col, name) => (i, v) => { col[i] = (v[name] as number | undefined) ?? -1; },
+  getter: (col) => function () { const x = col[this.i]; return x < 0 ? undefined : x; },
+};
+/** One of a few values, stored as its index. */
+const oneOf = <T>(values: readonly T[]): Codec<T, Uint8ArrayConstructor> => ({
+  array: Uint8Array,
+  writer: (col, name) => (i, v) => { col[i] = values.indexOf(v[name] as T); },
+  getter: (col) => function () { return values[col[this.i]]; },
+});
+/** One of a few values or none, stored as 1 + its index (0: none). */
+const optionalOneOf = <T>(values: readonly T[]): Codec<T | undefined, Uint8ArrayConstructor> => ({
+  array: Uint8Array,
+  writer: (col, name) => (i, v) => { const x = v[name] as T | undefined; col[i] = x === undefined ? 0 : 1 + values.indexOf(x); },
+  getter: (col) => function () { const x = col[this.i]; return x === 0 ? undefined : values[x - 1]; },
+});
+/** A run list, stored as its index in the columns' shared `runLists`. */
+const runList: Codec<readonly number[], Int32ArrayConstructor> = {
+  array: Int32Array,
+  writer: (col, name, c) => (i, v) => { col[i] = c.runList(v[name] as readonly number[]); },
+  getter: (col, c) => function () { return c.runLists[col[this.i]]; },
+};
+
+/** Every field of a link and how it is stored: the one list (see {@link Link} in types.ts for what each means). */
+const FIELDS = {
+  a: int,
+  b: int,
+  kind: oneOf(KINDS),
+  status: oneOf(STATUSES),
+  part: optional,
+  support: int,
+  reliableSupport: int,
+  best: float,
+  mean: float,
+  maxOverlap: float,
+  confidence: float,
+  setAside: int,
+  held: optionalOneOf<HeldReason>(HELD_REASONS),
+  coverageA: float,
+  coverageB: float,
+  runs: runList,
+  decision: optional,
+  matchStart: int,
+};
+type Fields = typeof FIELDS;
+type Field = keyof Fields;
+const NAMES = Object.keys(FIELDS) as Field[];
+
+/** The values of one link, as makeLink computes them. */
+export type LinkValues = { [K in Field]: Fields[K] extends Codec<infer T, ArrayType> ? T : never };
+
+/** One typed array per field, named after it (`a`, `status`, …; -1 or 0 where a field is empty, see FIELDS). */
+type Columns = { readonly [K in Field]: InstanceType<Fields[K]['array']> };
+
+/** Fixed-size columns for `size` links: one typed array per field (see FIELDS), and what is shared between links. */
+export type LinkColumns = ColumnSet & Columns;
+
+/** Columns for `size` links, all zero. */
+export function linkColumns(size: number): LinkColumns {
+  const c = new ColumnSet(size) as ColumnSet & Record<Field, Stored>;
+  for (const name of NAMES) c[name] = new FIELDS[name].array(size);
+  return c as LinkColumns;
+}
+
+type AnyCodec = Codec<unknown, ArrayType>;
+const codec = (name: Field) => FIELDS[name] as unknown as AnyCodec;
+
+class ColumnSet {
   /** Distinct run lists, shared by the links that have them (read only). */
   readonly runLists: number[][] = [];
   private readonly runListIndex = new Map<string, number>();
+  private writers: ((i: number, values: Record<string, unknown>) => void)[] | undefined;
 
-  constructor(readonly size: number) {
-    this.a = new Int32Array(size);
-    this.b = new Int32Array(size);
-    this.kind = new Uint8Array(size);
-    this.status = new Uint8Array(size);
-    this.part = new Int32Array(size);
-    this.support = new Int32Array(size);
-    this.reliableSupport = new Int32Array(size);
-    this.best = new Float64Array(size);
-    this.mean = new Float64Array(size);
-    this.maxOverlap = new Float64Array(size);
-    this.confidence = new Float64Array(size);
-    this.setAside = new Int32Array(size);
-    this.held = new Uint8Array(size);
-    this.coverageA = new Float64Array(size);
-    this.coverageB = new Float64Array(size);
-    this.runs = new Int32Array(size);
-    this.decision = new Int32Array(size);
-    this.matchStart = new Int32Array(size);
-  }
+  constructor(readonly size: number) {}
 
   /** Stores link `i`. */
-  set(i: number, v: LinkValues): void {
-    this.a[i] = v.a;
-    this.b[i] = v.b;
-    this.kind[i] = KINDS.indexOf(v.kind);
-    this.status[i] = STATUSES.indexOf(v.status);
-    this.part[i] = v.part ?? -1;
-    this.support[i] = v.support;
-    this.reliableSupport[i] = v.reliableSupport;
-    this.best[i] = v.best;
-    this.mean[i] = v.mean;
-    this.maxOverlap[i] = v.maxOverlap;
-    this.confidence[i] = v.confidence;
-    this.setAside[i] = v.setAside;
-    this.held[i] = v.held === undefined ? 0 : 1 + HELD_REASONS.indexOf(v.held);
-    this.coverageA[i] = v.coverageA;
-    this.coverageB[i] = v.coverageB;
-    this.runs[i] = this.runList(v.runs);
-    this.decision[i] = v.decision ?? -1;
-    this.matchStart[i] = v.matchStart;
+  set(this: LinkColumns, i: number, v: LinkValues): void {
+    const writers = (this.writers ??= NAMES.map((name) => codec(name).writer(this[name] as never, name, this)));
+    for (const write of writers) write(i, v);
   }
 
-  private runList(runs: readonly number[]): number {
+  /** The index of a run list in `runLists`, added when new. */
+  runList(runs: readonly number[]): number {
     const key = runs.join(',');
     let n = this.runListIndex.get(key);
     if (n === undefined) {
@@ -109,51 +124,31 @@ export class LinkColumns {
     return n;
   }
 
-  setStatus(i: number, status: LinkStatus): void {
+  setStatus(this: LinkColumns, i: number, status: LinkStatus): void {
     this.status[i] = STATUSES.indexOf(status);
   }
 
-  statusOf(i: number): LinkStatus {
+  statusOf(this: LinkColumns, i: number): LinkStatus {
     return STATUSES[this.status[i]];
   }
 
   /** Withholds link `i`: status `candidate`, with the reason (the cluster stage's cuts; the link stage's own holds). */
-  hold(i: number, reason: HeldReason): void {
+  hold(this: LinkColumns, i: number, reason: HeldReason): void {
     this.status[i] = STATUSES.indexOf('candidate');
     this.held[i] = 1 + HELD_REASONS.indexOf(reason);
   }
 
-  /** Read-only records for every link, in column order. */
-  records(): Link[] {
-    return Array.from({ length: this.size }, (_, i) => new LinkRecord(this, i));
-  }
-}
-
-/** One link read from the columns (see {@link Link} for the meaning of each field). */
-class LinkRecord implements Link {
-  constructor(private readonly c: LinkColumns, private readonly i: number) {}
-  get a(): number { return this.c.a[this.i]; }
-  get b(): number { return this.c.b[this.i]; }
-  get kind(): LinkKind { return KINDS[this.c.kind[this.i]]; }
-  get status(): LinkStatus { return STATUSES[this.c.status[this.i]]; }
-  get part(): number | undefined { const p = this.c.part[this.i]; return p < 0 ? undefined : p; }
-  get support(): number { return this.c.support[this.i]; }
-  get reliableSupport(): number { return this.c.reliableSupport[this.i]; }
-  get best(): number { return this.c.best[this.i]; }
-  get mean(): number { return this.c.mean[this.i]; }
-  get maxOverlap(): number { return this.c.maxOverlap[this.i]; }
-  get confidence(): number { return this.c.confidence[this.i]; }
-  get setAside(): number { return this.c.setAside[this.i]; }
-  get held(): HeldReason | undefined { const h = this.c.held[this.i]; return h === 0 ? undefined : HELD_REASONS[h - 1]; }
-  get coverageA(): number { return this.c.coverageA[this.i]; }
-  get coverageB(): number { return this.c.coverageB[this.i]; }
-  get runs(): number[] { return this.c.runLists[this.c.runs[this.i]]; }
-  get decision(): number | undefined { const d = this.c.decision[this.i]; return d < 0 ? undefined : d; }
-  get matchStart(): number { return this.c.matchStart[this.i]; }
-
-  /** The plain values (for tests and debugging: getters are not own properties). */
-  toJSON(): LinkValues {
-    const { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, confidence, setAside, held, coverageA, coverageB, runs, decision, matchStart } = this;
-    return { a, b, kind, status, part, support, reliableSupport, best, mean, maxOverlap, confidence, setAside, held, coverageA, coverageB, runs, decision, matchStart };
+  /** Read-only records for every link, in column order: one getter per field of FIELDS (see {@link Link}). */
+  records(this: LinkColumns): Link[] {
+    class LinkRecord {
+      constructor(readonly i: number) {}
+      /** The plain values (for tests and debugging: getters are not own properties). */
+      toJSON(): LinkValues {
+        const self = this as unknown as LinkValues;
+        return Object.fromEntries(NAMES.map((name) => [name, self[name]])) as LinkValues;
+      }
+    }
+    for (const name of NAMES) Object.defineProperty(LinkRecord.prototype, name, { get: codec(name).getter(this[name] as never, this) });
+    return Array.from({ length: this.size }, (_, i) => new LinkRecord(i) as unknown as Link);
   }
 }

@@ -2,7 +2,7 @@
 import type { Model, Policy } from '../model.js';
 import type { Problem } from '../errors.js';
 import { refRank } from '../model.js';
-import { LinkColumns, type LinkValues } from './columns.js';
+import { linkColumns, type LinkColumns, type LinkValues } from './columns.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
 import { weighEvidence, type WeighedEvidence } from '../evidence/index.js';
 import { sameConfidence, triangles } from './confidence.js';
@@ -67,7 +67,7 @@ export function link(model: Model, policy: Policy = model.project.policy, eviden
   for (let g = 0; g < groups; g++) if (decided.has(groupKey(g))) evidenced.add(groupKey(g));
   const decisionOnly = [...decided.keys()].filter((k) => !evidenced.has(k)).sort((p, q) => p - q);
 
-  const columns = new LinkColumns(groups + decisionOnly.length);
+  const columns = linkColumns(groups + decisionOnly.length);
   const scratch: Scratch = { discBest: new Float64Array(columns.size), photos: new Int32Array(columns.size) };
   const make = (a: number, b: number, start: number, count: number, decision: number | undefined) =>
     makeLink(model, policy, evidence.setAside, a, b, matchRows, start, count, decision, scratch, n);

@@ -12,6 +12,8 @@ import { DATE_LANGUAGES } from '../dates/index.js';
 
 /** Below this many pixels on the shorter side, visual matching gets unreliable (rule of thumb of the trade, no published source). */
 export const MIN_IMAGE_SIDE = 300;
+/** Largest size a pixel column may give: what an Int32Array holds (no photograph comes near it). */
+const MAX_PIXELS = 0x7fffffff;
 
 export interface ImageColumns {
   work: Column<Int32Array>;
@@ -19,6 +21,9 @@ export interface ImageColumns {
   id: string[];
   /** 1 + index into IMAGE_ROLES per image; 0 = not recorded. */
   role: number[];
+  /** Pixels; 0 = not recorded. */
+  width: Column<Int32Array>;
+  height: Column<Int32Array>;
 }
 
 /** Reads one partner's export into the shared work and image tables (design: "Catalogue export"). */
@@ -80,15 +85,18 @@ export async function loadCatalogue(
         else warnings.push({ file, line: row.line, field: c.image, message: `image "${imageId}" is listed twice`, hint: `first on line ${images.line.data[seen]}; the repeat is ignored` });
         continue;
       }
+      let width = 0, height = 0;
       if (c.width && c.height) {
         const wpx = Number(row.get(c.width).trim());
         const hpx = Number(row.get(c.height).trim());
         const rawW = row.get(c.width).trim();
         const rawH = row.get(c.height).trim();
         for (const [col, raw, v] of [[c.width, rawW, wpx], [c.height, rawH, hpx]] as const)
-          if (raw !== '' && !(Number.isInteger(v) && v > 0)) problems.add({ file, line: row.line, field: col, message: `"${raw}" is not a positive whole number of pixels`, hint: 'leave it blank when unknown' });
+          if (raw !== '' && !(Number.isInteger(v) && v > 0 && v <= MAX_PIXELS)) problems.add({ file, line: row.line, field: col, message: `"${raw}" is not a positive whole number of pixels`, hint: 'leave it blank when unknown' });
         if (rawW !== '' && rawH !== '' && Math.min(wpx, hpx) < MIN_IMAGE_SIDE && Math.min(wpx, hpx) > 0)
           warnings.push({ file, line: row.line, field: `${c.width}/${c.height}`, message: `image "${imageId}" is ${wpx}×${hpx} px, under ${MIN_IMAGE_SIDE} px on its shorter side`, hint: 'matches on it are unreliable; a larger scan would help' });
+        if (rawW !== '' && Number.isInteger(wpx) && wpx > 0) width = wpx;
+        if (rawH !== '' && Number.isInteger(hpx) && hpx > 0) height = hpx;
       }
       let role = 0;
       if (c.role) {
@@ -102,6 +110,8 @@ export async function loadCatalogue(
       images.id.push(imageId);
       images.work.push(w);
       images.line.push(row.line);
+      images.width.push(width);
+      images.height.push(height);
       imageIndex.set(imageId, img);
       works[w].imageCount++;
     }

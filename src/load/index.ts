@@ -33,7 +33,7 @@ export async function load(projectFile: string): Promise<Loaded> {
   const works: Work[] = [];
   const workIndex = project.partners.map(() => new Map<string, number>());
   const imageIndex = project.partners.map(() => new Map<string, number>());
-  const images: ImageColumns = { work: int32(), line: int32(), id: [], role: [] };
+  const images: ImageColumns = { work: int32(), line: int32(), id: [], role: [], width: int32(), height: int32() };
 
   for (const [i, partner] of project.partners.entries()) {
     await loadCatalogue(i, partner, works, workIndex[i], images, imageIndex[i], problems, warnings);
@@ -73,7 +73,7 @@ export async function load(projectFile: string): Promise<Loaded> {
     project,
     works,
     workIndex,
-    images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim(), role: Uint8Array.from(images.role) },
+    images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim(), role: Uint8Array.from(images.role), width: images.width.trim(), height: images.height.trim() },
     matches: { count: m.a.length, a: m.a.trim(), b: m.b.trim(), score: m.score.trim(), overlap: m.overlap.trim(), run: m.run.trim(), file: m.file.trim(), line: m.line.trim() },
     runs,
     evidenceFiles,

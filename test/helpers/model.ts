@@ -90,7 +90,7 @@ export function tinyModel(spec: TinySpec): Model {
     },
     works,
     workIndex,
-    images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2), role },
+    images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2), role, width: new Int32Array(imgId.length), height: new Int32Array(imgId.length) },
     matches: {
       count: m.length,
       a: Int32Array.from(m, (r) => imageNo(r[0])),
