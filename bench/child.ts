@@ -61,6 +61,13 @@ const JOBS: Record<string, Job> = {
     return { ms: performance.now() - t, triples: outcome.triples, violations: outcome.violations };
   },
   /** load <project>: the load stage alone. */
+  /** site <release> <out>: the release as a static site (src/site) */
+  async site([release, out]) {
+    const { writeSite } = await import('../src/site/index.js');
+    const t = performance.now();
+    const r = await writeSite(release, out);
+    return { ms: performance.now() - t, bytes: r.bytes, files: r.files, documents: r.documents };
+  },
   async load([project]) {
     const t = performance.now();
     const { model, stats } = await load(project);

@@ -104,6 +104,16 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
   const v = child('validate', [nq]);
   say('concordat validate concordance.nq: time / peak RSS', v.out ? `${s(v.out.ms)} (CPU ${s(v.cpuMs)}), ${rate(v.out.triples, v.out.ms)} / ${mib(v.peakKiB)}` : `FAILED: ${v.error}`);
 
+  // the release as a static site (target: written in no more than the build's own time, at most 1.5× its bytes)
+  const site = child('site', [path.join(dir, 'release'), path.join(dir, 'site')]);
+  if (site.out) {
+    const rel = Number(spawnSync('du', ['-sb', '--apparent-size', path.join(dir, 'release')], { encoding: 'utf8' }).stdout.split('\t')[0]);
+    say('site: time / peak RSS', `${s(site.out.ms)} (CPU ${s(site.cpuMs)}) / ${mib(site.peakKiB)}: ${site.out.documents} documents, ${site.out.files} files`);
+    say('RATIO site time / build time (with SHACL)', `${(site.out.ms / fullMs).toFixed(2)}×  (target: ≤ 1×)`);
+    say('RATIO site bytes / release bytes', `${(site.out.bytes / rel).toFixed(2)}× (${(site.out.bytes / 2 ** 30).toFixed(2)} GiB, downloads hard-linked and not counted)  (target: ≤ 1.5×)`);
+  } else say('site', `FAILED after ${s(site.wallMs)}: ${site.error}`);
+  if (!keep) rmSync(path.join(dir, 'site'), { recursive: true, force: true });
+
   if (whole) {
     const w = child('whole', [nq, 'rdf-validate-shacl']);
     if (w.out) {

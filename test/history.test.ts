@@ -80,6 +80,7 @@ test('retirement: a cluster whose only link disappeared is a tombstone with no s
   const earlier = `${gone}/v/1`;
   assert.deepEqual(objects(s2, earlier, P('cx', 'status')), [iri('cx', 'Proposed')]);
   assert.deepEqual(objects(s2, earlier, P('dcterms', 'isVersionOf')), [gone]);
+  assert.deepEqual(objects(s2, earlier, P('rdf', 'type')).sort(), [iri('cx', 'LinkState'), iri('prov', 'Entity')].sort(), 'an earlier state is no cx:Link');
   assert.equal(objects(s2, earlier, P('prov', 'wasDerivedFrom')).length, 1, 'the earlier state keeps its image match');
 });
 

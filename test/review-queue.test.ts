@@ -20,7 +20,10 @@ const VIEW = 'https://vellmar.example.org/viewer/{work}/{image}?size=full';
 const built = (async () => {
   cpSync(path.join(repoRoot, 'demo-data'), path.join(tmp, 'demo'), { recursive: true, filter: (f) => !f.includes(`${path.sep}releases`) });
   const p = JSON.parse(readFileSync(project, 'utf8'));
-  p.partners.find((x: { key: string }) => x.key === 'vellmar').imageView = VIEW;
+  for (const x of p.partners as { key: string; imageView?: string }[]) {
+    if (x.key === 'vellmar') x.imageView = VIEW;
+    else delete x.imageView; // only one partner with a template here: the others must show no views
+  }
   writeFileSync(project, JSON.stringify(p, null, 2));
   await build(project, release);
   const rows: Record<string, string>[] = [];

@@ -187,3 +187,20 @@ test('a link IRI from any earlier release resolves: release 3 no longer describe
   for (const v of ['2026.1', '2027.1']) assert.equal((await fetch(`${origin}/dataset/${v}`, { headers: { accept: 'text/turtle' } })).status, 200, v);
   assert.equal((await fetch(`${origin}/releases/2026.1/concordance.nq`)).status, 200);
 });
+
+test('cluster pages cite as `concordat cite <cluster IRI>` does: the plain-text citation is the same text', async () => {
+  const d = await demoSitesOnce();
+  const { cite, CITE_FORMATS } = await import('../src/cite/index.js');
+  const ids = readdirSync(path.join(d.site2, 'work')).filter((f) => /^c\d+\.html$/.test(f)).map((f) => f.slice(0, -5)).slice(0, 25);
+  let compared = 0;
+  for (const id of ids) {
+    const page = readFileSync(path.join(d.site2, 'work', `${id}.html`), 'utf8');
+    const m = /<pre id="cite-text"[^>]*>([^]*?)<\/pre>/.exec(page);
+    if (!m) continue;
+    const shown = m[1].replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+    const expected = await CITE_FORMATS.text(await cite(`${BASE}work/${id}`, { release: d.release2 }));
+    assert.equal(shown, expected, id);
+    compared++;
+  }
+  assert.ok(compared >= 10, `only ${compared} clusters compared`);
+});

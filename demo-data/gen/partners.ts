@@ -30,8 +30,8 @@ export interface PartnerSpec {
   narrow: readonly DateStyle[];
   /** Row order of the export. */
   order: 'work' | 'image' | 'shuffled';
-  /** Path segments of the IRI templates. */
-  paths: { work: string; image: string; page: string };
+  /** Path segments of the IRI templates; `view`: a template path (with {image}, maybe {work}) where a photo can be viewed. */
+  paths: { work: string; image: string; page: string; view?: string };
 }
 
 export const PARTNERS: Record<PartnerKey, PartnerSpec> = {
@@ -41,7 +41,7 @@ export const PARTNERS: Record<PartnerKey, PartnerSpec> = {
     columns: [['Object number', 'work'], ['Photo number', 'image'], ['Title', 'title'], ['Date', 'date'],
       ['Photographer', 'photographer'], ['Width (px)', 'width'], ['Height (px)', 'height']],
     lang: 'en', styles: [['year', 4], ['ca', 2], ['late-century', 3], ['century', 2]], narrow: ['year', 'ca'],
-    order: 'work', paths: { work: 'id/work/', image: 'id/photo/', page: 'collection/object/' },
+    order: 'work', paths: { work: 'id/work/', image: 'id/photo/', page: 'collection/object/', view: 'viewer/{work}/{image}' },
   },
   kessling: {
     key: 'kessling', name: 'Kessling Institute for Art History, Photothek', host: 'kessling.example.org',
@@ -50,7 +50,7 @@ export const PARTNERS: Record<PartnerKey, PartnerSpec> = {
       ['Fotograf', 'photographer'], ['Standort', 'location']],
     lang: 'de', styles: [['year', 2], ['edtf-decade', 2], ['ca', 2], ['range', 2]],
     narrow: ['year', 'ca'], order: 'image',
-    paths: { work: 'id/objekt/', image: 'id/aufnahme/', page: 'photothek/objekt/' },
+    paths: { work: 'id/objekt/', image: 'id/aufnahme/', page: 'photothek/objekt/', view: 'bilder/{image}/full/max/0/default.jpg' },
   },
   fontclaire: {
     key: 'fontclaire', name: 'Photothèque de la Maison Fontclaire', host: 'fontclaire.example.org',

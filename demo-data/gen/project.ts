@@ -26,6 +26,7 @@ function partner(key: PartnerKey, prefix: string) {
     workIri: `https://${p.host}/${p.paths.work}{work}`,
     imageIri: `https://${p.host}/${p.paths.image}{image}`,
     recordPage: `https://${p.host}/${p.paths.page}{work}`,
+    ...(p.paths.view ? { imageView: `https://${p.host}/${p.paths.view}` } : {}),
     ...(p.convention ? { centuryConvention: p.convention } : {}),
     ...(p.language ? { language: p.language } : {}),
     catalogue: { file: prefix + p.file, delimiter: p.format.delimiter, columns },

@@ -37,15 +37,16 @@ export function register(program: Command): void {
     )
     .action(async (release: string, opts: LoadOpts) => {
       const { openStore } = await import('../store/open.js');
-      const { loadPlanned, planRelease } = await import('../store/release.js');
+      const { loadRelease, planRelease } = await import('../store/release.js');
       if (opts.query) deprecated('--query', '--query-endpoint');
       const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.queryEndpoint ?? opts.query });
       try {
         const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
         const t0 = performance.now();
-        const done = await loadPlanned(store, plan);
+        const { loads: done, dropped } = await loadRelease(store, plan, { graph: opts.graph });
         const graphs = done.map((d) => ({ graph: d.graph, triples: d.triples }));
-        process.stdout.write(opts.json ? JSON.stringify({ release, graphs }, null, 2) + '\n' : graphs.map((g) => `${g.graph}\t${g.triples}\n`).join(''));
+        for (const d of dropped) process.stderr.write(`concordat: removed <${d.graph}> from the store: it held ${d.release ? `release ${d.release}` : 'no release version'}, not the one loaded\n`);
+        process.stdout.write(opts.json ? JSON.stringify({ release, graphs, dropped }, null, 2) + '\n' : graphs.map((g) => `${g.graph}\t${g.triples}\n`).join(''));
         if (process.stderr.isTTY) process.stderr.write(`loaded ${done.length} graph(s) in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
       } finally {
         await store.close();

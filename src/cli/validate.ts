@@ -1,7 +1,7 @@
 // `concordat validate <files...>`: options → SHACL validation of RDF files, printed summary and exit code.
 import { Option, type Command } from 'commander';
 import type { ShaclEngine } from '../validate/shacl.js';
-import { EXIT } from '../errors.js';
+import { EXIT, UserError } from '../errors.js';
 
 const EXAMPLE = `
 Exit status: 0 when no result has severity sh:Violation (warnings and infos are listed but pass),
@@ -27,6 +27,9 @@ export function register(program: Command): void {
       const { BoundedValidation } = await import('../validate/bounded.js');
       const { writeValidationReport } = await import('../validate/report.js');
       const { summaryJson, summaryText } = await import('../validate/summary.js');
+      const { existsSync } = await import('node:fs');
+      if (opts.report && existsSync(opts.report)) // never overwrite a file (a release's own Turtle included)
+        throw new UserError({ file: opts.report, line: 0, field: '--report', message: 'already exists', hint: 'give a new file name; an existing file is never overwritten' });
       const shapes = await loadShapesFolder(opts.shapes ?? defaultShapesDir());
       const run = new BoundedValidation(shapes.quads, { shapesLabel: opts.shapes ?? 'shapes', engine: opts.shaclEngine, dataLabel: files.join(' ') });
       try {

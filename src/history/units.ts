@@ -55,7 +55,7 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
  * Units for what changed since `previous` (PROV-O §3.2 expanded terms; standards digest §2 and §3):
  * - the release activity `{base}release/{version}` (prov:Activity, cx:Release), dated by the project's release date;
  * - for each link whose status or kind changed, or that is gone: its earlier state `{link}/v/{previous version}`
- *   (a cx:Link with the old status, relation, kind, score, image matches and provenance, `dcterms:isVersionOf` the
+ *   (a cx:LinkState, not a cx:Link, with the old status, relation, kind, score, image matches and provenance, `dcterms:isVersionOf` the
  *   link; matches this release no longer holds are copied from the previous one);
  *   the link `prov:wasRevisionOf` that state when it is still published;
  * - a claim that is gone or now rejected: `prov:wasInvalidatedBy` the release activity, `prov:invalidatedAtTime` its date;
@@ -100,7 +100,7 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     const p = inGraph(G, quads);
     const L = nn(old.iri);
     const E = nn(earlierStateIri(old.iri, prev.version));
-    p(E, a, term('cx', 'Link'));
+    p(E, a, term('cx', 'LinkState'));
     p(E, a, term('prov', 'Entity'));
     p(E, term('cx', 'subjectWork'), nn(old.subject));
     p(E, term('cx', 'objectWork'), nn(old.object));

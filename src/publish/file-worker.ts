@@ -35,7 +35,7 @@ export type UnitText = [texts: (string | null)[], targets: number[]];
 /** Messages to the worker: a batch of units, or the end. */
 export type FileWorkerMessage = { units: UnitText[] } | { slab: number; records: SlabRecords } | { end: true };
 /** Replies: a message done (and its slab free again), the files closed with their hashes (relative path → hex), or an error. */
-export type FileWorkerReply = { ack: true; slab?: number } | { hashes: [string, string][] } | { error: string };
+export type FileWorkerReply = { ack: true; slab?: number } | { hashes: [string, string][] } | { error: string; code?: string; syscall?: string; path?: string };
 
 const BLOCK = 1 << 20;
 
@@ -138,6 +138,7 @@ parentPort!.on('message', (m: FileWorkerMessage) => {
       parentPort!.postMessage({ ack: true, slab: m.slab } satisfies FileWorkerReply);
     } else parentPort!.postMessage({ hashes: close() } satisfies FileWorkerReply);
   } catch (e) {
-    parentPort!.postMessage({ error: e instanceof Error ? e.message : String(e) } satisfies FileWorkerReply);
+    const { code, syscall, path } = (e ?? {}) as NodeJS.ErrnoException; // an OS error keeps its errno for the message
+    parentPort!.postMessage({ error: e instanceof Error ? e.message : String(e), code, syscall, path } satisfies FileWorkerReply);
   }
 });

@@ -14,6 +14,7 @@ import { ReleaseWriter } from './rdf-files.js';
 import { gzipCopies } from './compress.js';
 import { nn, typed } from '../rdf/terms.js';
 import { iri } from '../namespaces.js';
+import { TEMP_MARKER } from '../io/atomic.js';
 
 export interface PublishResult {
   triples: number;
@@ -91,7 +92,7 @@ export async function writeChecksums(dir: string, known: ReadonlyMap<string, str
   const files = (await readdir(dir, { recursive: true, withFileTypes: true }))
     .filter((d) => d.isFile())
     .map((d) => path.relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name)).split(path.sep).join('/'))
-    .filter((f) => f !== 'SHA256SUMS')
+    .filter((f) => f !== 'SHA256SUMS' && f !== TEMP_MARKER)
     .sort();
   const lines: string[] = [];
   for (const f of files) lines.push(`${known.get(f) ?? (await sha256(path.join(dir, f)))}  ${f}`);

@@ -73,7 +73,7 @@ export class ReleaseWriter {
         this.inFlight--;
         if (r.slab !== undefined) this.free.push(r.slab);
       } else if ('hashes' in r) this.hashes = new Map(r.hashes);
-      else this.fail(new Error(`writing the release files: ${r.error}`));
+      else this.fail(Object.assign(new Error(`writing the release files: ${r.error}`), { code: r.code, syscall: r.syscall, path: r.path }));
       this.wake();
     });
     this.worker.on('error', (e) => this.fail(e));

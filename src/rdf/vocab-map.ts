@@ -45,9 +45,29 @@ function readMapFile(file: string, seen: Set<string>): { prefixes: Record<string
   return { prefixes: { ...parent.prefixes, ...own.prefixes }, claims: [...own.claims, ...parent.claims], iris: { ...parent.iris, ...own.iris } };
 }
 
+const slotsOf = (pattern: string): string[] => [...pattern.matchAll(/\{([^{}]*)\}/g)].map((m) => m[1]);
+
+/**
+ * Checks every IRI pattern when the map loads (RFC 6570 level-1 slots, as the RDF stage fills them): each name is one
+ * the RDF stage mints, each `{slot}` one it fills for that name (those of the shipped map's pattern), no stray brace.
+ */
+function checkPatterns(file: string, iris: Record<string, string>): void {
+  const shipped = path.resolve(file) === DEFAULT_VOCAB_MAP ? iris : readMapFile(DEFAULT_VOCAB_MAP, new Set()).iris;
+  const bad = (name: string, message: string, hint: string) => new UserError({ file, line: 0, field: `iris.${name}`, message, hint });
+  for (const name of Object.keys(shipped)) if (iris[name] === undefined) throw bad(name, 'no IRI pattern for this name', `give one, e.g. "${shipped[name]}", or "extends" the shipped map`);
+  for (const [name, pattern] of Object.entries(iris)) {
+    if (shipped[name] === undefined) throw bad(name, 'is no IRI pattern name concordat fills', `known: ${Object.keys(shipped).sort().join(', ')}`);
+    const allowed = slotsOf(shipped[name]);
+    for (const slot of slotsOf(pattern))
+      if (!allowed.includes(slot)) throw bad(name, `"{${slot}}" is not filled for this pattern`, `slots for "${name}": ${allowed.map((a) => `{${a}}`).join(', ')}`);
+    if (/[{}]/.test(pattern.replace(/\{[^{}]*\}/g, ''))) throw bad(name, `"${pattern}" has an unmatched "{" or "}"`, 'slots are written {name}');
+  }
+}
+
 /** Loads a vocab map (rows of the file first, then those of the file it `extends`; first match wins). */
 export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
   const { prefixes, claims, iris } = readMapFile(path.resolve(file), new Set());
+  checkPatterns(file, iris);
   const expand = (curie: string) => {
     const i = curie.indexOf(':');
     const ns = prefixes[curie.slice(0, i)];

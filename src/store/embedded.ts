@@ -5,7 +5,10 @@ import { join, relative, resolve } from 'node:path';
 import { Store as OxStore, namedNode } from 'oxigraph';
 import { UserError, EXIT } from '../errors.js';
 import { sparqlIri, queryForm } from './bind.js';
-import { ensureFolder, graphFileName, readManifest, sha256, writeAtomic, writeManifest, type Manifest } from './folder.js';
+import { ensureFolder, graphFileName, readManifest, removeStoreLeftovers, sha256, STORE_LOCK, writeAtomic, writeManifest, type Manifest } from './folder.js';
+import { takeLock, type Lock } from '../util/lock.js';
+import { displayPath } from '../errors.js';
+import { removeOnSignal } from '../util/interrupt.js';
 import { dropGraphNames, type TripleLines } from './lines.js';
 import { parseNTriples, parseResultsJson } from './results.js';
 import type { GraphLoad, GraphSource, QueryResult, Store } from './types.js';
@@ -38,18 +41,42 @@ export class EmbeddedStore implements Store {
     private readonly db: OxStore,
     private readonly folder: string | null,
     private manifest: Manifest,
+    private readonly lock: Lock | null = null,
   ) {}
 
-  /** Opens (or creates) a store folder and loads every graph its manifest lists, checking sha256 and counts. */
-  static async open(folder?: string): Promise<EmbeddedStore> {
+  /** Set inside {@link atomically}: graph files are written, the manifest only once at the end. */
+  private deferred: Manifest | null = null;
+  /** Forget-functions of graph files written inside {@link atomically} that no manifest names yet. */
+  private unnamed: (() => void)[] = [];
+
+  /**
+   * Opens (or creates) a store folder and loads every graph its manifest lists, checking sha256 and counts. With
+   * `lock` (every command that writes), the folder is locked against a second writer until `close`, and what a
+   * stopped load left behind (temp files, graph files no manifest names) is removed first.
+   */
+  static async open(folder?: string, opts: { lock?: boolean } = {}): Promise<EmbeddedStore> {
     const db = new OxStore();
     if (!folder) return new EmbeddedStore(db, null, { version: 1, graphs: {} });
     await ensureFolder(folder);
-    const manifest = await readManifest(folder);
+    const lock = opts.lock ? takeLock(join(folder, STORE_LOCK), 'load', folder, '--store') : null;
+    try {
+      const manifest = await readManifest(folder);
+      if (lock) for (const f of await removeStoreLeftovers(folder, manifest)) process.stderr.write(`concordat: removed ${displayPath(f)}, left by a stopped load\n`);
+      await EmbeddedStore.fill(db, folder, manifest);
+      return new EmbeddedStore(db, folder, manifest, lock);
+    } catch (err) {
+      lock?.release();
+      throw err;
+    }
+  }
+
+  private static async fill(db: OxStore, folder: string, manifest: Manifest): Promise<void> {
     for (const graph of Object.keys(manifest.graphs).sort()) {
       const entry = manifest.graphs[graph];
       const path = join(folder, entry.file);
-      const bytes = await readFile(path);
+      const bytes = await readFile(path).catch(() => {
+        throw new UserError({ file: path, line: 0, field: '', message: 'is named by the manifest but cannot be read', hint: 'a load may have changed the store meanwhile: try again; else load the release into a new folder' }, EXIT.badInput);
+      });
       const damaged = (message: string): UserError =>
         new UserError({ file: path, line: 0, field: '', message, hint: 'the store folder is damaged; load the release into a new folder' }, EXIT.badInput);
       if (sha256(bytes) !== entry.sha256) throw damaged(`sha256 differs from ${join(folder, 'manifest.json')}`);
@@ -57,7 +84,50 @@ export class EmbeddedStore implements Store {
       const n = countIn(db, graph);
       if (n !== entry.triples) throw damaged(`holds ${n} triples for <${graph}>, the manifest says ${entry.triples}`);
     }
-    return new EmbeddedStore(db, folder, manifest);
+  }
+
+  /**
+   * Runs `fn` (loads and drops) so that a store folder changes all at once: graph files are written as they come, the
+   * manifest once at the end (one rename), then files it no longer names are removed. If `fn` fails or the process is
+   * stopped, the folder's manifest still names the earlier state; files written meanwhile are removed by the next
+   * writer. In memory the store is left as `fn` left it (the command ends anyway).
+   */
+  async atomically<T>(fn: () => Promise<T>): Promise<T> {
+    if (!this.folder) return fn();
+    const before = this.manifest;
+    this.deferred = before;
+    let result: T;
+    try {
+      result = await fn();
+    } catch (err) {
+      this.deferred = null;
+      for (const forget of this.unnamed.splice(0)) forget();
+      await removeStoreLeftovers(this.folder, before).catch(() => undefined); // the files written for the abandoned state
+      throw err;
+    }
+    const next = this.deferred;
+    this.deferred = null;
+    await writeManifest(this.folder, next);
+    this.manifest = next;
+    for (const forget of this.unnamed.splice(0)) forget();
+    const keep = new Set(Object.values(next.graphs).map((e) => e.file));
+    for (const e of Object.values(before.graphs)) if (!keep.has(e.file)) await rm(join(this.folder, e.file), { force: true });
+    return result;
+  }
+
+  /** Commits a manifest change: at once, or at the end of {@link atomically}. */
+  private async commit(next: Manifest, removed: string[]): Promise<void> {
+    if (this.deferred) {
+      this.deferred = next;
+      return;
+    }
+    await writeManifest(this.folder!, next);
+    this.manifest = next;
+    for (const f of removed) await rm(join(this.folder!, f), { force: true });
+  }
+
+  private get current(): Manifest {
+    return this.deferred ?? this.manifest;
   }
 
   /**
@@ -96,25 +166,23 @@ export class EmbeddedStore implements Store {
     const digest = sha256(text);
     const file = graphFileName(graph, digest);
     await writeAtomic(join(folder, file), text);
-    const old = this.manifest.graphs[graph]?.file;
+    // until the manifest names it, a stop removes the new graph file (unless an earlier state already names it)
+    if (this.deferred && !Object.values(this.manifest.graphs).some((e) => e.file === file)) this.unnamed.push(removeOnSignal(join(folder, file)));
+    const old = this.current.graphs[graph]?.file;
     const next: Manifest = {
       version: 1,
-      graphs: { ...this.manifest.graphs, [graph]: { file, triples: count, sha256: digest, loadedAt: source.issued ?? null, source: relative(resolve(folder), resolve(source.file)) } },
+      graphs: { ...this.current.graphs, [graph]: { file, triples: count, sha256: digest, loadedAt: source.issued ?? null, source: relative(resolve(folder), resolve(source.file)) } },
     };
-    await writeManifest(folder, next);
-    this.manifest = next;
-    if (old && old !== file) await rm(join(folder, old), { force: true });
+    await this.commit(next, old && old !== file ? [old] : []);
   }
 
   async dropGraph(graph: string): Promise<void> {
     this.db.update(`DROP SILENT GRAPH ${sparqlIri(graph, '--graph')}`);
-    const entry = this.manifest.graphs[graph];
+    const entry = this.current.graphs[graph];
     if (!this.folder || !entry) return;
-    const graphs = { ...this.manifest.graphs };
+    const graphs = { ...this.current.graphs };
     delete graphs[graph];
-    this.manifest = { version: 1, graphs };
-    await writeManifest(this.folder, this.manifest);
-    await rm(join(this.folder, entry.file), { force: true });
+    await this.commit({ version: 1, graphs }, [entry.file]);
   }
 
   async countTriples(graph?: string): Promise<number> {
@@ -145,5 +213,6 @@ export class EmbeddedStore implements Store {
 
   async close(): Promise<void> {
     (this.db as unknown as { free?: () => void }).free?.();
+    this.lock?.release();
   }
 }

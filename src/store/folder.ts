@@ -1,9 +1,10 @@
 // A store folder on disk: one N-Quads file per graph plus manifest.json, written atomically (temp file, rename, manifest last).
 import { createHash, randomBytes } from 'node:crypto';
-import { mkdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { mkdir, readdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { z } from 'zod';
 import { UserError, EXIT } from '../errors.js';
+import { removeOnSignal } from '../util/interrupt.js';
 
 /** What the manifest records for one graph. */
 export interface ManifestEntry {
@@ -35,14 +36,41 @@ export const sha256 = (data: string | Buffer): string => createHash('sha256').up
 
 /** Writes a file atomically: a temp file beside it, then rename (POSIX rename(2) replaces the target in one step). */
 export async function writeAtomic(path: string, data: string): Promise<void> {
-  const tmp = `${path}.tmp-${randomBytes(6).toString('hex')}`;
+  const tmp = `${path}${TEMP_INFIX}${randomBytes(6).toString('hex')}`;
+  const forget = removeOnSignal(tmp);
   try {
     await writeFile(tmp, data);
     await rename(tmp, path);
   } catch (err) {
     await rm(tmp, { force: true });
     throw err;
+  } finally {
+    forget();
   }
+}
+
+/** Temp files are `<name>.tmp-<12 hex>`; anything so named in a locked store folder is a leftover of a stopped load. */
+const TEMP_INFIX = '.tmp-';
+const TEMP_FILE = /\.tmp-[0-9a-f]{12}$/;
+/** The lock file a writing command holds inside the store folder. */
+export const STORE_LOCK = '.concordat.lock';
+
+/**
+ * Removes what a killed load left in a store folder: temp files and graph files the manifest does not name (written
+ * before a manifest that never came). Only call while holding the folder's lock. Returns the removed paths.
+ */
+export async function removeStoreLeftovers(folder: string, m: Manifest): Promise<string[]> {
+  const named = new Set(Object.values(m.graphs).map((e) => e.file));
+  const removed: string[] = [];
+  for (const [sub, names] of [['', await readdir(folder)], ['graphs', await readdir(join(folder, 'graphs'))]] as const)
+    for (const name of names) {
+      const rel = sub ? `${sub}/${name}` : name;
+      if (TEMP_FILE.test(name) || (sub === 'graphs' && name.endsWith('.nq') && !named.has(rel))) {
+        await rm(join(folder, rel), { force: true });
+        removed.push(join(folder, rel));
+      }
+    }
+  return removed.sort();
 }
 
 /** Reads and checks manifest.json; a folder without one is an empty store. */

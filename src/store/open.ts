@@ -28,7 +28,7 @@ export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Pro
   if (c.store && isRemote) throw usage('--store', 'cannot be combined with remote endpoint options', 'choose the store folder or the endpoints');
   if (c.store && c.existing && !existsSync(join(c.store, MANIFEST)))
     throw usage('--store', `${c.store} holds no loaded release`, 'load one first: concordat load <release> --store <folder>');
-  if (c.store) return EmbeddedStore.open(c.store);
+  if (c.store) return EmbeddedStore.open(c.store, { lock: !c.existing });
   if (!c.query) throw usage('--store', 'no store given', 'give --store <folder>, or the remote endpoint URLs');
   for (const [field, url] of Object.entries({ '--endpoint': c.endpoint, '--update': c.update, '--query-endpoint': c.query })) {
     if (url && !/^https?:\/\//.test(url)) throw usage(field, `"${url}" is not an http(s) URL`, 'e.g. http://127.0.0.1:8890/sparql');

@@ -7,6 +7,7 @@ import { iri } from '../namespaces.js';
 import { dropGraphNames, scanTerms, splitByGraph } from './lines.js';
 import type { GraphLoad, GraphSource, Store } from './types.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
+import { verifyRelease } from './complete.js';
 
 /** One graph to load. */
 export interface PlannedGraph {
@@ -61,6 +62,7 @@ async function partnerPlan(folder: string, key: string, graph: string | undefine
     const known = existsSync(join(folder, 'partners')) ? (await readdir(join(folder, 'partners'))).filter((f) => f.endsWith('.nq')).map((f) => f.slice(0, -3)).sort() : [];
     throw bad(file, '--partner', 'no such partner slice in the release', known.length ? `partners in this release: ${known.join(', ')}` : 'the release has no partners/ folder');
   }
+  await verifyRelease(folder, [`partners/${key}.nq`]);
   const text = await readRequired(file, '--partner', 'check the release folder');
   const parts = splitByGraph(text, file);
   let target = graph;
@@ -82,6 +84,7 @@ async function partnerPlan(folder: string, key: string, graph: string | undefine
 export async function planRelease(folder: string, opts: ReleaseLoadOptions = {}): Promise<PlannedGraph[]> {
   if (!existsSync(folder)) throw bad(folder, '', 'no such release folder', 'give the folder a build wrote');
   if (opts.partner !== undefined) return partnerPlan(folder, opts.partner, opts.graph);
+  await verifyRelease(folder, [CONCORDANCE]);
   const file = join(folder, CONCORDANCE);
   const text = await readRequired(file, '', `a release folder holds ${CONCORDANCE}`);
   const issued = issuedIn(text);
@@ -97,4 +100,78 @@ export async function loadPlanned(store: Store, plan: PlannedGraph[]): Promise<G
   const done: GraphLoad[] = [];
   for (const p of plan) done.push(await store.loadGraph(p.graph, p.source));
   return done;
+}
+
+/** A graph of the same concordance that held another release and was removed by a load. */
+export interface DroppedGraph {
+  graph: string;
+  /** The release version the graph held (its dataset description's dcat:version), null when it held none. */
+  release: string | null;
+}
+
+/** What loading a release did. */
+export interface ReleaseLoad {
+  loads: GraphLoad[];
+  /** The loaded release's version, when its graphs describe it. */
+  version: string | null;
+  dropped: DroppedGraph[];
+}
+
+/** `{base}graph/…`: the graph names a release uses (claims, evidence, provenance, dataset, partner/<key>). */
+const OWN_GRAPH = /^(.*)graph\/(?:claims|evidence|provenance|dataset|partner\/[^/]+)$/;
+const DCAT = 'http://www.w3.org/ns/dcat#';
+const VERSIONS = `SELECT DISTINCT ?g ?v WHERE { GRAPH ?g { ?d a <${DCAT}Dataset> ; <${DCAT}version> ?v } }`;
+
+/** Release version per graph that describes its dataset (the dataset graph, a partner slice's graph). */
+async function versionsIn(store: Store): Promise<Map<string, Set<string>>> {
+  const r = await store.query(VERSIONS);
+  const out = new Map<string, Set<string>>();
+  if (r.kind !== 'bindings') return out;
+  for (const row of r.rows) {
+    if (!row.g || !row.v) continue;
+    (out.get(row.g.value) ?? out.set(row.g.value, new Set()).get(row.g.value)!).add(row.v.value);
+  }
+  return out;
+}
+
+const only = (s: Set<string> | undefined): string | null => (s && s.size === 1 ? [...s][0] : null);
+
+/**
+ * After a release's graphs are loaded: removes every other graph of the same concordance (`{base}graph/…`) that holds
+ * another release, so the store holds one release per concordance (a partner graph of release 1 would otherwise
+ * stay beside release 2's graphs). A graph's release is its dataset description's version; claims, evidence and
+ * provenance graphs take the version of `{base}graph/dataset`. Graphs outside `{base}graph/` are never touched.
+ */
+async function dropOtherReleases(store: Store, plan: PlannedGraph[]): Promise<{ version: string | null; dropped: DroppedGraph[] }> {
+  const base = plan.map((p) => OWN_GRAPH.exec(p.graph)?.[1]).find((b) => b !== undefined);
+  if (base === undefined) return { version: null, dropped: [] };
+  const versions = await versionsIn(store);
+  const version = plan.map((p) => only(versions.get(p.graph))).find((v) => v !== null) ?? null;
+  if (version === null) return { version, dropped: [] };
+  const loaded = new Set(plan.map((p) => p.graph));
+  const main = only(versions.get(`${base}graph/dataset`));
+  const dropped: DroppedGraph[] = [];
+  for (const g of await store.listGraphs()) {
+    if (loaded.has(g) || OWN_GRAPH.exec(g)?.[1] !== base) continue;
+    const v = versions.has(g) ? only(versions.get(g)) : main;
+    if (v === version) continue;
+    await store.dropGraph(g);
+    dropped.push({ graph: g, release: v });
+  }
+  return { version, dropped };
+}
+
+/**
+ * Loads a release: each planned graph replaced all or nothing, then the same concordance's graphs of other releases
+ * removed (see dropOtherReleases). In a store folder all of it is one change (one manifest write); a remote store
+ * replaces graph by graph. With `--graph` (everything into one graph of the user's choosing) nothing else is touched.
+ */
+export async function loadRelease(store: Store, plan: PlannedGraph[], opts: ReleaseLoadOptions = {}): Promise<ReleaseLoad> {
+  const run = async (): Promise<ReleaseLoad> => {
+    await store.removeLeftovers?.();
+    const loads = await loadPlanned(store, plan);
+    const { version, dropped } = opts.graph ? { version: null, dropped: [] } : await dropOtherReleases(store, plan);
+    return { loads, version, dropped };
+  };
+  return store.atomically ? store.atomically(run) : run();
 }

@@ -57,4 +57,8 @@ export interface Store {
   query(sparql: string): Promise<QueryResult>;
   /** Releases resources (connections); the store is unusable afterwards. */
   close(): Promise<void>;
+  /** Runs loads and drops so that they take effect together (a store folder: one manifest write). */
+  atomically?<T>(fn: () => Promise<T>): Promise<T>;
+  /** Removes what stopped loads left (a remote store's staging graphs); says what it removed, or could not. */
+  removeLeftovers?(): Promise<void>;
 }

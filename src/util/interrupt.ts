@@ -1,0 +1,66 @@
+// SIGINT/SIGTERM → what the command started on disk is removed, one line on stderr, exit 130/143 (128 + signal number).
+import { rmSync } from 'node:fs';
+import { displayPath } from '../errors.js';
+
+/** Paths to remove if the process is interrupted, in the order they were made. */
+const started = new Map<number, string>();
+let next = 0;
+
+/**
+ * Registers a temp folder, temp file or lock to remove when a signal stops the command; returns the function that
+ * forgets it again (call it once the path was renamed into place or removed by the normal path).
+ */
+export function removeOnSignal(p: string): () => void {
+  const id = next++;
+  started.set(id, p);
+  return () => {
+    started.delete(id);
+  };
+}
+
+/** Exit status of a process ended by a signal, as shells report it (POSIX: 128 + signal number). */
+export const SIGNAL_EXIT = { SIGINT: 130, SIGTERM: 143 } as const;
+
+const removeNow = (paths: string[]): void => {
+  for (const p of paths)
+    try {
+      // worker threads may still be creating files inside a folder: retry on ENOTEMPTY/EBUSY
+      rmSync(p, { recursive: true, force: true, maxRetries: 5, retryDelay: 20 });
+    } catch {
+      // left for the next run: temp folders carry an owner record and are removed once their owner is gone
+    }
+};
+
+/**
+ * Removes every registered path, newest first. Twice: a file write already queued in libuv's thread pool (or a worker
+ * thread's) can create its file just after the first pass, so the main thread blocks ~50 ms (no JS of the command runs
+ * meanwhile) and removes again.
+ */
+export function removeStarted(): string[] {
+  const paths = [...started.values()].reverse();
+  started.clear();
+  removeNow(paths);
+  Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 50);
+  removeNow(paths);
+  return paths;
+}
+
+let installed = false;
+
+/**
+ * Installs the handlers once per process. A signal stops the command, removes what it had started (temp folders,
+ * temp files, locks) and exits 130 (SIGINT) or 143 (SIGTERM) after one line saying so.
+ */
+export function exitCleanlyOnSignals(): void {
+  if (installed) return;
+  installed = true;
+  for (const signal of Object.keys(SIGNAL_EXIT) as (keyof typeof SIGNAL_EXIT)[]) {
+    process.on(signal, () => {
+      const temps = [...started.values()].filter((p) => !/\.lock$/.test(p));
+      removeStarted();
+      const what = temps.length ? `; removed ${temps.map(displayPath).join(', ')}` : '';
+      process.stderr.write(`concordat: stopped by ${signal}${what}\n`);
+      process.exit(SIGNAL_EXIT[signal]);
+    });
+  }
+}
