@@ -87,7 +87,7 @@ export interface ProjectConfig {
   vocabMap?: string;
   /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
   /** `csv`: how review-queue.csv, conflicts.csv and clusters.csv are written (absent = spreadsheet: BOM, CRLF). */
-  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain' };
+  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain'; compress?: 'none' | 'gzip' };
   description?: string;
 }
 

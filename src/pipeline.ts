@@ -38,6 +38,8 @@ export interface BuildOptions {
   previous?: string;
   /** CSV files plain (LF, no BOM) instead of for spreadsheets; overrides the project's `release.csv`. */
   csvPlain?: boolean;
+  /** Also write gzip-compressed dumps (overrides the project's release.compress). */
+  gzip?: boolean;
 }
 
 export interface BuildResult {
@@ -89,6 +91,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   const { model, stats } = await load(projectFile);
   if (opts.previous) model.project.previous = path.resolve(opts.previous);
   if (opts.csvPlain) model.project.release.csv = 'plain';
+  if (opts.gzip) model.project.release.compress = 'gzip';
   say('link and cluster');
   const { links, clustering } = await derive(model);
   say('analyse');

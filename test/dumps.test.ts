@@ -1,12 +1,16 @@
 // The demo's two releases (the second with history against the first) → the dumps as publishers ship them, checked from
-// outside: one Turtle block per subject, read by rapper and rdflib with the N-Quads' triple count.
+// outside: one Turtle block per subject, read by rapper and rdflib with the N-Quads' triple count; gzip copies that
+// decompress to the plain bytes; byte sizes and compression in the DCAT description; integers as JSON numbers.
 import { test, after } from 'node:test';
 import assert from 'node:assert/strict';
-import { readFileSync, rmSync } from 'node:fs';
+import { readFileSync, rmSync, statSync } from 'node:fs';
+import { gunzipSync } from 'node:zlib';
 import path from 'node:path';
 import N3 from 'n3';
 import { build } from '../src/pipeline.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
+import { iri } from '../src/namespaces.js';
+import { DUMP_FORMATS, FORMATS } from '../src/rdf/formats.js';
 import { distinctCount, merged, ourQuads, rapper, rapperRead, rdflibPython, rdflibRead } from './helpers/external-rdf.js';
 import { requires } from './helpers/requires.js';
 
@@ -66,4 +70,59 @@ test('rdflib reads the grouped Turtle of the second release with the N-Quads tri
     const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
     assert.equal(read[path.join(r2.outDir, `${s}.ttl`)].count, distinctCount(merged(nq)), s);
   }
+});
+
+// ------------------------------------------------------------------ gzip copies and the DCAT description of the files
+const g1 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g1'), { gzip: true, validate: false });
+const g2 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g2'), { gzip: true, validate: false });
+const dumpFiles = stems(g1).flatMap((s) => DUMP_FORMATS.map((f) => `${s}${FORMATS[f].extension}`));
+
+test('each .gz dump decompresses to the plain dump byte for byte; the header holds no name and no time (RFC 1952 §2.3.1)', () => {
+  for (const f of dumpFiles) {
+    const gz = readFileSync(path.join(g1.outDir, `${f}.gz`));
+    assert.ok(gunzipSync(gz).equals(readFileSync(path.join(g1.outDir, f))), f);
+    assert.deepEqual([...gz.subarray(0, 3)], [0x1f, 0x8b, 8], `${f}: gzip magic and deflate`);
+    assert.equal(gz[3] & 0x08, 0, `${f}: FLG.FNAME unset`);
+    assert.equal(gz.readUInt32LE(4), 0, `${f}: MTIME 0`);
+  }
+});
+
+test('two gzip builds give byte-identical .gz files, listed in SHA256SUMS with their hashes', () => {
+  const sums = (d: string) => readFileSync(path.join(d, 'SHA256SUMS'), 'utf8');
+  assert.equal(sums(g1.outDir), sums(g2.outDir));
+  for (const f of dumpFiles) assert.match(sums(g1.outDir), new RegExp(`^[0-9a-f]{64}  ${f.replace(/[.]/g, '\\.')}\\.gz$`, 'm'));
+});
+
+test('dataset.ttl gives every file its dcat:byteSize; the .gz distributions add dcat:compressFormat gzip (DCAT 3 §6.8)', () => {
+  const ds = new N3.Store(new N3.Parser().parse(readFileSync(path.join(g1.outDir, 'dataset.ttl'), 'utf8')));
+  const one = (s: N3.Term, p: string) => ds.getObjects(s, N3.DataFactory.namedNode(p), null).map((o) => o.value);
+  const dists = ds.getSubjects(N3.DataFactory.namedNode(iri('rdf', 'type')), N3.DataFactory.namedNode(iri('dcat', 'Distribution')), null);
+  assert.equal(dists.length, dumpFiles.length * 2);
+  for (const d of dists) {
+    const [url] = one(d, iri('dcat', 'downloadURL'));
+    const file = [...dumpFiles, ...dumpFiles.map((f) => `${f}.gz`)].find((f) => url.endsWith(`/${f}`))!;
+    assert.ok(file, url);
+    const [size] = ds.getObjects(d, N3.DataFactory.namedNode(iri('dcat', 'byteSize')), null) as N3.Literal[];
+    assert.equal(size.datatype.value, iri('xsd', 'nonNegativeInteger'));
+    assert.equal(Number(size.value), statSync(path.join(g1.outDir, file)).size, file);
+    const inner = file.replace(/\.gz$/, '');
+    assert.deepEqual(one(d, iri('dcat', 'mediaType')), [Object.values(FORMATS).find((f) => inner.endsWith(f.extension))!.mediaTypeIri], file);
+    assert.deepEqual(one(d, iri('dcat', 'compressFormat')), file.endsWith('.gz') ? ['https://www.iana.org/assignments/media-types/application/gzip'] : [], file);
+  }
+});
+
+test('the JSON-LD dump writes canonical xsd:integer values as JSON numbers and decimals as strings', () => {
+  const doc = JSON.parse(readFileSync(path.join(g1.outDir, 'concordance.jsonld'), 'utf8'));
+  const found = { support: new Set<string>(), score: new Set<string>() };
+  const walk = (v: unknown): void => {
+    if (Array.isArray(v)) v.forEach(walk);
+    else if (v && typeof v === 'object')
+      for (const [k, x] of Object.entries(v)) {
+        if (k === 'support' || k === 'score') found[k].add(typeof x);
+        walk(x);
+      }
+  };
+  walk(doc['@graph']); // the nodes, not the context's term definitions
+  assert.deepEqual([...found.support], ['number']);
+  assert.deepEqual([...found.score], ['string']);
 });

@@ -108,13 +108,19 @@ test('literals: language tags, datatypes other than the coercion, plain strings 
     quad(w, cx('score'), literal('7', xsd('integer'))),
     quad(w, cx('support'), literal('n/a')),
     quad(w, cx('memberCount'), literal('3', xsd('integer'))),
+    quad(w, cx('partnerCount'), literal('007', xsd('integer'))),
+    quad(w, cx('bigCount'), literal('12345678901234567890', xsd('integer'))),
+    quad(w, cx('smallCount'), literal('-4', xsd('integer'))),
     quad(w, nn(NS.prov + 'startedAtTime'), literal('2024-05-01', xsd('date'))),
   ]))) as Record<string, unknown>[];
   assert.deepEqual(n.title, [{ '@value': 'Madonna col Bambino', '@language': 'it' }, 'Madonna and Child']);
   assert.deepEqual(n.score, { '@value': '7', '@type': 'xsd:integer' });
   assert.deepEqual(n.support, { '@value': 'n/a' }, 'a plain string would take the xsd:integer coercion');
-  assert.equal(n.memberCount, '3');
+  assert.equal(n.memberCount, 3, 'a canonical xsd:integer is a JSON number (JSON-LD 1.1 API §8.6 reads it back as one)');
   assert.deepEqual(n.startedAtTime, { '@value': '2024-05-01', '@type': 'xsd:date' });
+  assert.equal(n.partnerCount, '007', 'a non-canonical form stays a string under the coercion');
+  assert.deepEqual(n.bigCount, { '@value': '12345678901234567890', '@type': 'xsd:integer' }, 'beyond 2^53 a double would round');
+  assert.equal(n.smallCount, -4);
 });
 
 test('properties and values without a term: vocab-relative, compact or full IRIs that expand back', async () => {
@@ -156,5 +162,5 @@ test('the same unit gives the same JSON twice, and duplicate triples are written
   const w = ex('w');
   const u = unit([quad(w, a, cx('Link')), quad(w, cx('support'), literal('2', xsd('integer'))), quad(w, cx('support'), literal('2', xsd('integer')))]);
   assert.equal(JSON.stringify(await unitNodes(u)), JSON.stringify(await unitNodes(u)));
-  assert.equal((await unitNodes(u) as Record<string, unknown>[])[0].support, '2');
+  assert.equal((await unitNodes(u) as Record<string, unknown>[])[0].support, 2);
 });

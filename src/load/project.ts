@@ -101,8 +101,10 @@ export const ProjectSchema = z.strictObject({
       partnerDumps: z.boolean().default(true),
       /** CSV files for spreadsheets (UTF-8 with BOM, CRLF; the default) or plain (LF, no BOM) for pipelines. */
       csv: z.enum(['spreadsheet', 'plain']).default('spreadsheet'),
+      /** Also write every dump gzip-compressed (`concordance.nq.gz`, …), described with dcat:compressFormat. */
+      compress: z.enum(['none', 'gzip']).default('none'),
     })
-    .default({ version: '0', partnerDumps: true, csv: 'spreadsheet' }),
+    .default({ version: '0', partnerDumps: true, csv: 'spreadsheet', compress: 'none' }),
 });
 
 /** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */

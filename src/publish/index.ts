@@ -1,7 +1,8 @@
 // Publish stage: units of the release → RDF dump files (whole and per partner) and dataset.ttl; SHA256SUMS at the end.
 import { createHash } from 'node:crypto';
 import { createReadStream } from 'node:fs';
-import { readdir, writeFile } from 'node:fs/promises';
+import { readdir, stat, writeFile } from 'node:fs/promises';
+import N3 from 'n3';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
 import type { Model } from '../model.js';
@@ -10,6 +11,9 @@ import { progress } from '../util/progress.js';
 import { writeQuads } from '../rdf/serialize.js';
 import type { ValidationOutcome } from '../validate/shacl.js';
 import { ReleaseWriter } from './rdf-files.js';
+import { gzipCopies } from './compress.js';
+import { nn, typed } from '../rdf/terms.js';
+import { iri } from '../namespaces.js';
 import { TEMP_MARKER } from '../io/atomic.js';
 
 export interface PublishResult {
@@ -29,7 +33,8 @@ export interface DumpsWritten {
 
 /**
  * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld} (unless the project turns slices off) and
- * dataset.ttl (the last unit, the dataset description) into `dir` (design, "Outputs"), one unit at a time.
+ * dataset.ttl (the last unit, the dataset description, with each file's dcat:byteSize) into `dir` (design, "Outputs"),
+ * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it.
  * `size` is the number of units, for the progress bar named `label`.
  */
 export async function writeDumps(dir: string, model: Model, units: AsyncIterable<Unit>, size: number, label: string): Promise<DumpsWritten> {
@@ -51,8 +56,26 @@ export async function writeDumps(dir: string, model: Model, units: AsyncIterable
   } finally {
     bar.stop();
   }
-  await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', datasetQuads);
+  if (model.project.release.compress === 'gzip') for (const [f, h] of await gzipCopies(dir, [...hashes.keys()].sort())) hashes.set(f, h);
+  await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', [...datasetQuads, ...(await byteSizes(dir, datasetQuads, [...hashes.keys()]))]);
   return { triples: writer.triples, hashes };
+}
+
+/**
+ * dcat:byteSize (DCAT 3 §6.8; xsd:nonNegativeInteger, the range DCAT 3 recommends, from memory) of every distribution
+ * whose download URL ends in one of `files`, for dataset.ttl only: the copy of the description inside the dumps cannot
+ * state their own sizes.
+ */
+async function byteSizes(dir: string, description: Quad[], files: string[]): Promise<Quad[]> {
+  const out: Quad[] = [];
+  for (const q of description) {
+    if (q.predicate.value !== iri('dcat', 'downloadURL')) continue;
+    const f = files.find((x) => q.object.value.endsWith(`/${x}`));
+    if (f === undefined) continue;
+    const size = (await stat(path.join(dir, f))).size;
+    out.push(N3.DataFactory.quad(q.subject, nn(iri('dcat', 'byteSize')), typed(String(size), 'nonNegativeInteger'), q.graph) as Quad);
+  }
+  return out;
 }
 
 async function sha256(file: string): Promise<string> {

@@ -5,8 +5,19 @@ import type { ContextTables } from './jsonld-context.js';
 
 const RDF_TYPE = NS.rdf + 'type';
 const XSD_STRING = NS.xsd + 'string';
+const XSD_INTEGER = NS.xsd + 'integer';
 
-type Json = string | JsonObject | Json[];
+/**
+ * Whether an xsd:integer lexical form can be written as a JSON number and read back as the same literal: JSON-LD 1.1
+ * API §8.6 (object to RDF) turns a number without fractional part below 10^21 into the canonical xsd:integer form,
+ * so the form must be canonical (no sign but `-`, no leading zeros, no `-0`) and the value a double holds exactly.
+ * Decimals never qualify: a number with a fractional part turns into an xsd:double.
+ */
+function nativeInteger(lexical: string): boolean {
+  return /^(0|-?[1-9][0-9]*)$/.test(lexical) && Number.isSafeInteger(Number(lexical));
+}
+
+type Json = string | number | JsonObject | Json[];
 interface JsonObject {
   [key: string]: Json;
 }
@@ -107,6 +118,8 @@ export function frameQuads(quads: Quad[], frameTypes: ReadonlySet<string>, ctx: 
       return { '@value': o.value, '@language': o.language };
     }
     const dt = o.datatype.value;
+    // a JSON number takes the term's coercion on the way back (API §8.6): only under no coercion or xsd:integer's
+    if (dt === XSD_INTEGER && (type === undefined || type === XSD_INTEGER) && nativeInteger(o.value)) return Number(o.value);
     if (dt === type) return o.value;
     if (dt === XSD_STRING) return type === undefined && ctx.language === undefined ? o.value : { '@value': o.value };
     return { '@value': o.value, '@type': ctx.vocabIri(dt) };

@@ -1,4 +1,5 @@
-// Units of quads → JSON-LD 1.1 nodes, framed one document per cluster, and the streamed .jsonld file around them.
+// Units of quads → JSON-LD 1.1 graph objects of framed nodes (a JSON-LD dataset), and the streamed .jsonld file around them.
+import type { Quad } from '@rdfjs/types';
 import type { Unit } from '../rdf/index.js';
 import { JSONLD_CONTEXT } from '../rdf/jsonld.js';
 import { iri } from '../namespaces.js';
@@ -19,11 +20,35 @@ const tables = new ContextTables(context);
 
 /**
  * One unit → its top-level JSON-LD nodes, compacted against the shared context (JSON-LD 1.1 Framing §2.3.1
- * `@embed: @once`; graph names dropped: the JSON-LD dump, like Turtle, is the merged graph). Decimals come out as
- * strings ("0.93") under xsd:decimal coercion, never JSON numbers, which would turn into ill-typed "9.3E-1" on the way back.
+ * `@embed: @once`; graph names dropped: the unit's merged graph). Decimals come out as strings ("0.93") under
+ * xsd:decimal coercion, never JSON numbers, which would turn into ill-typed "9.3E-1" on the way back; xsd:integer
+ * values in canonical form that a double holds exactly come out as JSON numbers (see jsonld-frame.ts).
  */
 export function unitNodesSync(unit: Unit): object[] {
   return frameQuads(unit.quads, frameSets[unit.kind], tables);
+}
+
+/**
+ * One unit → its text in the JSON-LD dump, a JSON-LD 1.1 dataset (JSON-LD 1.1 §4.9 named graphs): per named graph the
+ * unit writes into (in order of first appearance), a graph object `{"id": <graph IRI>, "@graph": [nodes]}` with that
+ * graph's quads framed as in {@link unitNodesSync}; quads of the default graph as top-level nodes. The same graph IRI
+ * recurs in every unit's graph objects: JSON-LD 1.1 API §7.2 node map generation merges them into one named graph.
+ * Null when the unit has no quads.
+ */
+export function unitText(unit: Unit): string | null {
+  const graphs = new Map<string, Quad[]>();
+  for (const q of unit.quads) {
+    const g = q.graph.termType === 'DefaultGraph' ? '' : q.graph.value;
+    const list = graphs.get(g);
+    if (list) list.push(q);
+    else graphs.set(g, [q]);
+  }
+  const parts: string[] = [];
+  for (const [g, quads] of graphs) {
+    const body = frameQuads(quads, frameSets[unit.kind], tables).map((n) => JSON.stringify(n)).join(',\n');
+    parts.push(g === '' ? body : `{${JSON.stringify(tables.idKey)}:${JSON.stringify(tables.absolute(g))},"@graph":[\n${body}\n]}`);
+  }
+  return parts.length ? parts.join(',\n') : null;
 }
 
 /** {@link unitNodesSync} behind the writer's asynchronous interface. */
@@ -31,7 +56,7 @@ export function unitNodes(unit: Unit): Promise<object[]> {
   return Promise.resolve(unitNodesSync(unit));
 }
 
-/** Writes `{"@context": …, "@graph": [` … `]}` around node lists, one node per line, so files stream. */
+/** Writes `{"@context": …, "@graph": [` … `]}` around runs of nodes or graph objects, so files stream. */
 export class JsonLdFile {
   private first = true;
   constructor(private readonly write: (s: string) => void) {

@@ -5,7 +5,7 @@ import path from 'node:path';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
 import { DUMP_FORMATS, FORMATS, prefixMap, type FormatInfo, type WriterKind } from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
-import { JsonLdFile, unitNodesSync } from './jsonld.js';
+import { JsonLdFile, unitText } from './jsonld.js';
 import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
 
 /** Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight). */
@@ -26,10 +26,7 @@ const ENCODERS: Record<WriterKind, (info: FormatInfo, prefixes: Record<string, s
   nquads: (info) => ({ head: '', tail: '', separator: '', encode: (u) => nquadsText(u.quads, info.graphs) }),
   jsonld: () => ({
     head: JsonLdFile.head, tail: JsonLdFile.tail, separator: ',\n',
-    encode: (u) => {
-      const nodes = unitNodesSync(u);
-      return nodes.length ? JsonLdFile.text(nodes) : null;
-    },
+    encode: unitText,
   }),
 };
 

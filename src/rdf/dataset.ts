@@ -1,7 +1,7 @@
 // The dataset description: VoID linksets per partner pair × predicate, DCAT 3 distributions per file, partner datasets.
 import type { Quad } from '@rdfjs/types';
 import { term, nn, str, typed, int, inGraph } from './terms.js';
-import { DUMP_FORMATS, FORMATS } from './formats.js';
+import { COMPRESSIONS, DUMP_FORMATS, FORMATS } from './formats.js';
 import type { Namer, LinksetCounts, Unit } from './index.js';
 import type { Model } from '../model.js';
 import { NS } from '../namespaces.js';
@@ -11,22 +11,33 @@ export interface DistributionFile {
   file: string;
   mediaTypeIri: string;
   title: string;
+  /** IANA media type IRI of the compression (DCAT 3 §6.8 dcat:compressFormat) when the file is compressed. */
+  compressFormatIri?: string;
 }
 
-/** The files of a release that the description lists as DCAT distributions, in a fixed order (the dump formats). */
+/**
+ * The files of a release that the description lists as DCAT distributions, in a fixed order: each dump format, then
+ * its compressed copy when the project asks for one (`release.compress`), whole and per partner.
+ */
 export function distributionFiles(model: Model): DistributionFile[] {
   const files: DistributionFile[] = [];
+  const compress = model.project.release.compress === 'gzip' ? COMPRESSIONS.gzip : null;
   const dumps = DUMP_FORMATS.map((f) => [FORMATS[f].extension.slice(1), FORMATS[f].mediaTypeIri] as const);
-  for (const [ext, media] of dumps) files.push({ file: `concordance.${ext}`, mediaTypeIri: media, title: `Whole concordance (${ext})` });
-  if (model.project.release.partnerDumps !== false) for (const p of model.project.partners)
-    for (const [ext, media] of dumps) files.push({ file: `partners/${p.key}.${ext}`, mediaTypeIri: media, title: `Slice for ${p.name} (${ext})` });
+  const add = (stem: string, title: (ext: string) => string) => {
+    for (const [ext, media] of dumps) {
+      files.push({ file: `${stem}.${ext}`, mediaTypeIri: media, title: title(ext) });
+      if (compress) files.push({ file: `${stem}.${ext}${compress.extension}`, mediaTypeIri: media, title: title(`${ext}${compress.extension}`), compressFormatIri: compress.mediaTypeIri });
+    }
+  };
+  add('concordance', (ext) => `Whole concordance (${ext})`);
+  if (model.project.release.partnerDumps !== false) for (const p of model.project.partners) add(`partners/${p.key}`, (ext) => `Slice for ${p.name} (${ext})`);
   return files;
 }
 
 /**
  * VoID (W3C Note 2011: §4.6 void:triples, §5.1 linksets with two targets, §5.3 void:linkPredicate, §3.3 void:dataDump)
  * and DCAT 3 (§6.6 Dataset, §6.8 Distribution with dcat:mediaType as an IANA IRI, dcterms:license, dcat:version,
- * dcat:previousVersion).
+ * dcat:previousVersion; dcat:mediaType is the format inside a compressed file, dcat:compressFormat the compression).
  */
 export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, previousVersion?: string): Unit {
   const quads: Quad[] = [];
@@ -89,6 +100,7 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
     g(F, term('dcterms', 'title'), str(f.title));
     g(F, term('dcat', 'downloadURL'), nn(url));
     g(F, term('dcat', 'mediaType'), nn(f.mediaTypeIri));
+    if (f.compressFormatIri) g(F, term('dcat', 'compressFormat'), nn(f.compressFormatIri));
     g(F, term('dcterms', 'license'), license);
   }
   return { kind: 'dataset', id: 'dataset', quads, partners: 'all' };

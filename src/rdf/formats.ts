@@ -40,7 +40,19 @@ export const FORMATS: Readonly<Record<FormatName, FormatInfo>> = {
   ntriples: row('N-Triples', 'application/n-triples', '.nt', 'n3', 'nquads', false, false),
   nquads: row('N-Quads', 'application/n-quads', '.nq', 'n3', 'nquads', true, false),
   trig: row('TriG', 'application/trig', '.trig', 'n3', null, true, true),
-  jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', false, false),
+  jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', true, false),
+};
+
+/** Compressions a release's dumps can also be written in: file extension and IANA media type (RFC 6713 application/gzip). */
+export type Compression = 'gzip';
+export interface CompressionInfo {
+  extension: string;
+  mediaType: string;
+  /** The media type as an IRI, for DCAT 3 dcat:compressFormat (range dcterms:MediaType). */
+  mediaTypeIri: string;
+}
+export const COMPRESSIONS: Readonly<Record<Compression, CompressionInfo>> = {
+  gzip: { extension: '.gz', mediaType: 'application/gzip', mediaTypeIri: iri('iana', 'application/gzip') },
 };
 
 /** Formats written by the quad stream writer of src/rdf/serialize.ts. */

@@ -55,13 +55,13 @@ import json, sys, rdflib
 rdflib.NORMALIZE_LITERALS = False  # keep lexical forms as written (rdflib would print "Z" as "+00:00")
 out = {}
 for path, fmt in json.load(sys.stdin):
-    if fmt == "nquads":
+    if fmt in ("nquads", "jsonld"):
         g = rdflib.ConjunctiveGraph()
-        g.parse(path, format="nquads")
+        g.parse(path, format={"nquads": "nquads", "jsonld": "json-ld"}[fmt])
         out[path] = [sum(1 for _ in g.quads((None, None, None, None))), g.serialize(format="nquads")]
     else:
         g = rdflib.Graph()
-        g.parse(path, format={"turtle": "turtle", "jsonld": "json-ld"}[fmt])
+        g.parse(path, format="turtle")
         out[path] = [len(g), g.serialize(format="nt")]
 print(json.dumps(out))
 `;
@@ -75,8 +75,8 @@ export interface ToolReading {
 const reRead = (text: string) => new N3.Parser({ format: 'application/n-quads' }).parse(text);
 
 /**
- * rdflib's reading of each file: distinct triples of a Graph (Turtle, JSON-LD) or quads of a ConjunctiveGraph
- * (N-Quads), plus its N-Triples / N-Quads serialisation; one Python process for all files. Parse errors throw.
+ * rdflib's reading of each file: distinct triples of a Graph (Turtle) or quads of a ConjunctiveGraph (N-Quads, and
+ * JSON-LD, whose dump is a dataset with named graphs), plus its N-Triples / N-Quads serialisation; one Python process for all files. Parse errors throw.
  */
 export function rdflibRead(files: string[]): Record<string, ToolReading> {
   if (!rdflibPython) throw new Error('rdflib is not installed');
