@@ -1,5 +1,6 @@
 // Evidence rows → per-image statistics: matched images, distinct works and partners, agreement of the other photos.
 import type { Model } from '../model.js';
+import { countingSort } from '../util/sort.js';
 
 /** Rows naming each image, as compressed sparse rows: image i's rows are `row[offset[i] .. offset[i+1])`. */
 export interface ImageRows {
@@ -57,16 +58,6 @@ export function distinctCounts(model: Model, ir: ImageRows): { works: Int32Array
     }
   }
   return { works, partners };
-}
-
-/** Stable counting sort of `items` by `key[item]` (keys in [0, buckets)). */
-function countingSort(items: Int32Array, key: Int32Array, buckets: number): Int32Array {
-  const starts = new Int32Array(buckets + 1);
-  for (const it of items) starts[key[it] + 1]++;
-  for (let k = 0; k < buckets; k++) starts[k + 1] += starts[k];
-  const out = new Int32Array(items.length);
-  for (const it of items) out[starts[key[it]]++] = it;
-  return out;
 }
 
 /**

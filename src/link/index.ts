@@ -6,6 +6,7 @@ import { linkColumns, type LinkColumns, type LinkValues } from './columns.js';
 import { pairKey, type Link, type LinkKind, type LinkSet, type LinkStatus } from './types.js';
 import { weighEvidence, type WeighedEvidence } from '../evidence/index.js';
 import { sameConfidence, triangles } from './confidence.js';
+import { countingSort } from '../util/sort.js';
 
 /** Per-link values the confidence pass needs beyond the link's own columns. */
 interface Scratch {
@@ -162,16 +163,6 @@ const PAIR = 67108864;
 function identity(n: number): Int32Array {
   const out = new Int32Array(n);
   for (let i = 0; i < n; i++) out[i] = i;
-  return out;
-}
-
-/** Stable counting sort of `items` by `key[item]` (keys in [0, buckets)). */
-function countingSort(items: Int32Array, key: Int32Array, buckets: number): Int32Array {
-  const starts = new Int32Array(buckets + 1);
-  for (const it of items) starts[key[it] + 1]++;
-  for (let k = 0; k < buckets; k++) starts[k + 1] += starts[k];
-  const out = new Int32Array(items.length);
-  for (const it of items) out[starts[key[it]]++] = it;
   return out;
 }
 

@@ -45,3 +45,13 @@ export function denseRank(values: Float64Array): { rank: Int32Array; size: numbe
   }
   return { rank, size };
 }
+
+/** Stable counting sort of `items` by `key[item]` (keys in [0, buckets); Cormen et al., §8.2). */
+export function countingSort(items: Int32Array, key: Int32Array, buckets: number): Int32Array {
+  const starts = new Int32Array(buckets + 1);
+  for (const it of items) starts[key[it] + 1]++;
+  for (let k = 0; k < buckets; k++) starts[k + 1] += starts[k];
+  const out = new Int32Array(items.length);
+  for (const it of items) out[starts[key[it]]++] = it;
+  return out;
+}

@@ -3,7 +3,7 @@
 import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
 import { iri } from '../namespaces.js';
-import { readPath, type PathTree } from './paths.js';
+import { flipPath, readPath, type PathTree } from './paths.js';
 
 const sh = (local: string) => iri('sh', local);
 const RDF_TYPE = iri('rdf', 'type');
@@ -81,7 +81,7 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     if (typeof path === 'string') {
       for (const f of from) { at(f.depth).out.add(path); f.commit(); out.push(reached(f, 'fwd', path)); }
     } else if ('inverse' in path) {
-      if (typeof path.inverse !== 'string') return walk(flip(path.inverse), from, shape);
+      if (typeof path.inverse !== 'string') return walk(flipPath(path.inverse), from, shape);
       for (const f of from) { at(f.depth).in.add(path.inverse); f.commit(); out.push(reached(f, 'inv', path.inverse)); }
     } else if ('sequence' in path) {
       out = from;
@@ -163,13 +163,3 @@ function isEmpty(l: Level): boolean {
   return l.out.size === 0 && !l.all && l.in.size === 0;
 }
 
-/** The inverse of a path (SHACL §2.3.1.3 applied to a complex path). */
-function flip(p: PathTree): PathTree {
-  if (typeof p === 'string') return { inverse: p };
-  if ('inverse' in p) return p.inverse;
-  if ('sequence' in p) return { sequence: [...p.sequence].reverse().map(flip) };
-  if ('alternative' in p) return { alternative: p.alternative.map(flip) };
-  if ('zeroOrOne' in p) return { zeroOrOne: flip(p.zeroOrOne) };
-  if ('zeroOrMore' in p) return { zeroOrMore: flip(p.zeroOrMore) };
-  return { oneOrMore: flip(p.oneOrMore) };
-}

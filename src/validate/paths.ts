@@ -100,3 +100,14 @@ export function pathText(path: PathTree, show: (iriOrId: string) => string): str
   const [before, after] = UNARY_TEXT[key];
   return `${before}${pathText((path as Record<Unary, PathTree>)[key], show)}${after}`;
 }
+
+/** The inverse of a path (SHACL §2.3.1.3 applied to a complex path). */
+export function flipPath(p: PathTree): PathTree {
+  if (typeof p === 'string') return { inverse: p };
+  if ('inverse' in p) return p.inverse;
+  if ('sequence' in p) return { sequence: [...p.sequence].reverse().map(flipPath) };
+  if ('alternative' in p) return { alternative: p.alternative.map(flipPath) };
+  if ('zeroOrOne' in p) return { zeroOrOne: flipPath(p.zeroOrOne) };
+  if ('zeroOrMore' in p) return { zeroOrMore: flipPath(p.zeroOrMore) };
+  return { oneOrMore: flipPath(p.oneOrMore) };
+}

@@ -3,7 +3,7 @@
 import type { Quad } from '@rdfjs/types';
 import N3 from 'n3';
 import { iri } from '../../namespaces.js';
-import type { PathTree } from '../paths.js';
+import { flipPath, type PathTree } from '../paths.js';
 import type { TermId } from './terms.js';
 
 const RDF_TYPE = iri('rdf', 'type');
@@ -201,16 +201,7 @@ export class DataGraph {
 
   /** Nodes from which `path` reaches one of `to` (the inverse of a complex path). */
   private inverseWalk(to: ReadonlySet<TermId>, path: PathTree): Set<TermId> {
-    const flip = (p: PathTree): PathTree => {
-      if (typeof p === 'string') return { inverse: p };
-      if ('inverse' in p) return p.inverse;
-      if ('sequence' in p) return { sequence: [...p.sequence].reverse().map(flip) };
-      if ('alternative' in p) return { alternative: p.alternative.map(flip) };
-      if ('zeroOrOne' in p) return { zeroOrOne: flip(p.zeroOrOne) };
-      if ('zeroOrMore' in p) return { zeroOrMore: flip(p.zeroOrMore) };
-      return { oneOrMore: flip(p.oneOrMore) };
-    };
-    return this.walk(to, flip(path));
+    return this.walk(to, flipPath(path));
   }
 }
 
