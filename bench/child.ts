@@ -36,10 +36,19 @@ const JOBS: Record<string, Job> = {
       clearInterval(sampler);
     } catch (e) {
       // A non-conforming release still ran every stage: report the time and how many problems were listed.
-      if (e instanceof UserError && e.exitCode === EXIT.failure) return { ms: performance.now() - t, nonConforming: 1, problemsListed: e.problems.length };
+      if (e instanceof UserError && e.exitCode === EXIT.failure)
+        return { ms: performance.now() - t, nonConforming: 1, problemsListed: e.problems.length };
       throw e;
     }
-    return { ...stages, ms: performance.now() - t, triples: r.publish.triples, evidenceRows: r.stats.evidenceRows, links: r.links.links.length, clusters: r.clustering.clusters.length, violations: r.publish.validation.violations };
+    return {
+      ...stages,
+      ms: performance.now() - t,
+      triples: r.publish.triples,
+      evidenceRows: r.stats.evidenceRows,
+      links: r.links.links.length,
+      clusters: r.clustering.clusters.length,
+      violations: r.publish.validation.violations,
+    };
   },
   /** whole <file.nq> [engine]: the release in one N3.Store, validated at once with the shipped shapes (default engine:
    *  rdf-validate-shacl, the reference the targets are measured against). */
@@ -71,7 +80,12 @@ const JOBS: Record<string, Job> = {
   async load([project]) {
     const t = performance.now();
     const { model, stats } = await load(project);
-    return { ms: performance.now() - t, evidenceRows: stats.evidenceRows, works: model.works.length, images: model.images.count };
+    return {
+      ms: performance.now() - t,
+      evidenceRows: stats.evidenceRows,
+      works: model.works.length,
+      images: model.images.count,
+    };
   },
 };
 

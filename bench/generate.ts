@@ -1,4 +1,5 @@
-// Seed + scale → a synthetic concordat project (catalogues, evidence with look-alikes and indiscriminate scans, decisions, gold, answer key) streamed to files.
+// Seed + scale → a synthetic concordat project (catalogues, evidence with look-alikes and indiscriminate scans,
+// decisions, gold, answer key) streamed to files.
 import { createWriteStream, mkdirSync, writeFileSync, type WriteStream } from 'node:fs';
 import { once } from 'node:events';
 import path from 'node:path';
@@ -26,7 +27,10 @@ export interface GenerateSummary {
 
 /** sfc32 pseudo-random generator (small fast counter, public-domain algorithm), seeded through splitmix32. */
 export class Rng {
-  private a: number; private b: number; private c: number; private d: number;
+  private a: number;
+  private b: number;
+  private c: number;
+  private d: number;
   constructor(seed: number) {
     let s = seed >>> 0;
     const mix = () => {
@@ -36,7 +40,10 @@ export class Rng {
       z = Math.imul(z ^ (z >>> 13), 0xc2b2ae35);
       return (z ^ (z >>> 16)) >>> 0;
     };
-    this.a = mix(); this.b = mix(); this.c = mix(); this.d = mix();
+    this.a = mix();
+    this.b = mix();
+    this.c = mix();
+    this.d = mix();
     for (let i = 0; i < 12; i++) this.next();
   }
   /** Uniform in [0, 1). */
@@ -49,8 +56,12 @@ export class Rng {
     this.c = (this.c + t) >>> 0;
     return t / 4294967296;
   }
-  int(n: number): number { return Math.floor(this.next() * n); }
-  pick<T>(xs: readonly T[]): T { return xs[this.int(xs.length)]; }
+  int(n: number): number {
+    return Math.floor(this.next() * n);
+  }
+  pick<T>(xs: readonly T[]): T {
+    return xs[this.int(xs.length)];
+  }
   /** Index into cumulative weights. */
   weighted(cum: readonly number[]): number {
     const r = this.next() * cum[cum.length - 1];
@@ -65,7 +76,9 @@ class ChunkWriter {
   private readonly out: WriteStream;
   private parts: string[] = [];
   private size = 0;
-  constructor(file: string) { this.out = createWriteStream(file); }
+  constructor(file: string) {
+    this.out = createWriteStream(file);
+  }
   async line(s: string): Promise<void> {
     this.parts.push(s, '\n');
     this.size += s.length + 1;
@@ -74,7 +87,8 @@ class ChunkWriter {
   private async flush(): Promise<void> {
     if (this.size === 0) return;
     const ok = this.out.write(this.parts.join(''));
-    this.parts = []; this.size = 0;
+    this.parts = [];
+    this.size = 0;
     if (!ok) await once(this.out, 'drain');
   }
   async close(): Promise<void> {
@@ -84,7 +98,24 @@ class ChunkWriter {
   }
 }
 
-const SUBJECTS = ['Madonna and Child', 'Saint Jerome', 'Annunciation', 'Crucifixion', 'Saint Barbara', 'Lamentation', 'Adoration of the Magi', 'Saint George', 'Pieta', 'Nativity', 'Saint Catherine', 'Deposition', 'Portrait of a Donor', 'Saint Anne', 'Last Supper', 'Resurrection'];
+const SUBJECTS = [
+  'Madonna and Child',
+  'Saint Jerome',
+  'Annunciation',
+  'Crucifixion',
+  'Saint Barbara',
+  'Lamentation',
+  'Adoration of the Magi',
+  'Saint George',
+  'Pieta',
+  'Nativity',
+  'Saint Catherine',
+  'Deposition',
+  'Portrait of a Donor',
+  'Saint Anne',
+  'Last Supper',
+  'Resurrection',
+];
 const PARTS = ['', ' (left wing)', ' (right wing)', ' (centre panel)', ' (predella)', ' (fragment)'];
 /** Catalogue date styles the loader reads (plain year, approximate, range, century phrase, EDTF unspecified digit). */
 const DATE_STYLES: ReadonlyArray<(y: number) => string> = [
@@ -111,7 +142,8 @@ const clamp = (x: number, lo: number, hi: number) => Math.min(hi, Math.max(lo, x
  * issue's consortium: about 4% of records with a mount-back scan):
  * - DETAIL: a detail or single panel of the artwork catalogued as a record of its own (a part);
  * - LOOK_ALIKE: a look-alike work that is not the same work (workshop replica, another print from the plate, pendant);
- * - scans that match regardless of the artwork, per record: mount back, colour chart, photographer's stamp, blank frame.
+ * - scans that match regardless of the artwork, per record: mount back, colour chart, photographer's stamp, blank
+ * frame.
  */
 export const PHENOMENA = { detail: 0.05, lookAlike: 0.06, matcherError: 0.01 } as const;
 /** Junk scans: share of records that have one, and how many other scans of the kind the matcher pairs each with. */
@@ -123,17 +155,29 @@ export const JUNK = [
 ] as const;
 /** The partner that records image roles (a role column; the others do not). */
 const ROLE_PARTNER = 0;
-const ROLE_WORDS: Record<string, string> = { Recto: 'artwork', Detail: 'detail', Verso: 'verso', Farbkarte: 'chart', Stempel: 'stamp', Leeraufnahme: 'blank' };
+const ROLE_WORDS: Record<string, string> = {
+  Recto: 'artwork',
+  Detail: 'detail',
+  Verso: 'verso',
+  Farbkarte: 'chart',
+  Stempel: 'stamp',
+  Leeraufnahme: 'blank',
+};
 
-/** Score of a true match between two records of one artwork: most high, a tail down to 0.5 (different photo campaigns): a sixth below 0.75, where look-alikes score too. */
+/**
+ * Score of a true match between two records of one artwork: most high, a tail down to 0.5 (different photo campaigns):
+ * a sixth below 0.75, where look-alikes score too.
+ */
 const trueBase = (rng: Rng) => 0.5 + 0.47 * rng.next() ** 0.35;
 
 /**
  * Writes a synthetic project of `works` partner works into `dir` in the input contract (design, "Inputs"), with an
  * answer key. Artworks are held by 1–4 partners; 1–5 photos per record. The matcher finds 96% of true record pairs
  * (each photo pair with probability 0.55, at least one), scores 0.5–0.97 skewed high (a sixth below 0.75) with ±0.04
- * jitter, so true single-photo pairs at moderate scores exist; details (5% of artworks) match 1–2 photos of their whole at 0.62–0.92
- * with overlap 0.3–0.65 (one row in 25 at 0.12–0.28, below minOverlap: never proposed); look-alike works (6%) share one photo pair (a quarter two) with one
+ * jitter, so true single-photo pairs at moderate scores exist; details (5% of artworks) match 1–2 photos of their whole
+ * at 0.62–0.92
+ * with overlap 0.3–0.65 (one row in 25 at 0.12–0.28, below minOverlap: never proposed); look-alike works (6%) share one
+ * photo pair (a quarter two) with one
  * record of the original at 0.55–0.8, overlapping the true scores; 1% of works get a matcher error (an unrelated work
  * at 0.5–0.68); junk scans (JUNK) are each paired with k random others of their kind at 0.65–0.97, one partner records
  * their role; low-score noise ≈ 5.5 rows per work. Curators decide ≈ 1% of true pairs (`same`), a fifth of the
@@ -144,18 +188,29 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
   const P = opts.partners;
   if (!(P >= 3 && P <= 25)) throw new RangeError('partners must be 3–25');
   if (!(N >= 1)) throw new RangeError('works must be at least 1');
-  for (const sub of ['catalogues', 'evidence', 'decisions', 'gold']) mkdirSync(path.join(dir, sub), { recursive: true });
+  for (const sub of ['catalogues', 'evidence', 'decisions', 'gold'])
+    mkdirSync(path.join(dir, sub), { recursive: true });
 
   const rng = new Rng(seed);
-  const partnerOf = new Uint8Array(N), localOf = new Int32Array(N), imgCount = new Uint8Array(N), photos = new Uint8Array(N);
+  const partnerOf = new Uint8Array(N),
+    localOf = new Int32Array(N),
+    imgCount = new Uint8Array(N),
+    photos = new Uint8Array(N);
   const artOf = new Int32Array(N);
   const artStart: number[] = [];
   /** Per artwork: 0 an artwork, 1 a detail of `artOfArt`, 2 a look-alike of it. */
-  const artKind: number[] = [], artRef: number[] = [];
+  const artKind: number[] = [],
+    artRef: number[] = [];
   const nextLocal = new Int32Array(P);
   const delim = Array.from({ length: P }, (_, p) => DELIMS[p % DELIMS.length]);
-  const cats = Array.from({ length: P }, (_, p) => new ChunkWriter(path.join(dir, 'catalogues', `${partnerKey(p)}.csv`)));
-  for (let p = 0; p < P; p++) await cats[p].line(['work_no', 'photo_no', 'title', 'date', ...(p === ROLE_PARTNER ? ['role'] : [])].join(delim[p]));
+  const cats = Array.from(
+    { length: P },
+    (_, p) => new ChunkWriter(path.join(dir, 'catalogues', `${partnerKey(p)}.csv`)),
+  );
+  for (let p = 0; p < P; p++)
+    await cats[p].line(
+      ['work_no', 'photo_no', 'title', 'date', ...(p === ROLE_PARTNER ? ['role'] : [])].join(delim[p]),
+    );
   const key = new ChunkWriter(path.join(dir, 'answer-key.csv'));
   await key.line('work,artwork,part_of');
   const junk = JUNK.map(() => ({ work: [] as number[], k: [] as number[] }));
@@ -171,15 +226,28 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
     const chosen = new Set<number>();
     while (chosen.size < Math.min(copies, N - w, P)) chosen.add(rng.int(P));
     for (const p of chosen) {
-      partnerOf[w] = p; localOf[w] = nextLocal[p]++; artOf[w] = art;
+      partnerOf[w] = p;
+      localOf[w] = nextLocal[p]++;
+      artOf[w] = art;
       photos[w] = kind === 1 ? 1 + rng.int(2) : 1 + rng.weighted([15, 35, 70, 90, 100]);
       const extra: number[] = [];
-      JUNK.forEach((j, t) => { if (rng.next() < j.rate) { extra.push(t); junk[t].work.push(w); junk[t].k.push(photos[w] + extra.length - 1); } });
+      JUNK.forEach((j, t) => {
+        if (rng.next() < j.rate) {
+          extra.push(t);
+          junk[t].work.push(w);
+          junk[t].k.push(photos[w] + extra.length - 1);
+        }
+      });
       imgCount[w] = photos[w] + extra.length;
-      const t = kind === 1 ? `${title} (detail)` : title + rng.pick(PARTS), date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
+      const t = kind === 1 ? `${title} (detail)` : title + rng.pick(PARTS),
+        date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
       for (let k = 0; k < imgCount[w]; k++) {
         const role = k < photos[w] ? (kind === 1 ? 'Detail' : 'Recto') : JUNK[extra[k - photos[w]]].word;
-        await cats[p].line([workId(p, localOf[w]), imageId(p, localOf[w], k), t, date, ...(p === ROLE_PARTNER ? [role] : [])].join(delim[p]));
+        await cats[p].line(
+          [workId(p, localOf[w]), imageId(p, localOf[w], k), t, date, ...(p === ROLE_PARTNER ? [role] : [])].join(
+            delim[p],
+          ),
+        );
       }
       await key.line(`${partnerKey(p)}:${workId(p, localOf[w])},A${art},${kind === 1 ? `A${of}` : ''}`);
       images += imgCount[w];
@@ -207,7 +275,9 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
   await gold.line('work_a,work_b');
   const img = (x: number, k: number) => `${partnerKey(partnerOf[x])}:${imageId(partnerOf[x], localOf[x], k)}`;
   const work = (x: number) => `${partnerKey(partnerOf[x])}:${workId(partnerOf[x], localOf[x])}`;
-  let rows = 0, decisions = 0, golds = 0;
+  let rows = 0,
+    decisions = 0,
+    golds = 0;
   const row = async (a: string, b: string, s: number, ov: number | null) => {
     await ev.line(`${a},${b},${score(clamp(s, 0, 1))},${ov === null ? '' : score(ov)}`);
     rows++;
@@ -224,23 +294,44 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
         if (rng.next() < 0.04) continue; // the matcher misses the pair
         const base = trueBase(rng);
         const pairs: [number, number][] = [];
-        for (let i = 0; i < photos[x]; i++) for (let j = 0; j < photos[y]; j++) if (rng.next() < 0.55) pairs.push([i, j]);
+        for (let i = 0; i < photos[x]; i++)
+          for (let j = 0; j < photos[y]; j++) if (rng.next() < 0.55) pairs.push([i, j]);
         if (pairs.length === 0) pairs.push([rng.int(photos[x]), rng.int(photos[y])]);
-        for (const [i, j] of pairs) await row(img(x, i), img(y, j), clamp(base + (rng.next() - 0.5) * 0.08, 0.45, 0.995), rng.next() < 0.1 ? null : 0.75 + rng.next() * 0.25);
+        for (const [i, j] of pairs)
+          await row(
+            img(x, i),
+            img(y, j),
+            clamp(base + (rng.next() - 0.5) * 0.08, 0.45, 0.995),
+            rng.next() < 0.1 ? null : 0.75 + rng.next() * 0.25,
+          );
         if (rng.next() < 0.01) await decide(x, y, 'same');
-        if (rng.next() < 0.05) { await gold.line(`${work(x)},${work(y)}`); golds++; }
+        if (rng.next() < 0.05) {
+          await gold.line(`${work(x)},${work(y)}`);
+          golds++;
+        }
       }
       // background: a low-score match with a random other work, ~5.5 per work; now and then a curator rejects one
       const noise = rng.int(12);
       for (let n = 0; n < noise; n++) {
         const y = rng.int(N);
         if (y >= s0 && y < s1) continue;
-        await row(img(x, rng.int(photos[x])), img(y, rng.int(photos[y])), 0.05 + rng.next() * 0.4, 0.3 + rng.next() * 0.7);
+        await row(
+          img(x, rng.int(photos[x])),
+          img(y, rng.int(photos[y])),
+          0.05 + rng.next() * 0.4,
+          0.3 + rng.next() * 0.7,
+        );
         if (rng.next() < 0.003) await decide(x, y, 'distinct');
       }
       if (rng.next() < PHENOMENA.matcherError) {
         const y = rng.int(N);
-        if (artOf[y] !== a && artRef[artOf[y]] !== a && artRef[a] !== artOf[y]) await row(img(x, rng.int(photos[x])), img(y, rng.int(photos[y])), 0.5 + rng.next() * 0.18, 0.8 + rng.next() * 0.2);
+        if (artOf[y] !== a && artRef[artOf[y]] !== a && artRef[a] !== artOf[y])
+          await row(
+            img(x, rng.int(photos[x])),
+            img(y, rng.int(photos[y])),
+            0.5 + rng.next() * 0.18,
+            0.8 + rng.next() * 0.2,
+          );
       }
     }
     if (artKind[a] === 0) continue;
@@ -251,16 +342,29 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
       const d = s0;
       for (let n = 1 + rng.int(2), t = 0; t < n && t < o1 - o0; t++) {
         const whole = o0 + ((t + rng.int(o1 - o0)) % (o1 - o0));
-        const small = rng.next() < 0.04; // a detail so small in the whole that the overlap is not to be trusted (below minOverlap)
-        await row(img(d, 0), img(whole, rng.int(photos[whole])), 0.62 + rng.next() * 0.3, small ? 0.12 + rng.next() * 0.16 : 0.3 + rng.next() * 0.35);
+        // a detail so small in the whole that the overlap is not to be trusted (below minOverlap)
+        const small = rng.next() < 0.04;
+        await row(
+          img(d, 0),
+          img(whole, rng.int(photos[whole])),
+          0.62 + rng.next() * 0.3,
+          small ? 0.12 + rng.next() * 0.16 : 0.3 + rng.next() * 0.35,
+        );
         if (rng.next() < 0.1) await decide(d, whole, 'part');
       }
     } else {
       // a look-alike: one record of it shares one photo pair (a quarter: two) with one record of the original
-      const x = s0 + rng.int(s1 - s0), y = o0 + rng.int(o1 - o0);
+      const x = s0 + rng.int(s1 - s0),
+        y = o0 + rng.int(o1 - o0);
       const base = 0.55 + rng.next() * 0.25;
       const n = rng.next() < 0.25 ? 2 : 1;
-      for (let t = 0; t < n; t++) await row(img(x, t % photos[x]), img(y, (t + rng.int(photos[y])) % photos[y]), base - t * rng.next() * 0.05, 0.8 + rng.next() * 0.2);
+      for (let t = 0; t < n; t++)
+        await row(
+          img(x, t % photos[x]),
+          img(y, (t + rng.int(photos[y])) % photos[y]),
+          base - t * rng.next() * 0.05,
+          0.8 + rng.next() * 0.2,
+        );
       if (rng.next() < 0.2) await decide(x, y, 'distinct');
     }
   }
@@ -277,11 +381,18 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
         const pk = Math.min(i, o) * n + Math.max(i, o);
         if (seen.has(pk) || list.work[i] === list.work[o]) continue;
         seen.add(pk);
-        await row(img(list.work[i], list.k[i]), img(list.work[o], list.k[o]), 0.65 + rng.next() * 0.32, rng.next() < 0.3 ? null : 0.85 + rng.next() * 0.15);
+        await row(
+          img(list.work[i], list.k[i]),
+          img(list.work[o], list.k[o]),
+          0.65 + rng.next() * 0.32,
+          rng.next() < 0.3 ? null : 0.85 + rng.next() * 0.15,
+        );
       }
     }
   }
-  await ev.close(); await dec.close(); await gold.close();
+  await ev.close();
+  await dec.close();
+  await gold.close();
 
   const project = {
     title: `Synthetic concordance of ${N} works`,
@@ -297,12 +408,30 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
       recordPage: `https://${partnerKey(p)}.example.org/records/{work}`,
       centuryConvention: p % 2 === 0 ? 'ordinal' : 'iso',
       catalogue: {
-        file: `catalogues/${partnerKey(p)}.csv`, delimiter: delim[p],
-        columns: { work: 'work_no', image: 'photo_no', title: 'title', date: 'date', ...(p === ROLE_PARTNER ? { role: 'role' } : {}) },
+        file: `catalogues/${partnerKey(p)}.csv`,
+        delimiter: delim[p],
+        columns: {
+          work: 'work_no',
+          image: 'photo_no',
+          title: 'title',
+          date: 'date',
+          ...(p === ROLE_PARTNER ? { role: 'role' } : {}),
+        },
         ...(p === ROLE_PARTNER ? { roles: ROLE_WORDS } : {}),
       },
     })),
-    evidence: [{ file: 'evidence/run.csv', run: { id: 'bench-run-1', software: 'synthetic-matcher', version: '1.0.0', started: '2026-10-04T09:00:00Z', parameters: { seed } } }],
+    evidence: [
+      {
+        file: 'evidence/run.csv',
+        run: {
+          id: 'bench-run-1',
+          software: 'synthetic-matcher',
+          version: '1.0.0',
+          started: '2026-10-04T09:00:00Z',
+          parameters: { seed },
+        },
+      },
+    ],
     decisions: ['decisions/curators.csv'],
     gold: 'gold/gold.csv',
     policy: { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 },
@@ -310,5 +439,13 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
   };
   const projectFile = path.join(dir, 'concordance.json');
   writeFileSync(projectFile, JSON.stringify(project, null, 2) + '\n');
-  return { projectFile, answerKey: path.join(dir, 'answer-key.csv'), works: N, images, evidenceRows: rows, decisions, gold: golds };
+  return {
+    projectFile,
+    answerKey: path.join(dir, 'answer-key.csv'),
+    works: N,
+    images,
+    evidenceRows: rows,
+    decisions,
+    gold: golds,
+  };
 }

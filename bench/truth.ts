@@ -35,7 +35,8 @@ export function readDemoTruth(...files: string[]): Truth {
   const keys = files.map((f) => JSON.parse(readFileSync(f, 'utf8')) as DemoKey);
   const last = keys[keys.length - 1];
   for (const [a, b] of last.truePairs) {
-    const ra = find(a), rb = find(b);
+    const ra = find(a),
+      rb = find(b);
     if (!parent.has(a)) parent.set(a, a);
     if (!parent.has(b)) parent.set(b, b);
     if (ra !== rb) parent.set(ra < rb ? rb : ra, ra < rb ? ra : rb);

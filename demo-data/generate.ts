@@ -1,4 +1,5 @@
-// Seeded demo scenario → the committed demo-data files (catalogues, evidence, decisions, gold, project files, answer keys).
+// Seeded demo scenario → the committed demo-data files (catalogues, evidence, decisions, gold, project files, answer
+// keys).
 import { mkdirSync, renameSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -30,8 +31,10 @@ function phenomenaKey(ph: Phenomena) {
   const ref = (r: { partner: string; work: string }) => `${r.partner}:${r.work}`;
   return {
     note: 'Mount-back scans and colour charts match whatever the artwork; prints from one plate and pendants are distinct works that look alike. None of them is a same-work pair.',
-    mountBacks: ph.mountBacks, charts: ph.charts,
-    printsFromOnePlate: ph.prints.map(ref), pendants: ph.pendants.map((p) => p.map(ref)),
+    mountBacks: ph.mountBacks,
+    charts: ph.charts,
+    printsFromOnePlate: ph.prints.map(ref),
+    pendants: ph.pendants.map((p) => p.map(ref)),
   };
 }
 
@@ -53,16 +56,28 @@ export function generateDemo(outDir: string): string[] {
   const rng1 = Rng.of('release-1/evidence');
   const first = new Map<PairSpec, Match[]>(r1.b.pairs.map((p) => [p, matchesFor(p, rng1)]));
   const noise1 = noise(r1.b.recs, PLAN1.noise, Rng.of('release-1/noise'), pairKeys(r1.b.pairs));
-  files.set(RUNS.first.file, evidenceText([...[...first.values()].flat(), ...ph.matches, ...noise1], Rng.of('release-1/evidence-order')));
+  files.set(
+    RUNS.first.file,
+    evidenceText([...[...first.values()].flat(), ...ph.matches, ...noise1], Rng.of('release-1/evidence-order')),
+  );
   const dec1 = decisions1(r1);
   files.set('decisions/curators.csv', decisionsText(dec1));
   const g1 = gold1(r1);
   files.set('gold/hand-made-concordance.csv', goldText(g1, Rng.of('release-1/gold')));
   files.set('concordance.json', json(project1()));
-  files.set('answer-key.json', json({ ...key1(r1, [...[...first.values()].flat(), ...ph.matches], noise1.length, dec1, g1), phenomena: phenomenaKey(ph) }));
+  files.set(
+    'answer-key.json',
+    json({
+      ...key1(r1, [...[...first.values()].flat(), ...ph.matches], noise1.length, dec1, g1),
+      phenomena: phenomenaKey(ph),
+    }),
+  );
 
   // release 2: Brindle joins, the rerun covers everyone, more decisions
-  files.set(`release-2/${PARTNERS.brindle.file}`, catalogueText('brindle', r2.b.recs, Rng.of('release-2/catalogue/brindle')));
+  files.set(
+    `release-2/${PARTNERS.brindle.file}`,
+    catalogueText('brindle', r2.b.recs, Rng.of('release-2/catalogue/brindle')),
+  );
   const rng2 = Rng.of('release-2/evidence');
   const rerun = [
     ...r1.b.pairs.flatMap((p) => matchesFor(p, rng2, p.kind === 'fading' ? 'faded' : p.kind, first.get(p))),

@@ -31,7 +31,7 @@ const release1 = rel('demo-data/releases/2026.1');
 const release2 = rel('demo-data/releases/2027.1');
 const store = rel('demo-data/releases/store');
 
-process.stdout.write('Release 1: three invented archives, one matcher run, curators\' decisions.\n');
+process.stdout.write("Release 1: three invented archives, one matcher run, curators' decisions.\n");
 concordat('check', project1);
 concordat('build', project1, '--out', release1);
 concordat('validate', path.join(release1, 'concordance.nq'));
@@ -40,16 +40,24 @@ process.stdout.write('\nPartners load the release into a triple store and query 
 concordat('load', release1, '--store', store);
 concordat('query', '--store', store, '--named', 'partner-pair-counts', '--format', 'table');
 
-process.stdout.write('\nRelease 2: a fourth archive joins, the matcher is rerun, curators decide more (previous: release 1).\n');
+process.stdout.write(
+  '\nRelease 2: a fourth archive joins, the matcher is rerun, curators decide more (previous: release 1).\n',
+);
 const built = concordat('build', project2, '--out', release2);
 concordat('diff', release1, release2);
 const example = /example claim: (\S+:.+?) owl:sameAs/.exec(built)?.[1];
 if (!example) throw new Error('the release summary names no example claim');
 concordat('cite', example, '--release', release2);
-process.stdout.write('\nThe releases as web sites: every IRI they mint answers HTML, Turtle and JSON-LD (the second keeps what the first published).\n');
+process.stdout.write(
+  '\nThe releases as web sites: every IRI they mint answers HTML, Turtle and JSON-LD (the second keeps what the first published).\n',
+);
 const site1 = rel('demo-data/releases/site-2026.1');
 const site2 = rel('demo-data/releases/site-2027.1');
 concordat('site', release1, '--out', site1);
 concordat('site', release2, '--out', site2, '--previous', site1);
-process.stdout.write(`\nServe the site and open it in a browser:\n  npx concordat serve ${site2} --port 8080\n  then http://127.0.0.1:8080/ ; an IRI: curl -i -H 'Accept: text/turtle' http://127.0.0.1:8080/work/c000001\n`);
-process.stdout.write(`\nReleases are in ${rel('demo-data/releases')}/ (Turtle, N-Quads, JSON-LD, per-partner slices, reports, changes, SHA256SUMS); the embedded store in ${store}/.\n`);
+process.stdout.write(
+  `\nServe the site and open it in a browser:\n  npx concordat serve ${site2} --port 8080\n  then http://127.0.0.1:8080/ ; an IRI: curl -i -H 'Accept: text/turtle' http://127.0.0.1:8080/work/c000001\n`,
+);
+process.stdout.write(
+  `\nReleases are in ${rel('demo-data/releases')}/ (Turtle, N-Quads, JSON-LD, per-partner slices, reports, changes, SHA256SUMS); the embedded store in ${store}/.\n`,
+);

@@ -65,7 +65,13 @@ export class ProblemList {
     if (this.size === 0) return;
     const items = [...this.items];
     if (this.truncated > 0)
-      items.push({ file: items[0].file, line: 0, field: '', message: `${this.truncated} more problems not shown`, hint: 'fix the ones above first' });
+      items.push({
+        file: items[0].file,
+        line: 0,
+        field: '',
+        message: `${this.truncated} more problems not shown`,
+        hint: 'fix the ones above first',
+      });
     throw new UserError(items);
   }
 }

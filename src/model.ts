@@ -25,7 +25,14 @@ export interface ColumnMap {
 export const IMAGE_ROLES = ['artwork', 'detail', 'verso', 'mount', 'chart', 'stamp', 'blank', 'other'] as const;
 export type ImageRole = (typeof IMAGE_ROLES)[number];
 /** Roles whose images show something other than the artwork: their matches stay evidence but link nothing. */
-export const NON_ARTWORK_ROLES: ReadonlySet<ImageRole> = new Set(['verso', 'mount', 'chart', 'stamp', 'blank', 'other']);
+export const NON_ARTWORK_ROLES: ReadonlySet<ImageRole> = new Set([
+  'verso',
+  'mount',
+  'chart',
+  'stamp',
+  'blank',
+  'other',
+]);
 
 export interface PartnerConfig {
   key: string;
@@ -34,7 +41,9 @@ export interface PartnerConfig {
   workIri: string;
   imageIri: string;
   recordPage?: string;
-  /** Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service). */
+  /**
+   * Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service).
+   */
   imageView?: string;
   centuryConvention: CenturyConvention;
   /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
@@ -62,7 +71,9 @@ export interface Policy {
   indiscriminateAbove: number | null;
   /** Most rows review-queue.csv lists, most useful first; the rest are counted in the report. */
   reviewLimit: number;
-  /** Years two dates of one artwork may lie apart before they are listed as a date conflict (default DATE_TOLERANCE). */
+  /**
+   * Years two dates of one artwork may lie apart before they are listed as a date conflict (default DATE_TOLERANCE).
+   */
   dateTolerance?: number;
 }
 
@@ -87,7 +98,13 @@ export interface ProjectConfig {
   vocabMap?: string;
   /** `partnerDumps`: write partners/<key>.* slices (absent = true). */
   /** `csv`: how review-queue.csv, conflicts.csv and clusters.csv are written (absent = spreadsheet: BOM, CRLF). */
-  release: { version: string; issued?: string; partnerDumps?: boolean; csv?: 'spreadsheet' | 'plain'; compress?: 'none' | 'gzip' };
+  release: {
+    version: string;
+    issued?: string;
+    partnerDumps?: boolean;
+    csv?: 'spreadsheet' | 'plain';
+    compress?: 'none' | 'gzip';
+  };
   description?: string;
 }
 

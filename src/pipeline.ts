@@ -1,4 +1,5 @@
-// The whole flow, top to bottom: load → weigh evidence → link → cluster → analyse → view → units → validate → write dumps → reports → history → checksums.
+// The whole flow, top to bottom: load → weigh evidence → link → cluster → analyse → view → units → validate → write
+// dumps → reports → history → checksums.
 import path from 'node:path';
 import { existsSync } from 'node:fs';
 import v8 from 'node:v8';
@@ -67,12 +68,20 @@ export async function derive(model: Model): Promise<{ links: LinkSet; clustering
 
 function registryFile(previous: string): string {
   const f = path.join(previous, 'clusters.csv');
-  if (!existsSync(f)) throw new UserError({ file: f, line: 0, field: 'previous', message: 'the previous release has no clusters.csv', hint: '"previous" must name the folder of an earlier release built by concordat' });
+  if (!existsSync(f))
+    throw new UserError({
+      file: f,
+      line: 0,
+      field: 'previous',
+      message: 'the previous release has no clusters.csv',
+      hint: '"previous" must name the folder of an earlier release built by concordat',
+    });
   return f;
 }
 
 /**
- * Turns off V8's allocation-site pretenuring before the release is written. The RDF stage makes a few hundred short-lived
+ * Turns off V8's allocation-site pretenuring before the release is written. The RDF stage makes a few hundred
+ * short-lived
  * objects per unit at the same allocation sites; a young-generation GC that lands mid-unit finds them all alive, so V8
  * starts allocating them straight into the old generation, which then grows by ~1 GiB per 100k works of garbage
  * between full GCs (peak RSS 1.5 GiB instead of 0.7 GiB at 100k works). A GC policy only: output is unaffected.
@@ -106,14 +115,32 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     releaseGcPolicy();
     // units are made, validated and written one at a time: each step below reads the one before it as a stream
     const units = releaseStream(view, history.units, previous?.snapshot.dataset, history.attached);
-    const gate = shaclGate(shapes, { validate: validating, workers: opts.workers, batchTriples: opts.validationBatch, shapesLabel: 'shapes', engine: opts.shaclEngine });
-    const dumps = await writeDumps(dir, model, gate.pass(units.units), units.size, validating ? 'writing + SHACL' : 'writing release');
+    const gate = shaclGate(shapes, {
+      validate: validating,
+      workers: opts.workers,
+      batchTriples: opts.validationBatch,
+      shapesLabel: 'shapes',
+      engine: opts.shaclEngine,
+    });
+    const dumps = await writeDumps(
+      dir,
+      model,
+      gate.pass(units.units),
+      units.size,
+      validating ? 'writing + SHACL' : 'writing release',
+    );
     const validation = await gate.outcome();
     if (validating) await writeValidationReport(path.join(dir, 'validation.ttl'), validation);
     if (!validation.conforms) {
       const first = validation.results.filter((r) => r.severity.endsWith('Violation')).slice(0, 10);
       throw new UserError(
-        first.map((r) => ({ file: 'release', line: 0, field: r.focusNode, message: r.messages[0] ?? r.component, hint: `shape ${r.sourceShape}` })),
+        first.map((r) => ({
+          file: 'release',
+          line: 0,
+          field: r.focusNode,
+          message: r.messages[0] ?? r.component,
+          hint: `shape ${r.sourceShape}`,
+        })),
         EXIT.failure,
       );
     }
@@ -121,6 +148,16 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     await writeChanges(dir, history);
     await writeChecksums(dir, dumps.hashes);
     const publish: PublishResult = { triples: dumps.triples, claims: units.claims(), validation, hashes: dumps.hashes };
-    return { outDir: path.resolve(outDir), model, stats, links, clustering, analysis, vocab: view.vocab, publish, changes: history.changes };
+    return {
+      outDir: path.resolve(outDir),
+      model,
+      stats,
+      links,
+      clustering,
+      analysis,
+      vocab: view.vocab,
+      publish,
+      changes: history.changes,
+    };
   });
 }

@@ -23,7 +23,11 @@ test('same seed and scale give byte-identical projects; another seed differs', a
   const names = files(path.join(root, 'a'));
   assert.deepEqual(names, files(path.join(root, 'b')));
   assert.ok(names.length >= 4 + 4, 'project file, four catalogues, evidence, decisions, gold');
-  for (const f of names) assert.ok(readFileSync(path.join(root, 'a', f)).equals(readFileSync(path.join(root, 'b', f))), `${f} differs between two runs`);
+  for (const f of names)
+    assert.ok(
+      readFileSync(path.join(root, 'a', f)).equals(readFileSync(path.join(root, 'b', f))),
+      `${f} differs between two runs`,
+    );
   const ev = (d: string) => readFileSync(path.join(root, d, 'evidence', 'run.csv'));
   assert.ok(!ev('a').equals(ev('c')), 'a different seed gives different evidence');
 });
@@ -44,7 +48,8 @@ test('the generated project loads: every work, photo and evidence row is accepte
 });
 
 test('the generator draws from [0,1) and repeats its sequence for a seed', () => {
-  const a = new Rng(42), b = new Rng(42);
+  const a = new Rng(42),
+    b = new Rng(42);
   for (let i = 0; i < 1000; i++) {
     const x = a.next();
     assert.equal(x, b.next());

@@ -36,7 +36,7 @@ async function rows(file: string, delimiter = ','): Promise<string[][]> {
   return out.slice(1);
 }
 
-test('a citation\'s image matches are exactly the evidence rows behind the link in the input files', async () => {
+test("a citation's image matches are exactly the evidence rows behind the link in the input files", async () => {
   const r = await ready;
   const p = loadProjectFile(project);
   const { model } = await load(project);
@@ -44,21 +44,34 @@ test('a citation\'s image matches are exactly the evidence rows behind the link 
   const workOfImage = (ref: string) => {
     const [key, id] = [ref.slice(0, ref.indexOf(':')), ref.slice(ref.indexOf(':') + 1)];
     const pi = p.partners.findIndex((x) => x.key === key);
-    const w = model.images.work[model.images.id.findIndex((x, i) => x === id && model.works[model.images.work[i]].partner === pi)];
+    const w =
+      model.images.work[
+        model.images.id.findIndex((x, i) => x === id && model.works[model.images.work[i]].partner === pi)
+      ];
     return `${key}:${model.works[w].id}`;
   };
-  const iriOf = (ref: string) => expandTemplate(imageIri.get(ref.slice(0, ref.indexOf(':')))!, { image: ref.slice(ref.indexOf(':') + 1) });
+  const iriOf = (ref: string) =>
+    expandTemplate(imageIri.get(ref.slice(0, ref.indexOf(':')))!, { image: ref.slice(ref.indexOf(':') + 1) });
   const evidence = await rows(p.evidence[0].file);
   const published = r.links.links.filter((l) => l.status !== 'candidate' && l.support > 0);
   const sample = published.filter((_, i) => i % 9 === 0);
   assert.ok(sample.length >= 10);
   for (const l of sample) {
-    const [a, b] = [`${p.partners[model.works[l.a].partner].key}:${model.works[l.a].id}`, `${p.partners[model.works[l.b].partner].key}:${model.works[l.b].id}`];
+    const [a, b] = [
+      `${p.partners[model.works[l.a].partner].key}:${model.works[l.a].id}`,
+      `${p.partners[model.works[l.b].partner].key}:${model.works[l.b].id}`,
+    ];
     const c = await cite(a, { release });
     const claim = c.claims.find((x) => [x.subject.ref, x.object.ref].sort().join('|') === [a, b].sort().join('|'));
     assert.ok(claim, `${a} – ${b} is cited`);
-    const expected = new Set(evidence.filter(([x, y]) => [workOfImage(x), workOfImage(y)].sort().join('|') === [a, b].sort().join('|'))
-      .map(([x, y, score, overlap]) => `${iriOf(x)} ${iriOf(y)} ${Number(Number(score).toFixed(6))} ${overlap === '' ? 1 : Number(Number(overlap).toFixed(6))}`));
+    const expected = new Set(
+      evidence
+        .filter(([x, y]) => [workOfImage(x), workOfImage(y)].sort().join('|') === [a, b].sort().join('|'))
+        .map(
+          ([x, y, score, overlap]) =>
+            `${iriOf(x)} ${iriOf(y)} ${Number(Number(score).toFixed(6))} ${overlap === '' ? 1 : Number(Number(overlap).toFixed(6))}`,
+        ),
+    );
     const got = new Set(claim.matches.map((m) => `${m.source} ${m.target} ${m.score} ${m.overlap}`));
     assert.deepEqual([...got].sort(), [...expected].sort(), `${a} – ${b}`);
     for (const m of claim.matches) assert.equal(m.run, `${p.base}run/${p.evidence[0].run!.id}`);
@@ -112,50 +125,155 @@ test('a cluster IRI cites exactly the links between its members; text has one se
   const c = await cite(`${r.model.project.base}work/${cl.id}`, { release });
   const published = Array.from(cl.links).filter((i) => r.links.links[i].status !== 'candidate');
   assert.ok(c.claims.length >= published.length);
-  const members = new Set(Array.from(cl.members, (w) => `${r.model.project.partners[r.model.works[w].partner].key}:${r.model.works[w].id}`));
+  const members = new Set(
+    Array.from(cl.members, (w) => `${r.model.project.partners[r.model.works[w].partner].key}:${r.model.works[w].id}`),
+  );
   for (const x of c.claims) assert.ok(members.has(x.subject.ref) && members.has(x.object.ref));
   const text = await CITE_FORMATS.text(c);
   assert.equal(text.split('\nEvidence:\n').length - 1, c.claims.length);
   const md = await CITE_FORMATS.markdown(c);
-  assert.equal((md.match(/^\| <https:/gm) ?? []).length, c.claims.reduce((n, x) => n + x.matches.length, 0));
+  assert.equal(
+    (md.match(/^\| <https:/gm) ?? []).length,
+    c.claims.reduce((n, x) => n + x.matches.length, 0),
+  );
 });
 
-test('JSON-LD output: every statement is in the release and the link\'s status is among them', async () => {
+test("JSON-LD output: every statement is in the release and the link's status is among them", async () => {
   await ready;
   const c = await cite('kessling:Inv. 10/2', { release });
   const doc = await citationJsonLd(c);
   const nq = (await jsonld.toRDF(doc, { format: 'application/n-quads' })) as unknown as string;
-  const all = new Set((await readRdfFile(path.join(release, 'concordance.nq'))).map((q) => `${q.subject.value} ${q.predicate.value} ${q.object.value}`));
+  const all = new Set(
+    (await readRdfFile(path.join(release, 'concordance.nq'))).map(
+      (q) => `${q.subject.value} ${q.predicate.value} ${q.object.value}`,
+    ),
+  );
   const lines = nq.trim().split('\n');
   assert.ok(lines.length > 10);
   const { default: N3 } = await import('n3');
   const quads = new N3.Parser({ format: 'application/n-quads' }).parse(nq);
-  for (const q of quads) assert.ok(all.has(`${q.subject.value} ${q.predicate.value} ${q.object.value}`), `${q.subject.value} ${q.predicate.value}`);
+  for (const q of quads)
+    assert.ok(
+      all.has(`${q.subject.value} ${q.predicate.value} ${q.object.value}`),
+      `${q.subject.value} ${q.predicate.value}`,
+    );
   assert.ok(quads.some((q) => q.subject.value === c.claims[0].link && q.predicate.value.endsWith('#status')));
 });
 
 // CSL-JSON schema: citation-style-language/schema, schemas/input/csl-data.json (the stored copy at commit 00412663),
 // transcribed in part: the item types, `id` and `type` required, name and date variables as defined there, the
 // string variables used here, `custom` an object, and no property outside the schema's variables.
-const CSL_TYPES = ['article', 'article-journal', 'article-magazine', 'article-newspaper', 'bill', 'book', 'broadcast', 'chapter', 'classic', 'collection', 'dataset', 'document', 'entry', 'entry-dictionary', 'entry-encyclopedia', 'figure', 'graphic', 'hearing', 'interview', 'legal_case', 'legislation', 'manuscript', 'map', 'motion_picture', 'musical_score', 'pamphlet', 'paper-conference', 'patent', 'performance', 'periodical', 'personal_communication', 'post', 'post-weblog', 'regulation', 'report', 'review', 'review-book', 'software', 'song', 'speech', 'standard', 'thesis', 'treaty', 'webpage'] as const;
-const CslName = z.strictObject({ family: z.string().optional(), given: z.string().optional(), 'dropping-particle': z.string().optional(), 'non-dropping-particle': z.string().optional(), suffix: z.string().optional(), 'comma-suffix': z.union([z.string(), z.number(), z.boolean()]).optional(), 'static-ordering': z.union([z.string(), z.number(), z.boolean()]).optional(), literal: z.string().optional(), 'parse-names': z.union([z.string(), z.number(), z.boolean()]).optional() });
-const CslDate = z.union([z.string(), z.strictObject({ 'date-parts': z.array(z.array(z.union([z.string(), z.number()])).min(1).max(3)).min(1).max(2).optional(), season: z.union([z.string(), z.number()]).optional(), circa: z.union([z.string(), z.number(), z.boolean()]).optional(), literal: z.string().optional(), raw: z.string().optional(), edtf: z.string().optional() })]);
+const CSL_TYPES = [
+  'article',
+  'article-journal',
+  'article-magazine',
+  'article-newspaper',
+  'bill',
+  'book',
+  'broadcast',
+  'chapter',
+  'classic',
+  'collection',
+  'dataset',
+  'document',
+  'entry',
+  'entry-dictionary',
+  'entry-encyclopedia',
+  'figure',
+  'graphic',
+  'hearing',
+  'interview',
+  'legal_case',
+  'legislation',
+  'manuscript',
+  'map',
+  'motion_picture',
+  'musical_score',
+  'pamphlet',
+  'paper-conference',
+  'patent',
+  'performance',
+  'periodical',
+  'personal_communication',
+  'post',
+  'post-weblog',
+  'regulation',
+  'report',
+  'review',
+  'review-book',
+  'software',
+  'song',
+  'speech',
+  'standard',
+  'thesis',
+  'treaty',
+  'webpage',
+] as const;
+const CslName = z.strictObject({
+  family: z.string().optional(),
+  given: z.string().optional(),
+  'dropping-particle': z.string().optional(),
+  'non-dropping-particle': z.string().optional(),
+  suffix: z.string().optional(),
+  'comma-suffix': z.union([z.string(), z.number(), z.boolean()]).optional(),
+  'static-ordering': z.union([z.string(), z.number(), z.boolean()]).optional(),
+  literal: z.string().optional(),
+  'parse-names': z.union([z.string(), z.number(), z.boolean()]).optional(),
+});
+const CslDate = z.union([
+  z.string(),
+  z.strictObject({
+    'date-parts': z
+      .array(
+        z
+          .array(z.union([z.string(), z.number()]))
+          .min(1)
+          .max(3),
+      )
+      .min(1)
+      .max(2)
+      .optional(),
+    season: z.union([z.string(), z.number()]).optional(),
+    circa: z.union([z.string(), z.number(), z.boolean()]).optional(),
+    literal: z.string().optional(),
+    raw: z.string().optional(),
+    edtf: z.string().optional(),
+  }),
+]);
 const text = z.string();
 const CslItem = z.strictObject({
-  id: z.union([z.string(), z.number()]), type: z.enum(CSL_TYPES),
-  author: z.array(CslName).optional(), curator: z.array(CslName).optional(), editor: z.array(CslName).optional(), issued: CslDate.optional(), accessed: CslDate.optional(),
-  title: text.optional(), 'container-title': text.optional(), version: text.optional(), publisher: text.optional(), 'publisher-place': text.optional(),
-  URL: text.optional(), DOI: text.optional(), note: text.optional(), medium: text.optional(), genre: text.optional(), abstract: text.optional(),
+  id: z.union([z.string(), z.number()]),
+  type: z.enum(CSL_TYPES),
+  author: z.array(CslName).optional(),
+  curator: z.array(CslName).optional(),
+  editor: z.array(CslName).optional(),
+  issued: CslDate.optional(),
+  accessed: CslDate.optional(),
+  title: text.optional(),
+  'container-title': text.optional(),
+  version: text.optional(),
+  publisher: text.optional(),
+  'publisher-place': text.optional(),
+  URL: text.optional(),
+  DOI: text.optional(),
+  note: text.optional(),
+  medium: text.optional(),
+  genre: text.optional(),
+  abstract: text.optional(),
   custom: z.record(z.string(), z.unknown()).optional(),
 });
 const CslData = z.array(CslItem);
 
-test('CSL-JSON: one item per claim, URL the claim\'s link IRI, the curator who decided, both record pages as related links', async () => {
+test("CSL-JSON: one item per claim, URL the claim's link IRI, the curator who decided, both record pages as related links", async () => {
   const r = await ready;
   // a record with several published claims, one of them decided by a curator
   const claimsOf = new Map<number, number>();
-  for (const l of r.links.links) if (l.status !== 'candidate') for (const w of [l.a, l.b]) claimsOf.set(w, (claimsOf.get(l.a === w ? l.a : l.b) ?? 0) + 1);
-  const decided = r.links.links.find((l) => l.decision !== undefined && l.status === 'confirmed' && (claimsOf.get(l.a) ?? 0) >= 2)!;
+  for (const l of r.links.links)
+    if (l.status !== 'candidate')
+      for (const w of [l.a, l.b]) claimsOf.set(w, (claimsOf.get(l.a === w ? l.a : l.b) ?? 0) + 1);
+  const decided = r.links.links.find(
+    (l) => l.decision !== undefined && l.status === 'confirmed' && (claimsOf.get(l.a) ?? 0) >= 2,
+  )!;
   assert.ok(decided, 'the demo has such a record');
   const ref = `${r.model.project.partners[r.model.works[decided.a].partner].key}:${r.model.works[decided.a].id}`;
   const c = await cite(ref, { release });
@@ -176,9 +294,18 @@ test('CSL-JSON: one item per claim, URL the claim\'s link IRI, the curator who d
     if (claim.review) assert.deepEqual(it.curator, [{ literal: claim.review.curatorName ?? claim.review.curator }]);
     else assert.equal(it.curator, undefined);
   });
-  assert.ok(items.some((it) => it.curator), 'a curator-confirmed claim names its curator');
-  assert.throws(() => CslData.parse([{ ...citationCsl(c)[0], type: 'data-set' }]), 'the schema rejects an unknown type');
-  assert.throws(() => CslData.parse([{ ...citationCsl(c)[0], relatedLinks: [] }]), 'the schema rejects a property it does not define');
+  assert.ok(
+    items.some((it) => it.curator),
+    'a curator-confirmed claim names its curator',
+  );
+  assert.throws(
+    () => CslData.parse([{ ...citationCsl(c)[0], type: 'data-set' }]),
+    'the schema rejects an unknown type',
+  );
+  assert.throws(
+    () => CslData.parse([{ ...citationCsl(c)[0], relatedLinks: [] }]),
+    'the schema rejects a property it does not define',
+  );
 });
 
 test('citing a cluster with date conflicts lists them in every format', async () => {
@@ -192,7 +319,13 @@ test('citing a cluster with date conflicts lists them in every format', async ()
   assert.equal(c.conflicts?.length, expected);
   const refs = (c.conflicts ?? []).map((x) => [x.a.ref, x.b.ref].sort().join(' '));
   const ref = (w: number) => `${r.model.project.partners[r.model.works[w].partner].key}:${r.model.works[w].id}`;
-  assert.deepEqual(refs.sort(), r.analysis.conflicts.filter((x) => x.cluster === withConflict.cluster).map((x) => [ref(x.work), ref(x.anchor)].sort().join(' ')).sort());
+  assert.deepEqual(
+    refs.sort(),
+    r.analysis.conflicts
+      .filter((x) => x.cluster === withConflict.cluster)
+      .map((x) => [ref(x.work), ref(x.anchor)].sort().join(' '))
+      .sort(),
+  );
   const items = CslData.parse(citationCsl(c));
   const cluster = items.find((it) => it.id === iri)!;
   assert.equal(cluster.URL, iri);

@@ -17,7 +17,7 @@ test('every command that prints a result offers --json', () => {
   for (const c of PRINTING) assert.match(run(c, '--help').stdout, /\n\s+--json\b/, c);
 });
 
-test('the remote query URL is --query-endpoint in every command; load\'s old --query still works, with a warning', () => {
+test("the remote query URL is --query-endpoint in every command; load's old --query still works, with a warning", () => {
   for (const c of ['load', 'query']) {
     const help = run(c, '--help').stdout;
     assert.match(help, /--query-endpoint <url>/, c);
@@ -25,15 +25,31 @@ test('the remote query URL is --query-endpoint in every command; load\'s old --q
   }
   const r = run('load', 'demo-data', '--query', 'http://127.0.0.1:1/sparql', '--store', path.join(tmp, 'x'));
   assert.match(r.stderr, /--query is deprecated; use --query-endpoint/);
-  assert.match(r.stderr, /--store: cannot be combined with remote endpoint options/, 'the old spelling still reaches the store choice');
+  assert.match(
+    r.stderr,
+    /--store: cannot be combined with remote endpoint options/,
+    'the old spelling still reaches the store choice',
+  );
   assert.equal(r.status, 2);
 });
 
 const NUMBERS: [string[], RegExp][] = [
-  [['sweep', 'demo-data/concordance.json', '--from', 'abc'], /option '--from <score>' argument 'abc' is invalid\. "abc" is not a number: give a number from 0 to 1/],
-  [['sweep', 'demo-data/concordance.json', '--to', '1.5'], /option '--to <score>' argument '1\.5' is invalid\. 1\.5 is out of range/],
-  [['sweep', 'demo-data/concordance.json', '--step', '0'], /option '--step <score>' argument '0' is invalid\. 0 is out of range: give a number above 0 and at most 1/],
-  [['serve', 'site', '--port', '80.5'], /option '--port <n>' argument '80\.5' is invalid\. 80\.5 is not a whole number/],
+  [
+    ['sweep', 'demo-data/concordance.json', '--from', 'abc'],
+    /option '--from <score>' argument 'abc' is invalid\. "abc" is not a number: give a number from 0 to 1/,
+  ],
+  [
+    ['sweep', 'demo-data/concordance.json', '--to', '1.5'],
+    /option '--to <score>' argument '1\.5' is invalid\. 1\.5 is out of range/,
+  ],
+  [
+    ['sweep', 'demo-data/concordance.json', '--step', '0'],
+    /option '--step <score>' argument '0' is invalid\. 0 is out of range: give a number above 0 and at most 1/,
+  ],
+  [
+    ['serve', 'site', '--port', '80.5'],
+    /option '--port <n>' argument '80\.5' is invalid\. 80\.5 is not a whole number/,
+  ],
   [['serve', 'site', '--port', '70000'], /option '--port <n>' argument '70000' is invalid\. 70000 is out of range/],
 ];
 
@@ -49,7 +65,10 @@ for (const [args, message] of NUMBERS) {
 test('sweep reads a decimal comma in a number option', () => {
   const r = run('sweep', 'demo-data/concordance.json', '--from', '0,5', '--to', '0,6', '--step', '0,1', '--json');
   assert.equal(r.status, 0, r.stderr);
-  assert.deepEqual(JSON.parse(r.stdout).map((x: { proposeAt: number }) => x.proposeAt), [0.5, 0.6]);
+  assert.deepEqual(
+    JSON.parse(r.stdout).map((x: { proposeAt: number }) => x.proposeAt),
+    [0.5, 0.6],
+  );
 });
 
 test('init --json names the project file and what was created', () => {

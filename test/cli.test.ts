@@ -14,7 +14,8 @@ const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], {
 test('--help lists every command', () => {
   const r = run('--help');
   assert.equal(r.status, 0);
-  for (const c of ['check', 'build', 'validate', 'load', 'query', 'sweep', 'diff', 'cite', 'init', 'add-partner']) assert.match(r.stdout, new RegExp(`\\n  ${c} `));
+  for (const c of ['check', 'build', 'validate', 'load', 'query', 'sweep', 'diff', 'cite', 'init', 'add-partner'])
+    assert.match(r.stdout, new RegExp(`\\n  ${c} `));
 });
 
 test('cite --format choices are the formats the cite stage knows', () => {
@@ -50,7 +51,10 @@ test('check warns about an image pair a run lists twice, and the link counts it 
   const dir = fixtureCopy('load/base', { 'evidence/run1.csv': (t) => t + 'beta:n1,alpha:a-1,0.50,0.9\n' });
   const r = run('check', path.join(dir, 'concordance.json'));
   assert.equal(r.status, 0, r.stderr);
-  assert.match(r.stdout, /evidence\/run1\.csv:6: image_b: this image pair and run were already listed on line 2 \(counted once/);
+  assert.match(
+    r.stdout,
+    /evidence\/run1\.csv:6: image_b: this image pair and run were already listed on line 2 \(counted once/,
+  );
   const { load } = await import('../src/load/index.js');
   const { link } = await import('../src/link/index.js');
   const { model } = await load(path.join(dir, 'concordance.json'));

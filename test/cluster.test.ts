@@ -9,7 +9,14 @@ import { UndirectedGraph } from 'graphology';
 import { connectedComponents } from 'graphology-components';
 import { link, isClaim } from '../src/link/index.js';
 import { pairKey } from '../src/link/types.js';
-import { cluster, readClusterRegistry, writeClusterRegistry, registryOf, type ClusterRegistry, type Clustering } from '../src/cluster/index.js';
+import {
+  cluster,
+  readClusterRegistry,
+  writeClusterRegistry,
+  registryOf,
+  type ClusterRegistry,
+  type Clustering,
+} from '../src/cluster/index.js';
 import { workRef, type Model } from '../src/model.js';
 import { UserError } from '../src/errors.js';
 import { tinyModel, workNo, type TinySpec } from './helpers/model.js';
@@ -21,21 +28,35 @@ const linkOf = (m: Model, x: string, y: string) => {
   assert.ok(i !== undefined, `a link ${x}–${y}`);
   return ls.links[i];
 };
-const refsOf = (m: Model, c: Clustering) => c.clusters.map((k) => [k.id, Array.from(k.members, (w) => workRef(m, w))] as const);
+const refsOf = (m: Model, c: Clustering) =>
+  c.clusters.map((k) => [k.id, Array.from(k.members, (w) => workRef(m, w))] as const);
 const tmp = () => tempDir('concordat-cluster-');
 
 // ---- link rules (worked by hand) ----
 
 test('link: a later decision row for the same pair wins over an earlier one and over the score', () => {
   const m = tinyModel({
-    partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', 0.95]],
-    decisions: [['a:1', 'b:1', 'distinct', 'X'], ['b:1', 'a:1', 'same', 'Y', '2026-02-01']],
+    partners: ['a', 'b'],
+    works: ['a:1', 'b:1'],
+    matches: [['a:1', 'b:1', 0.95]],
+    decisions: [
+      ['a:1', 'b:1', 'distinct', 'X'],
+      ['b:1', 'a:1', 'same', 'Y', '2026-02-01'],
+    ],
   });
   const l = linkOf(m, 'a:1', 'b:1');
   assert.equal(l.status, 'confirmed');
   assert.equal(l.kind, 'same');
   assert.equal(m.decisions[l.decision!].curator, 'Y');
-  const m2 = tinyModel({ partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', 0.95]], decisions: [['a:1', 'b:1', 'same'], ['a:1', 'b:1', 'distinct']] });
+  const m2 = tinyModel({
+    partners: ['a', 'b'],
+    works: ['a:1', 'b:1'],
+    matches: [['a:1', 'b:1', 0.95]],
+    decisions: [
+      ['a:1', 'b:1', 'same'],
+      ['a:1', 'b:1', 'distinct'],
+    ],
+  });
   assert.equal(linkOf(m2, 'a:1', 'b:1').status, 'rejected');
   assert.equal(cluster(m2, link(m2)).clusters.length, 0, 'a rejected link joins nothing');
 });
@@ -57,7 +78,12 @@ test('link: part direction follows image_a of partial matches; a curator part de
   assert.equal(l.status, 'proposed');
   assert.equal(l.part, workNo(m, 'b:7'));
   assert.equal(cluster(m, link(m)).clusters.length, 0, 'part links do not cluster');
-  const m2 = tinyModel({ partners: ['a', 'b'], works: ['a:1', 'b:7'], matches: [['b:7', 'a:1', 0.8, 0.5]], decisions: [['a:1', 'b:7', 'part']] });
+  const m2 = tinyModel({
+    partners: ['a', 'b'],
+    works: ['a:1', 'b:7'],
+    matches: [['b:7', 'a:1', 0.8, 0.5]],
+    decisions: [['a:1', 'b:7', 'part']],
+  });
   assert.equal(linkOf(m2, 'a:1', 'b:7').part, workNo(m2, 'a:1'), 'work_a of the decision is the part');
 });
 
@@ -73,27 +99,45 @@ test('link: matches below minOverlap are evidence but propose nothing', () => {
 
 test('link: autoConfirmAt confirms at or above it; proposeAt proposes at or above it', () => {
   // one photograph: confidence = score × 2/3 (src/link/confidence.ts), compared with both thresholds
-  const spec = (score: number): TinySpec => ({ partners: ['a', 'b'], works: ['a:1', 'b:1'], matches: [['a:1', 'b:1', score]], policy: { autoConfirmAt: 0.6 } });
-  const cases: [number, string][] = [[0.9, 'confirmed'], [0.89, 'proposed'], [0.75, 'proposed'], [0.74, 'candidate']];
-  for (const [score, status] of cases) assert.equal(linkOf(tinyModel(spec(score)), 'a:1', 'b:1').status, status, `score ${score}`);
+  const spec = (score: number): TinySpec => ({
+    partners: ['a', 'b'],
+    works: ['a:1', 'b:1'],
+    matches: [['a:1', 'b:1', score]],
+    policy: { autoConfirmAt: 0.6 },
+  });
+  const cases: [number, string][] = [
+    [0.9, 'confirmed'],
+    [0.89, 'proposed'],
+    [0.75, 'proposed'],
+    [0.74, 'candidate'],
+  ];
+  for (const [score, status] of cases)
+    assert.equal(linkOf(tinyModel(spec(score)), 'a:1', 'b:1').status, status, `score ${score}`);
 });
 
 // ---- components and diagnostics ----
 
-const threeArchives = (): Model => tinyModel({
-  partners: ['a', 'b', 'c'],
-  works: ['a:1', 'a:2', 'b:1', 'b:2', 'c:1', 'c:2', 'a:9', 'b:9'],
-  matches: [
-    ['a:1', 'c:1', 0.9], ['c:1', 'b:1', 0.8], // a:1 and b:1 meet only through archive c
-    ['a:2', 'b:2', 0.95], ['b:2', 'c:2', 0.9], ['c:2', 'a:2', 0.9], // triangle: no bridge, no implied pair
-    ['a:9', 'b:9', 0.4], // candidate: no cluster
-  ],
-});
+const threeArchives = (): Model =>
+  tinyModel({
+    partners: ['a', 'b', 'c'],
+    works: ['a:1', 'a:2', 'b:1', 'b:2', 'c:1', 'c:2', 'a:9', 'b:9'],
+    matches: [
+      ['a:1', 'c:1', 0.9],
+      ['c:1', 'b:1', 0.8], // a:1 and b:1 meet only through archive c
+      ['a:2', 'b:2', 0.95],
+      ['b:2', 'c:2', 0.9],
+      ['c:2', 'a:2', 0.9], // triangle: no bridge, no implied pair
+      ['a:9', 'b:9', 0.4], // candidate: no cluster
+    ],
+  });
 
 test('clusters are components of ≥ 2 works over confirmed or proposed same links', () => {
   const m = threeArchives();
   const c = cluster(m, link(m));
-  assert.deepEqual(refsOf(m, c), [['c000001', ['a:1', 'b:1', 'c:1']], ['c000002', ['a:2', 'b:2', 'c:2']]]);
+  assert.deepEqual(refsOf(m, c), [
+    ['c000001', ['a:1', 'b:1', 'c:1']],
+    ['c000002', ['a:2', 'b:2', 'c:2']],
+  ]);
   assert.equal(c.clusterOf[workNo(m, 'a:9')], -1);
   assert.equal(c.clusterOf[workNo(m, 'c:1')], 0);
 });
@@ -111,33 +155,63 @@ test('implied pairs: a:1–b:1 are joined only through archive c; the triangle i
 test('implied pairs: a cross-partner pair with a path inside its two archives is not "through a third"', () => {
   // claims a:1–b:1, b:1–a:2, a:2–c:1 (a:1–a:2 only a candidate): one cluster of four, three implied pairs
   const m = tinyModel({
-    partners: ['a', 'b', 'c'], works: ['a:1', 'a:2', 'b:1', 'c:1'],
-    matches: [['a:1', 'b:1', 0.9], ['b:1', 'a:2', 0.9], ['a:2', 'c:1', 0.9], ['a:1', 'a:2', 0.2]],
+    partners: ['a', 'b', 'c'],
+    works: ['a:1', 'a:2', 'b:1', 'c:1'],
+    matches: [
+      ['a:1', 'b:1', 0.9],
+      ['b:1', 'a:2', 0.9],
+      ['a:2', 'c:1', 0.9],
+      ['a:1', 'a:2', 0.2],
+    ],
   });
   const c = cluster(m, link(m));
   const got = new Map<string, [number, number]>();
   for (let i = 0; i < c.implied.count; i++)
-    got.set(`${workRef(m, c.implied.a[i])} ${workRef(m, c.implied.b[i])}`, [c.implied.crossPartner[i], c.implied.throughThird[i]]);
+    got.set(`${workRef(m, c.implied.a[i])} ${workRef(m, c.implied.b[i])}`, [
+      c.implied.crossPartner[i],
+      c.implied.throughThird[i],
+    ]);
   assert.deepEqual(Object.fromEntries(got), {
     'a:1 a:2': [0, 0], // same archive: the candidate a:1–a:2 link (score 0.2) is no claim
     'a:1 c:1': [1, 1], // inside archives a and c, a:1 and c:1 are not joined (a:1–a:2 needs b:1)
     'b:1 c:1': [1, 1], // inside b and c: b:1 and c:1 are not joined
   });
   // with a direct a:1–a:2 claim, a:1 reaches c:1 within archives a and c
-  const m2 = tinyModel({ partners: ['a', 'b', 'c'], works: ['a:1', 'a:2', 'b:1', 'c:1'], matches: [['a:1', 'b:1', 0.9], ['b:1', 'a:2', 0.9], ['a:2', 'c:1', 0.9], ['a:1', 'a:2', 0.9]] });
+  const m2 = tinyModel({
+    partners: ['a', 'b', 'c'],
+    works: ['a:1', 'a:2', 'b:1', 'c:1'],
+    matches: [
+      ['a:1', 'b:1', 0.9],
+      ['b:1', 'a:2', 0.9],
+      ['a:2', 'c:1', 0.9],
+      ['a:1', 'a:2', 0.9],
+    ],
+  });
   const c2 = cluster(m2, link(m2));
-  const i = [...Array(c2.implied.count).keys()].find((k) => workRef(m2, c2.implied.a[k]) === 'a:1' && workRef(m2, c2.implied.b[k]) === 'c:1')!;
+  const i = [...Array(c2.implied.count).keys()].find(
+    (k) => workRef(m2, c2.implied.a[k]) === 'a:1' && workRef(m2, c2.implied.b[k]) === 'c:1',
+  )!;
   assert.equal(c2.implied.throughThird[i], 0);
 });
 
 test('bridges: the tail of a triangle is a bridge, the triangle edges are not', () => {
   const m = tinyModel({
-    partners: ['a', 'b', 'c'], works: ['a:1', 'b:1', 'c:1', 'a:2', 'b:2'],
-    matches: [['a:1', 'b:1', 0.9], ['b:1', 'c:1', 0.9], ['c:1', 'a:1', 0.9], ['c:1', 'a:2', 0.9], ['a:2', 'b:2', 0.9]],
+    partners: ['a', 'b', 'c'],
+    works: ['a:1', 'b:1', 'c:1', 'a:2', 'b:2'],
+    matches: [
+      ['a:1', 'b:1', 0.9],
+      ['b:1', 'c:1', 0.9],
+      ['c:1', 'a:1', 0.9],
+      ['c:1', 'a:2', 0.9],
+      ['a:2', 'b:2', 0.9],
+    ],
   });
   const ls = link(m);
   const c = cluster(m, ls, undefined, { coherence: false });
-  const bridges = Array.from(c.bridges, (i, k) => `${workRef(m, ls.links[i].a)}–${workRef(m, ls.links[i].b)} ${c.bridgeMinSide[k]}`).sort();
+  const bridges = Array.from(
+    c.bridges,
+    (i, k) => `${workRef(m, ls.links[i].a)}–${workRef(m, ls.links[i].b)} ${c.bridgeMinSide[k]}`,
+  ).sort();
   assert.deepEqual(bridges, ['a:2–b:2 1', 'a:2–c:1 2'], 'a:2–c:1 joins {a:2, b:2} to the triangle: smaller side 2');
 });
 
@@ -154,7 +228,11 @@ test('bridges on a path of 60 000 works: every edge, no call-stack overflow', ()
   const c = cluster(m, link(m), undefined, { coherence: false });
   assert.equal(c.clusters.length, 1);
   assert.equal(c.bridges.length, n - 1);
-  assert.equal(c.bridgeMinSide.reduce((x, y) => Math.max(x, y), 0), n / 2, 'the middle link halves the path');
+  assert.equal(
+    c.bridgeMinSide.reduce((x, y) => Math.max(x, y), 0),
+    n / 2,
+    'the middle link halves the path',
+  );
   assert.equal(c.clusters[0].oversized, true);
   assert.equal(c.implied.count, 0, 'too large to list pairwise');
   assert.equal(c.impliedTotal, (n * (n - 1)) / 2 - (n - 1));
@@ -162,7 +240,11 @@ test('bridges on a path of 60 000 works: every edge, no call-stack overflow', ()
 
 test('oversized: more members than 2 × partners by default; the threshold is an option', () => {
   const works = ['a:1', 'a:2', 'a:3', 'b:1', 'b:2'];
-  const m = tinyModel({ partners: ['a', 'b'], works, matches: works.slice(1).map((w, i) => [works[i], w, 0.9] as [string, string, number]) });
+  const m = tinyModel({
+    partners: ['a', 'b'],
+    works,
+    matches: works.slice(1).map((w, i) => [works[i], w, 0.9] as [string, string, number]),
+  });
   const plain = { coherence: false };
   assert.equal(cluster(m, link(m), undefined, plain).oversizeAt, 4);
   assert.equal(cluster(m, link(m), undefined, plain).clusters[0].oversized, true, '5 members > 4');
@@ -171,8 +253,10 @@ test('oversized: more members than 2 × partners by default; the threshold is an
 
 // ---- stable IDs ----
 
-const reg = (active: Record<string, string[]>, retired: [string, string[]][] = []): ClusterRegistry =>
-  ({ active: new Map(Object.entries(active)), retired: retired.map(([id, replacedBy]) => ({ id, replacedBy })) });
+const reg = (active: Record<string, string[]>, retired: [string, string[]][] = []): ClusterRegistry => ({
+  active: new Map(Object.entries(active)),
+  retired: retired.map(([id, replacedBy]) => ({ id, replacedBy })),
+});
 const chain = (...refs: string[]): [string, string, number][] => refs.slice(1).map((r, i) => [refs[i], r, 0.9]);
 const allWorks = ['a:1', 'a:2', 'a:3', 'a:9', 'b:1', 'b:2', 'b:3', 'b:9', 'c:1', 'c:5', 'c:9'];
 const clustered = (matches: [string, string, number][], previous?: ClusterRegistry) => {
@@ -181,7 +265,7 @@ const clustered = (matches: [string, string, number][], previous?: ClusterRegist
   return { ids: Object.fromEntries(refsOf(m, c).map(([id, refs]) => [id, refs.join(' ')])), retired: c.retired };
 };
 
-test('first release: IDs in order of each cluster\'s smallest member reference', () => {
+test("first release: IDs in order of each cluster's smallest member reference", () => {
   const r = clustered([...chain('c:5', 'b:3'), ...chain('b:2', 'a:2'), ...chain('a:1', 'b:1')]);
   assert.deepEqual(r.ids, { c000001: 'a:1 b:1', c000002: 'a:2 b:2', c000003: 'b:3 c:5' });
   assert.deepEqual(r.retired, []);
@@ -204,7 +288,11 @@ test('merge with unequal overlap: the ID with more former members survives even 
 test('split: the old ID goes to the largest part, the other part gets the next new ID', () => {
   const prev = reg({ c000001: ['a:1', 'a:9', 'b:1', 'b:9', 'c:1'] }, [['c000004', ['c000001']]]);
   const r = clustered([...chain('a:9', 'b:9'), ...chain('a:1', 'b:1', 'c:1')], prev);
-  assert.deepEqual(r.ids, { c000001: 'a:1 b:1 c:1', c000005: 'a:9 b:9' }, 'c000005: after the highest ID ever issued (a tombstone)');
+  assert.deepEqual(
+    r.ids,
+    { c000001: 'a:1 b:1 c:1', c000005: 'a:9 b:9' },
+    'c000005: after the highest ID ever issued (a tombstone)',
+  );
   assert.deepEqual(r.retired, [{ id: 'c000004', replacedBy: ['c000001'] }], 'the tombstone is carried forward');
 });
 
@@ -224,8 +312,14 @@ test('split into equal parts: the part with the smaller first member keeps the I
 // ---- registry file ----
 
 test('clusters.csv round-trips: written registry reads back to the same registry', async () => {
-  const m = tinyModel({ partners: ['a', 'b', 'c'], works: allWorks, matches: [...chain('a:1', 'b:1', 'c:1'), ...chain('a:9', 'b:9')] });
-  const prev = reg({ c000001: ['a:1', 'a:9', 'b:1', 'b:9', 'c:1'], c000002: ['b:3', 'c:5'] }, [['c000004', ['c000001', 'c000002']]]);
+  const m = tinyModel({
+    partners: ['a', 'b', 'c'],
+    works: allWorks,
+    matches: [...chain('a:1', 'b:1', 'c:1'), ...chain('a:9', 'b:9')],
+  });
+  const prev = reg({ c000001: ['a:1', 'a:9', 'b:1', 'b:9', 'c:1'], c000002: ['b:3', 'c:5'] }, [
+    ['c000004', ['c000001', 'c000002']],
+  ]);
   const c = cluster(m, link(m), prev);
   const file = path.join(tmp(), 'clusters.csv');
   await writeClusterRegistry(file, m, c);
@@ -242,8 +336,18 @@ test('readClusterRegistry: bad rows are refused with file, line and field', asyn
   const cases: [string, number, string, RegExp][] = [
     ['cluster,work,status,replaced_by\nc000001,a:1,active,\nc000001,a:2,actve,\n', 3, 'status', /unknown status/],
     ['cluster,work,status,replaced_by\nX1,a:1,active,\n', 2, 'cluster', /not a cluster ID/],
-    ['cluster,work,status,replaced_by\nc000001,a:1,active,\nc000002,a:1,active,\n', 3, 'work', /already a member of c000001/],
-    ['cluster,work,status,replaced_by\nc000001,a:1,active,\nc000001,,retired,c000002\n', 3, 'cluster', /both active and retired/],
+    [
+      'cluster,work,status,replaced_by\nc000001,a:1,active,\nc000002,a:1,active,\n',
+      3,
+      'work',
+      /already a member of c000001/,
+    ],
+    [
+      'cluster,work,status,replaced_by\nc000001,a:1,active,\nc000001,,retired,c000002\n',
+      3,
+      'cluster',
+      /both active and retired/,
+    ],
     ['cluster,work,status,replaced_by\nc000001,,active,\n', 2, 'work', /not a work reference/],
     ['cluster,work,status\n', 0, '', /^$/],
   ];
@@ -251,7 +355,11 @@ test('readClusterRegistry: bad rows are refused with file, line and field', asyn
     const file = path.join(dir, `c${line}${field}.csv`);
     writeFileSync(file, text);
     if (line === 0) {
-      assert.deepEqual(await readClusterRegistry(file), { active: new Map(), retired: [] }, 'a header alone is an empty registry');
+      assert.deepEqual(
+        await readClusterRegistry(file),
+        { active: new Map(), retired: [] },
+        'a header alone is an empty registry',
+      );
       continue;
     }
     await assert.rejects(readClusterRegistry(file), (e: unknown) => {
@@ -271,11 +379,29 @@ test('readClusterRegistry: bad rows are refused with file, line and field', asyn
 const randomSpec = fc.integer({ min: 2, max: 40 }).chain((n) =>
   fc.record({
     n: fc.constant(n),
-    edges: fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1), fc.constantFrom(0.2, 0.55, 0.7, 0.9, 1), fc.constantFrom(1, 1, 0.5, 0.1)), { maxLength: 60, size: 'max' }),
-    decisions: fc.array(fc.tuple(fc.nat(n - 1), fc.nat(n - 1), fc.constantFrom('same', 'part', 'related', 'distinct') as fc.Arbitrary<'same'>), { maxLength: 5 }),
+    edges: fc.array(
+      fc.tuple(fc.nat(n - 1), fc.nat(n - 1), fc.constantFrom(0.2, 0.55, 0.7, 0.9, 1), fc.constantFrom(1, 1, 0.5, 0.1)),
+      { maxLength: 60, size: 'max' },
+    ),
+    decisions: fc.array(
+      fc.tuple(
+        fc.nat(n - 1),
+        fc.nat(n - 1),
+        fc.constantFrom('same', 'part', 'related', 'distinct') as fc.Arbitrary<'same'>,
+      ),
+      { maxLength: 5 },
+    ),
   }),
 );
-const build = ({ n, edges, decisions }: { n: number; edges: [number, number, number, number][]; decisions: [number, number, 'same'][] }) => {
+const build = ({
+  n,
+  edges,
+  decisions,
+}: {
+  n: number;
+  edges: [number, number, number, number][];
+  decisions: [number, number, 'same'][];
+}) => {
   const ref = (i: number) => `${'abc'[i % 3]}:${i}`;
   return tinyModel({
     partners: ['a', 'b', 'c'],
@@ -286,58 +412,89 @@ const build = ({ n, edges, decisions }: { n: number; edges: [number, number, num
 };
 
 test('clusters equal graphology connectedComponents (size ≥ 2) over same claims, on random graphs', () => {
-  fc.assert(fc.property(randomSpec, (spec) => {
-    const m = build(spec);
-    const ls = link(m);
-    const g = new UndirectedGraph();
-    m.works.forEach((_, w) => g.addNode(String(w)));
-    for (const l of ls.links) if (l.kind === 'same' && isClaim(l)) g.addEdge(String(l.a), String(l.b));
-    const expected = connectedComponents(g).filter((c) => c.length >= 2).map((c) => c.map(Number).sort((x, y) => x - y).join(' ')).sort();
-    const got = cluster(m, ls, undefined, { coherence: false }).clusters.map((c) => Array.from(c.members).sort((x, y) => x - y).join(' ')).sort();
-    assert.deepEqual(got, expected);
-  }), { numRuns: 200 });
+  fc.assert(
+    fc.property(randomSpec, (spec) => {
+      const m = build(spec);
+      const ls = link(m);
+      const g = new UndirectedGraph();
+      m.works.forEach((_, w) => g.addNode(String(w)));
+      for (const l of ls.links) if (l.kind === 'same' && isClaim(l)) g.addEdge(String(l.a), String(l.b));
+      const expected = connectedComponents(g)
+        .filter((c) => c.length >= 2)
+        .map((c) =>
+          c
+            .map(Number)
+            .sort((x, y) => x - y)
+            .join(' '),
+        )
+        .sort();
+      const got = cluster(m, ls, undefined, { coherence: false })
+        .clusters.map((c) =>
+          Array.from(c.members)
+            .sort((x, y) => x - y)
+            .join(' '),
+        )
+        .sort();
+      assert.deepEqual(got, expected);
+    }),
+    { numRuns: 200 },
+  );
 });
 
 test('bridges, implied pairs and "through a third archive" equal brute force on random graphs', () => {
-  fc.assert(fc.property(randomSpec, (spec) => {
-    const m = build(spec);
-    const ls = link(m);
-    const c = cluster(m, ls, undefined, { coherence: false });
-    const edges = ls.links.map((l, i) => [l, i] as const).filter(([l]) => l.kind === 'same' && isClaim(l));
-    const componentsWithout = (skip: number, keep: (w: number) => boolean = () => true) => {
-      const g = new UndirectedGraph();
-      m.works.forEach((_, w) => { if (keep(w)) g.addNode(String(w)); });
-      for (const [l, i] of edges) if (i !== skip && keep(l.a) && keep(l.b)) g.addEdge(String(l.a), String(l.b));
-      const label = new Map<number, number>();
-      connectedComponents(g).forEach((comp, k) => comp.forEach((w) => label.set(Number(w), k)));
-      return label;
-    };
-    const all = componentsWithout(-1);
-    const bridges: string[] = [];
-    for (const [l, i] of edges) {
-      const without = componentsWithout(i);
-      const size = (label: Map<number, number>, w: number) => [...label.values()].filter((x) => x === label.get(w)).length;
-      if (without.get(l.a) !== without.get(l.b) && size(all, l.a) >= 3) bridges.push(`${i} ${Math.min(size(without, l.a), size(without, l.b))}`);
-    }
-    assert.deepEqual(Array.from(c.bridges, (i, k) => `${i} ${c.bridgeMinSide[k]}`), bridges);
+  fc.assert(
+    fc.property(randomSpec, (spec) => {
+      const m = build(spec);
+      const ls = link(m);
+      const c = cluster(m, ls, undefined, { coherence: false });
+      const edges = ls.links.map((l, i) => [l, i] as const).filter(([l]) => l.kind === 'same' && isClaim(l));
+      const componentsWithout = (skip: number, keep: (w: number) => boolean = () => true) => {
+        const g = new UndirectedGraph();
+        m.works.forEach((_, w) => {
+          if (keep(w)) g.addNode(String(w));
+        });
+        for (const [l, i] of edges) if (i !== skip && keep(l.a) && keep(l.b)) g.addEdge(String(l.a), String(l.b));
+        const label = new Map<number, number>();
+        connectedComponents(g).forEach((comp, k) => comp.forEach((w) => label.set(Number(w), k)));
+        return label;
+      };
+      const all = componentsWithout(-1);
+      const bridges: string[] = [];
+      for (const [l, i] of edges) {
+        const without = componentsWithout(i);
+        const size = (label: Map<number, number>, w: number) =>
+          [...label.values()].filter((x) => x === label.get(w)).length;
+        if (without.get(l.a) !== without.get(l.b) && size(all, l.a) >= 3)
+          bridges.push(`${i} ${Math.min(size(without, l.a), size(without, l.b))}`);
+      }
+      assert.deepEqual(
+        Array.from(c.bridges, (i, k) => `${i} ${c.bridgeMinSide[k]}`),
+        bridges,
+      );
 
-    const expected: string[] = [];
-    for (const k of c.clusters) {
-      const mem = Array.from(k.members);
-      for (let i = 0; i < mem.length; i++)
-        for (let j = i + 1; j < mem.length; j++) {
-          const [x, y] = [mem[i], mem[j]];
-          const li = ls.byPair.get(pairKey(x, y));
-          if (li !== undefined && ls.links[li].kind === 'same' && isClaim(ls.links[li])) continue;
-          const px = m.works[x].partner, py = m.works[y].partner;
-          const inTwo = componentsWithout(-1, (w) => m.works[w].partner === px || m.works[w].partner === py);
-          const third = px !== py && inTwo.get(x) !== inTwo.get(y);
-          expected.push(`${x} ${y} ${px !== py ? 1 : 0} ${third ? 1 : 0}`);
-        }
-      assert.ok(mem.every((w) => all.get(w) === all.get(mem[0])));
-    }
-    const got = Array.from({ length: c.implied.count }, (_, i) => `${c.implied.a[i]} ${c.implied.b[i]} ${c.implied.crossPartner[i]} ${c.implied.throughThird[i]}`);
-    assert.deepEqual(got, expected);
-    assert.equal(c.impliedTotal, c.implied.count);
-  }), { numRuns: 150 });
+      const expected: string[] = [];
+      for (const k of c.clusters) {
+        const mem = Array.from(k.members);
+        for (let i = 0; i < mem.length; i++)
+          for (let j = i + 1; j < mem.length; j++) {
+            const [x, y] = [mem[i], mem[j]];
+            const li = ls.byPair.get(pairKey(x, y));
+            if (li !== undefined && ls.links[li].kind === 'same' && isClaim(ls.links[li])) continue;
+            const px = m.works[x].partner,
+              py = m.works[y].partner;
+            const inTwo = componentsWithout(-1, (w) => m.works[w].partner === px || m.works[w].partner === py);
+            const third = px !== py && inTwo.get(x) !== inTwo.get(y);
+            expected.push(`${x} ${y} ${px !== py ? 1 : 0} ${third ? 1 : 0}`);
+          }
+        assert.ok(mem.every((w) => all.get(w) === all.get(mem[0])));
+      }
+      const got = Array.from(
+        { length: c.implied.count },
+        (_, i) => `${c.implied.a[i]} ${c.implied.b[i]} ${c.implied.crossPartner[i]} ${c.implied.throughThird[i]}`,
+      );
+      assert.deepEqual(got, expected);
+      assert.equal(c.impliedTotal, c.implied.count);
+    }),
+    { numRuns: 150 },
+  );
 });

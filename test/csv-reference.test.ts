@@ -30,9 +30,27 @@ function theirs(text: string, delimiter: string): Promise<string[][]> {
   });
 }
 
-const piece = fc.constantFrom('a', 'b', 'Z', ' ', 'é', '漢', '😀', ',', ';', '\t', '"', '\n', '\r\n', '\r', '0.5', 'x y');
+const piece = fc.constantFrom(
+  'a',
+  'b',
+  'Z',
+  ' ',
+  'é',
+  '漢',
+  '😀',
+  ',',
+  ';',
+  '\t',
+  '"',
+  '\n',
+  '\r\n',
+  '\r',
+  '0.5',
+  'x y',
+);
 const field = fc.array(piece, { maxLength: 6 }).map((p) => p.join(''));
-const quoteIfNeeded = (f: string, d: string) => (/[",;\t\r\n]/.test(f) || f.includes(d) ? `"${f.replace(/"/g, '""')}"` : f);
+const quoteIfNeeded = (f: string, d: string) =>
+  /[",;\t\r\n]/.test(f) || f.includes(d) ? `"${f.replace(/"/g, '""')}"` : f;
 const file = fc.record({
   delimiter: fc.constantFrom(',', ';', '\t'),
   rows: fc.array(fc.array(field, { minLength: 1, maxLength: 5 }), { minLength: 1, maxLength: 12 }),
@@ -42,25 +60,35 @@ const file = fc.record({
 });
 
 test('same records as fast-csv and the physical start line of each (fast-check, 300 files)', async () => {
-  await fc.assert(fc.asyncProperty(file, async ({ delimiter, rows, eol, lastEol, blankLines }) => {
-    const lines = rows.map((r) => r.map((f) => quoteIfNeeded(f, delimiter)).join(delimiter));
-    for (const b of blankLines) if (b < lines.length) lines.splice(b, 0, '');
-    const text = lines.join(eol) + (lastEol ? eol : '');
-    const got = await ours(text, delimiter);
-    const want = await theirs(text, delimiter);
-    // fast-csv empties a first field of only spaces (" ,x" → ["", "x"]); RFC 4180 §2 keeps spaces as part of a
-    // field, and so do we: compare with that one field emptied
-    const firstTrimmed = (f: string[]) => (f[0].trim() === '' ? ['', ...f.slice(1)] : f);
-    assert.deepEqual(got.map((r) => firstTrimmed(r.fields)), want.map(firstTrimmed));
-    // the start line: 1 + line breaks (CRLF, CR or LF) in the text before the record's first character
-    let at = 0;
-    const starts: number[] = [];
-    for (const l of lines) {
-      if (l.includes(delimiter) || l.includes('"') || l.trim() !== '') starts.push(1 + (text.slice(0, at).match(/\r\n|\r|\n/g)?.length ?? 0));
-      at += l.length + eol.length;
-    }
-    assert.deepEqual(got.map((r) => r.line), starts);
-  }), { numRuns: 300, seed: 42 });
+  await fc.assert(
+    fc.asyncProperty(file, async ({ delimiter, rows, eol, lastEol, blankLines }) => {
+      const lines = rows.map((r) => r.map((f) => quoteIfNeeded(f, delimiter)).join(delimiter));
+      for (const b of blankLines) if (b < lines.length) lines.splice(b, 0, '');
+      const text = lines.join(eol) + (lastEol ? eol : '');
+      const got = await ours(text, delimiter);
+      const want = await theirs(text, delimiter);
+      // fast-csv empties a first field of only spaces (" ,x" → ["", "x"]); RFC 4180 §2 keeps spaces as part of a
+      // field, and so do we: compare with that one field emptied
+      const firstTrimmed = (f: string[]) => (f[0].trim() === '' ? ['', ...f.slice(1)] : f);
+      assert.deepEqual(
+        got.map((r) => firstTrimmed(r.fields)),
+        want.map(firstTrimmed),
+      );
+      // the start line: 1 + line breaks (CRLF, CR or LF) in the text before the record's first character
+      let at = 0;
+      const starts: number[] = [];
+      for (const l of lines) {
+        if (l.includes(delimiter) || l.includes('"') || l.trim() !== '')
+          starts.push(1 + (text.slice(0, at).match(/\r\n|\r|\n/g)?.length ?? 0));
+        at += l.length + eol.length;
+      }
+      assert.deepEqual(
+        got.map((r) => r.line),
+        starts,
+      );
+    }),
+    { numRuns: 300, seed: 42 },
+  );
 });
 
 test('a file read in 1 MiB chunks splits records, quoted fields and CRLF pairs anywhere', async () => {
@@ -71,7 +99,11 @@ test('a file read in 1 MiB chunks splits records, quoted fields and CRLF pairs a
   const got = await ours(text, ',');
   assert.equal(got.length, count + 1);
   got.slice(1).forEach((r, i) => {
-    assert.deepEqual(r.fields, [`img-${i}`, 'a "quoted" value, with a comma\r\nand a line break', String((i % 100) / 100)]);
+    assert.deepEqual(r.fields, [
+      `img-${i}`,
+      'a "quoted" value, with a comma\r\nand a line break',
+      String((i % 100) / 100),
+    ]);
     assert.equal(r.line, 2 + 2 * i);
   });
 });

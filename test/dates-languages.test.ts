@@ -1,4 +1,5 @@
-// Worked examples: date phrases in the partners' languages (en, de, fr, it, es, nl) → year intervals, and the language setting.
+// Worked examples: date phrases in the partners' languages (en, de, fr, it, es, nl) → year intervals, and the language
+// setting.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { type CenturyConvention, type DateForm, type DateLanguage, parseDate } from '../src/dates/index.js';
@@ -11,7 +12,11 @@ function reads(language: DateLanguage | undefined, convention: CenturyConvention
     const r = parseDate(text, convention, language);
     assert.equal(r.kind, 'interval', `${text} (${language ?? 'any language'}): ${JSON.stringify(r)}`);
     if (r.kind !== 'interval') return;
-    assert.deepEqual([r.start, r.end, r.form, r.approximate], [start, end, form, approximate], `${text} (${language ?? 'any'}, ${convention})`);
+    assert.deepEqual(
+      [r.start, r.end, r.form, r.approximate],
+      [start, end, form, approximate],
+      `${text} (${language ?? 'any'}, ${convention})`,
+    );
   };
 }
 
@@ -186,20 +191,32 @@ const ENGLISH: Row[] = [
   ['late 15th century-early 16th century', 1467, 1533, 'part-of-century'],
 ];
 
-const LANGS: [DateLanguage, Row[]][] = [['de', GERMAN], ['fr', FRENCH], ['it', ITALIAN], ['es', SPANISH], ['nl', DUTCH], ['en', ENGLISH]];
+const LANGS: [DateLanguage, Row[]][] = [
+  ['de', GERMAN],
+  ['fr', FRENCH],
+  ['it', ITALIAN],
+  ['es', SPANISH],
+  ['nl', DUTCH],
+  ['en', ENGLISH],
+];
 for (const [lang, rows] of LANGS) {
   test(`${lang}: every phrase reads with the partner's language set`, () => rows.forEach(reads(lang, 'unknown')));
   // `v. 1480` is French *vers* (circa) but German/Dutch *vor*/*voor* (before): with no language it reads as the hull.
-  test(`${lang}: every phrase reads with no language set`, () => rows.filter(([t]) => t !== 'v. 1480').forEach(reads(undefined, 'unknown')));
+  test(`${lang}: every phrase reads with no language set`, () =>
+    rows.filter(([t]) => t !== 'v. 1480').forEach(reads(undefined, 'unknown')));
 }
 
 test('century conventions apply to centuries in every language', () => {
   // ordinal: 15th century = 1401–1500; ISO 8601-2 (the `iso` convention): 1400–1499
   const rows: [string, DateLanguage, CenturyConvention, number, number][] = [
-    ['15. Jh.', 'de', 'ordinal', 1401, 1500], ['15. Jh.', 'de', 'iso', 1400, 1499],
-    ['XVe siècle', 'fr', 'ordinal', 1401, 1500], ['fin du XVe siècle', 'fr', 'iso', 1467, 1499],
-    ['sec. XV', 'it', 'iso', 1400, 1499], ['primo quarto del XVI secolo', 'it', 'ordinal', 1501, 1525],
-    ['mediados del siglo XV', 'es', 'ordinal', 1434, 1467], ['tweede helft 15de eeuw', 'nl', 'iso', 1450, 1499],
+    ['15. Jh.', 'de', 'ordinal', 1401, 1500],
+    ['15. Jh.', 'de', 'iso', 1400, 1499],
+    ['XVe siècle', 'fr', 'ordinal', 1401, 1500],
+    ['fin du XVe siècle', 'fr', 'iso', 1467, 1499],
+    ['sec. XV', 'it', 'iso', 1400, 1499],
+    ['primo quarto del XVI secolo', 'it', 'ordinal', 1501, 1525],
+    ['mediados del siglo XV', 'es', 'ordinal', 1434, 1467],
+    ['tweede helft 15de eeuw', 'nl', 'iso', 1450, 1499],
     // a name of the hundreds is not a counted century: Quattrocento stays 1400–1499
     ['Quattrocento', 'it', 'ordinal', 1400, 1499],
   ];

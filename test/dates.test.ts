@@ -4,7 +4,14 @@ import assert from 'node:assert/strict';
 import fc from 'fast-check';
 import { type CenturyConvention, type DateForm, LATEST_YEAR, compareDates, parseDate } from '../src/dates/index.js';
 
-type Row = [text: string, convention: CenturyConvention, start: number, end: number, form: DateForm, approximate?: boolean];
+type Row = [
+  text: string,
+  convention: CenturyConvention,
+  start: number,
+  end: number,
+  form: DateForm,
+  approximate?: boolean,
+];
 
 function shouldRead([text, convention, start, end, form, approximate = false]: Row): void {
   const r = parseDate(text, convention);
@@ -22,7 +29,9 @@ function shouldReject(text: string, reason: RegExp): void {
   }
 }
 
-const U = 'unknown', O = 'ordinal', I = 'iso';
+const U = 'unknown',
+  O = 'ordinal',
+  I = 'iso';
 
 // Widths used below (chosen in src/dates/calendar.ts, common practice, no source): ca. a year ±10,
 // a decade ±10, a century ±25; before/after 50 years; early/mid/late = thirds (0–32, 33–66, 67–99), halves, quarters.
@@ -61,22 +70,32 @@ const FREE_TEXT: Row[] = [
 
 // Century labels under the three conventions: ordinal 15th = 1401–1500, ISO 8601-2 = 1400–1499, unknown = union.
 const CENTURIES: Row[] = [
-  ['15th century', O, 1401, 1500, 'century'], ['15th century', I, 1400, 1499, 'century'], ['15th century', U, 1400, 1500, 'century'],
-  ['15th c.', O, 1401, 1500, 'century'], ['15th c.', I, 1400, 1499, 'century'], ['15th c.', U, 1400, 1500, 'century'],
+  ['15th century', O, 1401, 1500, 'century'],
+  ['15th century', I, 1400, 1499, 'century'],
+  ['15th century', U, 1400, 1500, 'century'],
+  ['15th c.', O, 1401, 1500, 'century'],
+  ['15th c.', I, 1400, 1499, 'century'],
+  ['15th c.', U, 1400, 1500, 'century'],
   ['15c.', U, 1400, 1500, 'century'],
-  ['1st century', O, 1, 100, 'century'], ['1st century', I, 0, 99, 'century'],
-  ['2nd century BC', U, -199, -100, 'century'], ['2nd century BC', O, -199, -100, 'century'],
-  ['late 15th century', O, 1468, 1500, 'part-of-century'], ['late 15th century', I, 1467, 1499, 'part-of-century'],
+  ['1st century', O, 1, 100, 'century'],
+  ['1st century', I, 0, 99, 'century'],
+  ['2nd century BC', U, -199, -100, 'century'],
+  ['2nd century BC', O, -199, -100, 'century'],
+  ['late 15th century', O, 1468, 1500, 'part-of-century'],
+  ['late 15th century', I, 1467, 1499, 'part-of-century'],
   ['late 15th century', U, 1467, 1500, 'part-of-century'],
-  ['early 16th c.', O, 1501, 1533, 'part-of-century'], ['early 16th c.', I, 1500, 1532, 'part-of-century'],
+  ['early 16th c.', O, 1501, 1533, 'part-of-century'],
+  ['early 16th c.', I, 1500, 1532, 'part-of-century'],
   ['early 16th c.', U, 1500, 1533, 'part-of-century'],
-  ['mid-15th century', O, 1434, 1467, 'part-of-century'], ['mid-15th century', I, 1433, 1466, 'part-of-century'],
+  ['mid-15th century', O, 1434, 1467, 'part-of-century'],
+  ['mid-15th century', I, 1433, 1466, 'part-of-century'],
   ['mid 15th century', U, 1433, 1467, 'part-of-century'],
   ['first half of the 15th century', O, 1401, 1450, 'part-of-century'],
   ['first half of the 15th century', I, 1400, 1449, 'part-of-century'],
   ['second half of the 15th century', U, 1450, 1500, 'part-of-century'],
   ['last quarter of the 15th century', O, 1476, 1500, 'part-of-century'],
-  ['15th-16th century', O, 1401, 1600, 'century-range'], ['15th-16th century', I, 1400, 1599, 'century-range'],
+  ['15th-16th century', O, 1401, 1600, 'century-range'],
+  ['15th-16th century', I, 1400, 1599, 'century-range'],
   ['15th-16th century', U, 1400, 1600, 'century-range'],
   ['late 15th-early 16th century', O, 1468, 1533, 'part-of-century'],
   ['ca. 15th century', O, 1376, 1525, 'century', true],
@@ -85,16 +104,34 @@ const CENTURIES: Row[] = [
 
 // EDTF (LoC EDTF Specification 2019-02-04) and ISO 8601-2 centuries; conventions do not change EDTF readings.
 const EDTF: Row[] = [
-  ['1475-03-02', U, 1475, 1475, 'edtf'], ['1476-02-29', U, 1476, 1476, 'edtf'], ['1475-03', O, 1475, 1475, 'edtf'],
-  ['1470/1490', U, 1470, 1490, 'edtf'], ['1470/..', U, 1470, Infinity, 'edtf'], ['../1490', U, -Infinity, 1490, 'edtf'],
-  ['1470/', U, 1470, Infinity, 'edtf'], ['147X', U, 1470, 1479, 'edtf'], ['14XX', O, 1400, 1499, 'edtf'],
-  ['1475?', U, 1475, 1475, 'edtf'], ['1475~', U, 1465, 1485, 'edtf', true], ['1475%', U, 1465, 1485, 'edtf', true],
-  ['1475-06~', U, 1474, 1476, 'edtf', true], ['147X~', U, 1460, 1489, 'edtf', true], ['14XX~', U, 1375, 1524, 'edtf', true],
-  ['1475-21', U, 1475, 1475, 'edtf'], ['1475-24', U, 1475, 1475, 'edtf'], ['-0044', U, -44, -44, 'edtf'],
-  ['14', O, 1400, 1499, 'century'], ['14', U, 1400, 1499, 'century'], ['14~', U, 1375, 1524, 'century', true],
-  ['1950S2', U, 1900, 1999, 'edtf', true], ['[1667,1668,1670..1672]', U, 1667, 1672, 'edtf'],
-  ['{1960,1961-12}', U, 1960, 1961, 'edtf'], ['[..1984]', U, -Infinity, 1984, 'edtf'],
-  ['?1475-06-~11', U, 1474, 1476, 'edtf', true], ['1XXX-12', U, 1000, 1999, 'edtf'], ['Y-17E7', U, -170000000, -170000000, 'edtf'],
+  ['1475-03-02', U, 1475, 1475, 'edtf'],
+  ['1476-02-29', U, 1476, 1476, 'edtf'],
+  ['1475-03', O, 1475, 1475, 'edtf'],
+  ['1470/1490', U, 1470, 1490, 'edtf'],
+  ['1470/..', U, 1470, Infinity, 'edtf'],
+  ['../1490', U, -Infinity, 1490, 'edtf'],
+  ['1470/', U, 1470, Infinity, 'edtf'],
+  ['147X', U, 1470, 1479, 'edtf'],
+  ['14XX', O, 1400, 1499, 'edtf'],
+  ['1475?', U, 1475, 1475, 'edtf'],
+  ['1475~', U, 1465, 1485, 'edtf', true],
+  ['1475%', U, 1465, 1485, 'edtf', true],
+  ['1475-06~', U, 1474, 1476, 'edtf', true],
+  ['147X~', U, 1460, 1489, 'edtf', true],
+  ['14XX~', U, 1375, 1524, 'edtf', true],
+  ['1475-21', U, 1475, 1475, 'edtf'],
+  ['1475-24', U, 1475, 1475, 'edtf'],
+  ['-0044', U, -44, -44, 'edtf'],
+  ['14', O, 1400, 1499, 'century'],
+  ['14', U, 1400, 1499, 'century'],
+  ['14~', U, 1375, 1524, 'century', true],
+  ['1950S2', U, 1900, 1999, 'edtf', true],
+  ['[1667,1668,1670..1672]', U, 1667, 1672, 'edtf'],
+  ['{1960,1961-12}', U, 1960, 1961, 'edtf'],
+  ['[..1984]', U, -Infinity, 1984, 'edtf'],
+  ['?1475-06-~11', U, 1474, 1476, 'edtf', true],
+  ['1XXX-12', U, 1000, 1999, 'edtf'],
+  ['Y-17E7', U, -170000000, -170000000, 'edtf'],
 ];
 
 test('free-text forms read as year intervals', () => FREE_TEXT.forEach(shouldRead));
@@ -108,7 +145,10 @@ test('century labels carry the ordinal and both strict readings', () => {
   assert.deepEqual(r.century, { ordinal: 15, last: 16 });
   assert.deepEqual(r.byConvention, { ordinal: { start: 1468, end: 1533 }, iso: { start: 1467, end: 1532 } });
   const e = parseDate('14XX', 'unknown');
-  assert.ok(e.kind === 'interval' && e.century?.ordinal === 15 && e.byConvention === undefined, 'EDTF centuries are not ambiguous');
+  assert.ok(
+    e.kind === 'interval' && e.century?.ordinal === 15 && e.byConvention === undefined,
+    'EDTF centuries are not ambiguous',
+  );
   const u = parseDate('1475?', 'unknown');
   assert.ok(u.kind === 'interval' && u.uncertain && !u.approximate, '? marks uncertain without widening');
 });
@@ -143,7 +183,13 @@ test('text we cannot read is unread, not impossible', () => {
   }
 });
 
-type Pair = [a: string, convA: CenturyConvention, b: string, convB: CenturyConvention, expected: ReturnType<typeof compareDates>];
+type Pair = [
+  a: string,
+  convA: CenturyConvention,
+  b: string,
+  convB: CenturyConvention,
+  expected: ReturnType<typeof compareDates>,
+];
 
 // Definition in src/dates/compare.ts: disjoint → conflict; overlapping only in the years where ordinal and
 // ISO century counting disagree (disjoint when every century label is read by one strict convention) → soft.
@@ -152,10 +198,10 @@ const PAIRS: Pair[] = [
   ['1475', U, '1520', U, 'conflict'],
   ['ca. 1480', U, '1470-1490', U, 'agree'],
   ['ca. 1480', U, '1495', U, 'conflict'],
-  ['15th century', U, '1500', U, 'soft'],         // ISO reading 1400–1499 misses 1500
-  ['15th century', O, '1500', U, 'soft'],         // as read they share 1500; ISO counting would not
-  ['15th century', I, '1500', U, 'conflict'],     // declared ISO: 1400–1499 vs 1500, disjoint
-  ['15th century', U, '1400', U, 'soft'],         // ordinal reading 1401–1500 misses 1400
+  ['15th century', U, '1500', U, 'soft'], // ISO reading 1400–1499 misses 1500
+  ['15th century', O, '1500', U, 'soft'], // as read they share 1500; ISO counting would not
+  ['15th century', I, '1500', U, 'conflict'], // declared ISO: 1400–1499 vs 1500, disjoint
+  ['15th century', U, '1400', U, 'soft'], // ordinal reading 1401–1500 misses 1400
   ['15th century', O, '1400', U, 'conflict'],
   ['15th century', U, '16th century', U, 'soft'], // both readings share only 1500
   ['15th century', O, '16th century', I, 'soft'], // 1401–1500 vs 1500–1599 share 1500 only
@@ -163,7 +209,7 @@ const PAIRS: Pair[] = [
   ['15th century', O, '15th century', I, 'agree'],
   ['late 15th century', U, 'early 16th century', U, 'soft'],
   ['15th century', U, '14XX', U, 'agree'],
-  ['15th century', U, '15XX', U, 'soft'],         // EDTF 15XX is 1500–1599; ordinal 15th century reaches 1500
+  ['15th century', U, '15XX', U, 'soft'], // EDTF 15XX is 1500–1599; ordinal 15th century reaches 1500
   ['1475', U, 'undated', U, 'unknown'],
   ['', U, '1475', U, 'unknown'],
   ['1470/..', U, '1900', U, 'agree'],
@@ -172,7 +218,8 @@ const PAIRS: Pair[] = [
 
 test('compareDates worked examples', () => {
   for (const [a, ca, b, cb, expected] of PAIRS) {
-    const ra = parseDate(a, ca), rb = parseDate(b, cb);
+    const ra = parseDate(a, ca),
+      rb = parseDate(b, cb);
     assert.equal(compareDates(ra, rb), expected, `${a} (${ca}) vs ${b} (${cb})`);
     assert.equal(compareDates(rb, ra), expected, `${b} (${cb}) vs ${a} (${ca})`);
   }
@@ -182,30 +229,40 @@ const textArb = fc.oneof(
   fc.integer({ min: 1000, max: 2100 }).map(String),
   fc.integer({ min: 1000, max: 2100 }).map((y) => `ca. ${y}`),
   fc.tuple(fc.integer({ min: 1000, max: 2000 }), fc.integer({ min: 0, max: 80 })).map(([y, d]) => `${y}-${y + d}`),
-  fc.tuple(fc.constantFrom('', 'early ', 'mid-', 'late ', 'first half of the '), fc.integer({ min: 1, max: 21 }))
+  fc
+    .tuple(fc.constantFrom('', 'early ', 'mid-', 'late ', 'first half of the '), fc.integer({ min: 1, max: 21 }))
     .map(([p, n]) => `${p}${n}th century`),
   fc.integer({ min: 100, max: 209 }).map((d) => `${d}X`),
 );
 const convArb = fc.constantFrom<CenturyConvention>('ordinal', 'iso', 'unknown');
 
 test('compareDates is symmetric and agrees with interval overlap', () => {
-  fc.assert(fc.property(textArb, convArb, textArb, convArb, (a, ca, b, cb) => {
-    const ra = parseDate(a, ca), rb = parseDate(b, cb);
-    const v = compareDates(ra, rb);
-    assert.equal(v, compareDates(rb, ra));
-    if (ra.kind === 'interval' && rb.kind === 'interval') {
-      assert.equal(v === 'conflict', ra.end < rb.start || rb.end < ra.start);
-      assert.ok(ra.start <= ra.end && Number.isInteger(ra.start) && Number.isInteger(ra.end));
-    }
-  }));
+  fc.assert(
+    fc.property(textArb, convArb, textArb, convArb, (a, ca, b, cb) => {
+      const ra = parseDate(a, ca),
+        rb = parseDate(b, cb);
+      const v = compareDates(ra, rb);
+      assert.equal(v, compareDates(rb, ra));
+      if (ra.kind === 'interval' && rb.kind === 'interval') {
+        assert.equal(v === 'conflict', ra.end < rb.start || rb.end < ra.start);
+        assert.ok(ra.start <= ra.end && Number.isInteger(ra.start) && Number.isInteger(ra.end));
+      }
+    }),
+  );
 });
 
 test('the unknown convention reads a century label as the union of the other two', () => {
-  fc.assert(fc.property(fc.constantFrom('', 'early ', 'mid-', 'late ', 'second half of the '), fc.integer({ min: 1, max: 20 }), (p, n) => {
-    const text = `${p}${n}th century`;
-    const [o, i, u] = (['ordinal', 'iso', 'unknown'] as const).map((c) => parseDate(text, c));
-    assert.ok(o.kind === 'interval' && i.kind === 'interval' && u.kind === 'interval');
-    assert.deepEqual([u.start, u.end], [Math.min(o.start, i.start), Math.max(o.end, i.end)]);
-    assert.deepEqual([o.start - i.start, o.end - i.end], [1, 1]);
-  }));
+  fc.assert(
+    fc.property(
+      fc.constantFrom('', 'early ', 'mid-', 'late ', 'second half of the '),
+      fc.integer({ min: 1, max: 20 }),
+      (p, n) => {
+        const text = `${p}${n}th century`;
+        const [o, i, u] = (['ordinal', 'iso', 'unknown'] as const).map((c) => parseDate(text, c));
+        assert.ok(o.kind === 'interval' && i.kind === 'interval' && u.kind === 'interval');
+        assert.deepEqual([u.start, u.end], [Math.min(o.start, i.start), Math.max(o.end, i.end)]);
+        assert.deepEqual([o.start - i.start, o.end - i.end], [1, 1]);
+      },
+    ),
+  );
 });

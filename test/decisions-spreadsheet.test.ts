@@ -1,4 +1,5 @@
-// Decisions files as spreadsheets save them: BOM, CRLF, ";" or tab, blank and undecided rows, decimal commas, per-file options.
+// Decisions files as spreadsheets save them: BOM, CRLF, ";" or tab, blank and undecided rows, decimal commas, per-file
+// options.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import path from 'node:path';
@@ -9,16 +10,30 @@ import { fixtureCopy, json, type Edit } from './helpers/fixture.js';
 
 const BOM = Buffer.from([0xef, 0xbb, 0xbf]);
 /** A file the way a spreadsheet on a usual office set-up saves it: UTF-8 with BOM, CRLF after every row. */
-const spreadsheet = (rows: string[][], sep: string) => Buffer.concat([BOM, Buffer.from(rows.map((r) => r.join(sep) + '\r\n').join(''))]);
+const spreadsheet = (rows: string[][], sep: string) =>
+  Buffer.concat([BOM, Buffer.from(rows.map((r) => r.join(sep) + '\r\n').join(''))]);
 
 const HEADER = ['work_a', 'work_b', 'verdict', 'curator', 'decided_on', 'note', 'reason', 'score', 'title_a'];
-/** A review queue with two rows decided out of five, a blank row kept as separators only, decimal commas in the score column. */
+/**
+ * A review queue with two rows decided out of five, a blank row kept as separators only, decimal commas in the score
+ * column.
+ */
 const QUEUE = [
   HEADER,
   ['alpha:A 1', 'beta:B1', 'same', 'Jo Invented', '2026-12-01', 'checked the mount', 'high-score', '0,97', 'Madonna'],
   ['alpha:A/2', 'beta:B2', '', '', '', '', 'proposed', '0,61', 'Hieronymus'],
   ['', '', '', '', '', '', '', '', ''],
-  ['alpha:É-3', 'beta:B3', 'Part', 'https://orcid.org/0000-0002-1825-0097', '2026-12-02', '', 'proposed', '0,55', 'Annunciation'],
+  [
+    'alpha:É-3',
+    'beta:B3',
+    'Part',
+    'https://orcid.org/0000-0002-1825-0097',
+    '2026-12-02',
+    '',
+    'proposed',
+    '0,55',
+    'Annunciation',
+  ],
   ['alpha:A 1', 'beta:B3', '', '', '', '', 'implied', '', 'Madonna'],
   ['alpha:A/2', 'beta:B1', '', '', '', '', 'proposed', '0,5', 'Saint'],
 ];
@@ -33,7 +48,12 @@ async function loaded(edits: Record<string, Edit>) {
   return { dir, ...(await load(path.join(dir, 'concordance.json'))) };
 }
 
-for (const [name, sep] of [['semicolons', ';'], ['tabs', '\t'], ['commas', ','], ['bars', '|']] as const) {
+for (const [name, sep] of [
+  ['semicolons', ';'],
+  ['tabs', '\t'],
+  ['commas', ','],
+  ['bars', '|'],
+] as const) {
   test(`a review queue saved with ${name}, BOM, CRLF and blank rows loads with the separator detected`, async () => {
     const rows = sep === ',' ? QUEUE.map((r) => r.map((c) => (c.includes(',') ? `"${c}"` : c))) : QUEUE;
     const { model, stats } = await loaded(withQueue(spreadsheet(rows, sep)));
@@ -60,7 +80,10 @@ test('check says how many rows had no verdict', async () => {
 test('the per-file form { file, delimiter } sets the separator; a wrong one is refused naming the file', async () => {
   const { model } = await loaded(withQueue(spreadsheet(QUEUE, ';'), { file: 'decisions/queue.csv', delimiter: ';' }));
   assert.equal(model.decisions.length, 2);
-  const dir = fixtureCopy('load/base', withQueue(spreadsheet(QUEUE, ';'), { file: 'decisions/queue.csv', delimiter: '\t' }));
+  const dir = fixtureCopy(
+    'load/base',
+    withQueue(spreadsheet(QUEUE, ';'), { file: 'decisions/queue.csv', delimiter: '\t' }),
+  );
   const err = (await load(path.join(dir, 'concordance.json')).catch((e) => e)) as UserError;
   assert.ok(err instanceof UserError);
   assert.equal(path.relative(dir, err.problems[0].file), 'decisions/queue.csv');
@@ -71,7 +94,10 @@ test('the per-file form { file, delimiter } sets the separator; a wrong one is r
 test('the old decision-date header "date" is still read', async () => {
   const old = QUEUE.map((r, i) => (i === 0 ? r.map((c) => (c === 'decided_on' ? 'date' : c)) : r));
   const { model } = await loaded(withQueue(spreadsheet(old, ';')));
-  assert.deepEqual(model.decisions.map((d) => d.date), ['2026-12-01', '2026-12-02']);
+  assert.deepEqual(
+    model.decisions.map((d) => d.date),
+    ['2026-12-01', '2026-12-02'],
+  );
 });
 
 test('a row with a curator but no verdict is skipped with a warning naming file, line and field', async () => {
@@ -97,20 +123,84 @@ interface BadCase {
 }
 
 const bad: BadCase[] = [
-  { name: 'a verdict without a curator', row: 2, cells: { 2: 'distinct' }, file: 'decisions/queue.csv', line: 3, field: 'curator', message: /verdict "distinct" names no curator/ },
-  { name: 'a verdict without a date', row: 2, cells: { 2: 'same', 3: 'Jo Invented' }, file: 'decisions/queue.csv', line: 3, field: 'decided_on', message: /verdict "same" has no date/ },
-  { name: 'a date a spreadsheet localised', row: 1, cells: { 4: '01.12.2026' }, file: 'decisions/queue.csv', line: 2, field: 'decided_on', message: /"01.12.2026" is not a valid ISO 8601 date/, hint: /format the column as text/ },
-  { name: 'a misspelt verdict', row: 1, cells: { 2: 'sme' }, file: 'decisions/queue.csv', line: 2, field: 'verdict', message: /unknown verdict "sme"/, hint: /did you mean "same"/ },
-  { name: 'a verdict on a blank pair', row: 3, cells: { 2: 'same', 3: 'Jo', 4: '2026-12-01' }, file: 'decisions/queue.csv', line: 4, field: 'work_a', message: /"" is not a work reference/ },
-  { name: 'an unknown delimiter in the per-file form', row: 1, cells: {}, entry: { file: 'decisions/queue.csv', delimiter: ':' }, file: 'concordance.json', line: 0, field: 'decisions[0].delimiter', message: /delimiter must be one of/ },
-  { name: 'an unknown field in the per-file form', row: 1, cells: {}, entry: { file: 'decisions/queue.csv', delimter: ';' }, file: 'concordance.json', line: 0, field: 'decisions[0].delimter', message: /unknown field/, hint: /did you mean "delimiter"/ },
+  {
+    name: 'a verdict without a curator',
+    row: 2,
+    cells: { 2: 'distinct' },
+    file: 'decisions/queue.csv',
+    line: 3,
+    field: 'curator',
+    message: /verdict "distinct" names no curator/,
+  },
+  {
+    name: 'a verdict without a date',
+    row: 2,
+    cells: { 2: 'same', 3: 'Jo Invented' },
+    file: 'decisions/queue.csv',
+    line: 3,
+    field: 'decided_on',
+    message: /verdict "same" has no date/,
+  },
+  {
+    name: 'a date a spreadsheet localised',
+    row: 1,
+    cells: { 4: '01.12.2026' },
+    file: 'decisions/queue.csv',
+    line: 2,
+    field: 'decided_on',
+    message: /"01.12.2026" is not a valid ISO 8601 date/,
+    hint: /format the column as text/,
+  },
+  {
+    name: 'a misspelt verdict',
+    row: 1,
+    cells: { 2: 'sme' },
+    file: 'decisions/queue.csv',
+    line: 2,
+    field: 'verdict',
+    message: /unknown verdict "sme"/,
+    hint: /did you mean "same"/,
+  },
+  {
+    name: 'a verdict on a blank pair',
+    row: 3,
+    cells: { 2: 'same', 3: 'Jo', 4: '2026-12-01' },
+    file: 'decisions/queue.csv',
+    line: 4,
+    field: 'work_a',
+    message: /"" is not a work reference/,
+  },
+  {
+    name: 'an unknown delimiter in the per-file form',
+    row: 1,
+    cells: {},
+    entry: { file: 'decisions/queue.csv', delimiter: ':' },
+    file: 'concordance.json',
+    line: 0,
+    field: 'decisions[0].delimiter',
+    message: /delimiter must be one of/,
+  },
+  {
+    name: 'an unknown field in the per-file form',
+    row: 1,
+    cells: {},
+    entry: { file: 'decisions/queue.csv', delimter: ';' },
+    file: 'concordance.json',
+    line: 0,
+    field: 'decisions[0].delimter',
+    message: /unknown field/,
+    hint: /did you mean "delimiter"/,
+  },
 ];
 
 for (const c of bad) {
   test(`bad decisions: ${c.name}`, async () => {
     const rows = QUEUE.map((r, i) => (i === c.row ? r.map((x, k) => c.cells[k] ?? x) : r));
     const dir = fixtureCopy('load/base', withQueue(spreadsheet(rows, ';'), c.entry));
-    const err = (await load(path.join(dir, 'concordance.json')).then(() => assert.fail('expected a UserError'), (e: unknown) => e)) as UserError;
+    const err = (await load(path.join(dir, 'concordance.json')).then(
+      () => assert.fail('expected a UserError'),
+      (e: unknown) => e,
+    )) as UserError;
     assert.ok(err instanceof UserError, String(err));
     assert.equal(err.exitCode, 2);
     const p = err.problems.find((x) => c.message.test(x.message));

@@ -19,7 +19,9 @@ function readCsv(file: string, delimiter = ','): Promise<Row[]> {
   return new Promise((resolve, reject) => {
     const rows: Row[] = [];
     parseString<Row, Row>(text, { headers: true, delimiter })
-      .on('error', reject).on('data', (r: Row) => rows.push(r)).on('end', () => resolve(rows));
+      .on('error', reject)
+      .on('data', (r: Row) => rows.push(r))
+      .on('end', () => resolve(rows));
   });
 }
 
@@ -50,7 +52,8 @@ async function loadRelease(projectFile: string) {
     catalogues.set(p.key, rows);
     const cols = p.catalogue.columns;
     for (const r of rows) {
-      const img = `${p.key}:${r[cols.image]}`, work = `${p.key}:${r[cols.work]}`;
+      const img = `${p.key}:${r[cols.image]}`,
+        work = `${p.key}:${r[cols.work]}`;
       assert.ok(!images.has(img), `image ${img} listed twice`);
       images.set(img, work);
       works.set(work, [...(works.get(work) ?? []), r]);
@@ -77,7 +80,10 @@ test('the generator reproduces the committed demo files byte for byte', () => {
     const written = generateDemo(out);
     assert.ok(written.includes('concordance.json') && written.includes('release-2/concordance.json'));
     for (const rel of written) {
-      assert.ok(readFileSync(path.join(out, rel)).equals(readFileSync(path.join(DEMO, rel))), `${rel} differs from the committed file`);
+      assert.ok(
+        readFileSync(path.join(out, rel)).equals(readFileSync(path.join(DEMO, rel))),
+        `${rel} differs from the committed file`,
+      );
     }
   } finally {
     rmSync(out, { recursive: true, force: true });
@@ -88,10 +94,18 @@ test('release 1 follows the input contract', async () => {
   const r = await loadRelease(path.join(DEMO, 'concordance.json'));
   assert.equal(r.project.partners.length, 3);
   assert.equal(r.project.previous, undefined);
-  assert.ok(['https://creativecommons.org/publicdomain/zero/1.0/', 'https://creativecommons.org/licenses/by/4.0/'].includes(r.project.license));
+  assert.ok(
+    ['https://creativecommons.org/publicdomain/zero/1.0/', 'https://creativecommons.org/licenses/by/4.0/'].includes(
+      r.project.license,
+    ),
+  );
   assert.deepEqual(r.project.policy, { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 });
-  for (const e of r.project.evidence) for (const f of ['id', 'software', 'version', 'started', 'parameters']) assert.ok(f in e.run, f);
-  assert.deepEqual(new Set(r.project.partners.map((p) => p.centuryConvention ?? 'unknown')), new Set(['ordinal', 'iso', 'unknown']));
+  for (const e of r.project.evidence)
+    for (const f of ['id', 'software', 'version', 'started', 'parameters']) assert.ok(f in e.run, f);
+  assert.deepEqual(
+    new Set(r.project.partners.map((p) => p.centuryConvention ?? 'unknown')),
+    new Set(['ordinal', 'iso', 'unknown']),
+  );
   assert.ok(r.works.size >= 150 && r.works.size <= 300, `${r.works.size} works`);
   for (const e of r.evidence) {
     assert.ok(r.images.has(e.image_a) && r.images.has(e.image_b), `unknown image in ${e.image_a},${e.image_b}`);
@@ -110,7 +124,8 @@ test('release 1 follows the input contract', async () => {
   const decided = r.decisions.map((d) => pairKey(d.work_a, d.work_b));
   assert.equal(decided.length - new Set(decided).size, 1, 'exactly one pair decided twice');
   assert.ok(r.gold.length >= 30 && r.gold.length <= 60);
-  for (const g of r.gold) assert.ok(r.works.has(g.work_a) && r.works.has(g.work_b), `unknown work in gold ${g.work_a},${g.work_b}`);
+  for (const g of r.gold)
+    assert.ok(r.works.has(g.work_a) && r.works.has(g.work_b), `unknown work in gold ${g.work_a},${g.work_b}`);
 });
 
 test('release 1 catalogues carry the export habits and date forms of real archives', async () => {
@@ -118,22 +133,55 @@ test('release 1 catalogues carry the export habits and date forms of real archiv
   const raw = (p: Partner) => readFileSync(path.join(DEMO, p.catalogue.file), 'utf8');
   const texts = r.project.partners.map(raw);
   assert.deepEqual(r.project.partners.map((p) => p.catalogue.delimiter).sort(), ['\t', ',', ';'].sort());
-  assert.ok(texts.some((t) => t.startsWith('\uFEFF') && t.includes('\r\n')), 'one export has a BOM and CRLF');
-  const titles = r.project.partners.flatMap((p) => r.catalogues.get(p.key)!.map((row) => ({ p, title: row[p.catalogue.columns.title] })));
-  assert.ok(titles.some(({ title }) => title.includes('\n')), 'a title spans two lines');
-  assert.ok(titles.some(({ title }) => title.includes('"')), 'a title holds quotes');
-  assert.ok(titles.some(({ p, title }) => p.catalogue.delimiter !== '\t' && title.includes(p.catalogue.delimiter)),
-    'a title holds its file\'s delimiter');
+  assert.ok(
+    texts.some((t) => t.startsWith('\uFEFF') && t.includes('\r\n')),
+    'one export has a BOM and CRLF',
+  );
+  const titles = r.project.partners.flatMap((p) =>
+    r.catalogues.get(p.key)!.map((row) => ({ p, title: row[p.catalogue.columns.title] })),
+  );
+  assert.ok(
+    titles.some(({ title }) => title.includes('\n')),
+    'a title spans two lines',
+  );
+  assert.ok(
+    titles.some(({ title }) => title.includes('"')),
+    'a title holds quotes',
+  );
+  assert.ok(
+    titles.some(({ p, title }) => p.catalogue.delimiter !== '\t' && title.includes(p.catalogue.delimiter)),
+    "a title holds its file's delimiter",
+  );
   const ids = [...r.images.keys(), ...r.works.keys()];
-  for (const re of [/ /, /\//, /[À-ÿ]/]) assert.ok(ids.some((id) => re.test(id.split(':')[1])), `an ID matching ${re}`);
+  for (const re of [/ /, /\//, /[À-ÿ]/])
+    assert.ok(
+      ids.some((id) => re.test(id.split(':')[1])),
+      `an ID matching ${re}`,
+    );
 
   const dates = r.project.partners.flatMap((p) => r.catalogues.get(p.key)!.map((row) => row[p.catalogue.columns.date]));
   // English at Vellmar, German at Kessling, French at Fontclaire, EDTF at Kessling
-  const forms: [string, RegExp][] = [['year', /^\d{4}$/], ['ca.', /^ca\. \d{4}$/], ['late century', /^late 15th century$/],
-    ['century', /^1\dth century$/], ['um', /^um \d{4}$/], ['bis', /^\d{4} bis \d{4}$/], ['Jh.', /^1\d\. Jh\.$/],
-    ['vers', /^vers \d{4}$/], ['entre … et', /^entre \d{4} et \d{4}$/], ['siècle', /^X[IVX]+e siècle$/], ['s.', /^X[IVX]+e s\.$/],
-    ['EDTF decade', /^\d{3}X$/], ['EDTF approximate', /^\d{4}~$/], ['EDTF interval', /^\d{4}\/\d{4}$/]];
-  for (const [name, re] of forms) assert.ok(dates.some((d) => re.test(d)), `date form ${name}`);
+  const forms: [string, RegExp][] = [
+    ['year', /^\d{4}$/],
+    ['ca.', /^ca\. \d{4}$/],
+    ['late century', /^late 15th century$/],
+    ['century', /^1\dth century$/],
+    ['um', /^um \d{4}$/],
+    ['bis', /^\d{4} bis \d{4}$/],
+    ['Jh.', /^1\d\. Jh\.$/],
+    ['vers', /^vers \d{4}$/],
+    ['entre … et', /^entre \d{4} et \d{4}$/],
+    ['siècle', /^X[IVX]+e siècle$/],
+    ['s.', /^X[IVX]+e s\.$/],
+    ['EDTF decade', /^\d{3}X$/],
+    ['EDTF approximate', /^\d{4}~$/],
+    ['EDTF interval', /^\d{4}\/\d{4}$/],
+  ];
+  for (const [name, re] of forms)
+    assert.ok(
+      dates.some((d) => re.test(d)),
+      `date form ${name}`,
+    );
 
   const vellmar = r.project.partners.find((p) => p.catalogue.columns.width)!;
   const { width, height } = vellmar.catalogue.columns;
@@ -144,7 +192,8 @@ test('release 1 catalogues carry the export habits and date forms of real archiv
   let disagreeing = 0;
   for (const p of r.project.partners) {
     const byWork = new Map<string, Row[]>();
-    for (const row of r.catalogues.get(p.key)!) byWork.set(row[p.catalogue.columns.work], [...(byWork.get(row[p.catalogue.columns.work]) ?? []), row]);
+    for (const row of r.catalogues.get(p.key)!)
+      byWork.set(row[p.catalogue.columns.work], [...(byWork.get(row[p.catalogue.columns.work]) ?? []), row]);
     for (const rows of byWork.values()) {
       assert.equal(new Set(rows.map((x) => x[p.catalogue.columns.title])).size, 1);
       if (new Set(rows.map((x) => x[p.catalogue.columns.date])).size > 1) disagreeing++;
@@ -190,11 +239,15 @@ test('release 2 adds a partner, reruns the matcher and changes clusters as its a
   const rerunLink = key.merges.find((m: { link?: string[] }) => m.link).link;
   assert.equal(r1.best.get(pairKey(rerunLink[0], rerunLink[1])), undefined);
   assert.ok(r2.best.get(pairKey(rerunLink[0], rerunLink[1]))! >= 0.5);
-  const verdict = (a: string, b: string) => r2.decisions.filter((d) => pairKey(d.work_a, d.work_b) === pairKey(a, b)).at(-1)?.verdict;
+  const verdict = (a: string, b: string) =>
+    r2.decisions.filter((d) => pairKey(d.work_a, d.work_b) === pairKey(a, b)).at(-1)?.verdict;
   for (const s of key.splits) assert.equal(verdict(s.link[0], s.link[1]), 'distinct');
   for (const [a, b] of key.confirmedFromProposed) {
     assert.ok(r1.best.get(pairKey(a, b))! >= 0.5);
-    assert.equal(r1.decisions.find((d) => pairKey(d.work_a, d.work_b) === pairKey(a, b)), undefined);
+    assert.equal(
+      r1.decisions.find((d) => pairKey(d.work_a, d.work_b) === pairKey(a, b)),
+      undefined,
+    );
     assert.equal(verdict(a, b), 'same');
   }
   assert.equal(r2.works.size, key.counts.works);
@@ -202,7 +255,10 @@ test('release 2 adds a partner, reruns the matcher and changes clusters as its a
 
 test('the README counts match the answer keys', () => {
   const readme = readFileSync(path.join(DEMO, 'README.md'), 'utf8');
-  for (const [rel, col] of [['answer-key.json', 1], ['release-2/answer-key.json', 2]] as const) {
+  for (const [rel, col] of [
+    ['answer-key.json', 1],
+    ['release-2/answer-key.json', 2],
+  ] as const) {
     const counts = answerKey(rel).counts as Record<string, number>;
     for (const [name, n] of Object.entries(counts)) {
       const row = readme.split('\n').find((l) => l.startsWith(`| \`${name}\` |`));

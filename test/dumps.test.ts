@@ -11,13 +11,23 @@ import { build } from '../src/pipeline.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
 import { iri } from '../src/namespaces.js';
 import { DUMP_FORMATS, FORMATS } from '../src/rdf/formats.js';
-import { distinctCount, merged, ourQuads, rapper, rapperRead, rdflibPython, rdflibRead } from './helpers/external-rdf.js';
+import {
+  distinctCount,
+  merged,
+  ourQuads,
+  rapper,
+  rapperRead,
+  rdflibPython,
+  rdflibRead,
+} from './helpers/external-rdf.js';
 import { requires } from './helpers/requires.js';
 
 const tmp = tempDir('concordat-dumps-');
 after(() => rmSync(tmp, { recursive: true, force: true }));
 const r1 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'r1'));
-const r2 = await build(path.join(repoRoot, 'demo-data', 'release-2', 'concordance.json'), path.join(tmp, 'r2'), { previous: r1.outDir });
+const r2 = await build(path.join(repoRoot, 'demo-data', 'release-2', 'concordance.json'), path.join(tmp, 'r2'), {
+  previous: r1.outDir,
+});
 const releases = { first: r1.outDir, second: r2.outDir };
 const stems = (r: typeof r1) => ['concordance', ...r.model.project.partners.map((p) => `partners/${p.key}`)];
 
@@ -57,24 +67,38 @@ for (const [name, dir] of Object.entries(releases))
 // the triples the N-Quads dump holds (RDF 1.1 Concepts §3: the merged graph).
 const noRapper = requires(rapper, 'rapper is not installed (Debian raptor2-utils; .ci/run installs it)');
 const noRdflib = requires(rdflibPython, 'python3-rdflib is not installed (Debian package; .ci/run installs it)');
-test('rapper reads the grouped Turtle of the second release with the N-Quads triple count', { skip: noRapper }, async () => {
-  for (const s of stems(r2)) {
-    const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
-    assert.equal(rapperRead(path.join(r2.outDir, `${s}.ttl`)).count, nq.length, s);
-  }
-});
-test('rdflib reads the grouped Turtle of the second release with the N-Quads triple count', { skip: noRdflib }, async () => {
-  const files = stems(r2).map((s) => path.join(r2.outDir, `${s}.ttl`));
-  const read = rdflibRead(files);
-  for (const s of stems(r2)) {
-    const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
-    assert.equal(read[path.join(r2.outDir, `${s}.ttl`)].count, distinctCount(merged(nq)), s);
-  }
-});
+test(
+  'rapper reads the grouped Turtle of the second release with the N-Quads triple count',
+  { skip: noRapper },
+  async () => {
+    for (const s of stems(r2)) {
+      const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
+      assert.equal(rapperRead(path.join(r2.outDir, `${s}.ttl`)).count, nq.length, s);
+    }
+  },
+);
+test(
+  'rdflib reads the grouped Turtle of the second release with the N-Quads triple count',
+  { skip: noRdflib },
+  async () => {
+    const files = stems(r2).map((s) => path.join(r2.outDir, `${s}.ttl`));
+    const read = rdflibRead(files);
+    for (const s of stems(r2)) {
+      const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
+      assert.equal(read[path.join(r2.outDir, `${s}.ttl`)].count, distinctCount(merged(nq)), s);
+    }
+  },
+);
 
 // ------------------------------------------------------------------ gzip copies and the DCAT description of the files
-const g1 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g1'), { gzip: true, validate: false });
-const g2 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g2'), { gzip: true, validate: false });
+const g1 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g1'), {
+  gzip: true,
+  validate: false,
+});
+const g2 = await build(path.join(repoRoot, 'demo-data', 'concordance.json'), path.join(tmp, 'g2'), {
+  gzip: true,
+  validate: false,
+});
 const dumpFiles = stems(g1).flatMap((s) => DUMP_FORMATS.map((f) => `${s}${FORMATS[f].extension}`));
 
 test('each .gz dump decompresses to the plain dump byte for byte; the header holds no name and no time (RFC 1952 §2.3.1)', () => {
@@ -90,13 +114,18 @@ test('each .gz dump decompresses to the plain dump byte for byte; the header hol
 test('two gzip builds give byte-identical .gz files, listed in SHA256SUMS with their hashes', () => {
   const sums = (d: string) => readFileSync(path.join(d, 'SHA256SUMS'), 'utf8');
   assert.equal(sums(g1.outDir), sums(g2.outDir));
-  for (const f of dumpFiles) assert.match(sums(g1.outDir), new RegExp(`^[0-9a-f]{64}  ${f.replace(/[.]/g, '\\.')}\\.gz$`, 'm'));
+  for (const f of dumpFiles)
+    assert.match(sums(g1.outDir), new RegExp(`^[0-9a-f]{64}  ${f.replace(/[.]/g, '\\.')}\\.gz$`, 'm'));
 });
 
 test('dataset.ttl gives every file its dcat:byteSize; the .gz distributions add dcat:compressFormat gzip (DCAT 3 §6.8)', () => {
   const ds = new N3.Store(new N3.Parser().parse(readFileSync(path.join(g1.outDir, 'dataset.ttl'), 'utf8')));
   const one = (s: N3.Term, p: string) => ds.getObjects(s, N3.DataFactory.namedNode(p), null).map((o) => o.value);
-  const dists = ds.getSubjects(N3.DataFactory.namedNode(iri('rdf', 'type')), N3.DataFactory.namedNode(iri('dcat', 'Distribution')), null);
+  const dists = ds.getSubjects(
+    N3.DataFactory.namedNode(iri('rdf', 'type')),
+    N3.DataFactory.namedNode(iri('dcat', 'Distribution')),
+    null,
+  );
   assert.equal(dists.length, dumpFiles.length * 2);
   for (const d of dists) {
     const [url] = one(d, iri('dcat', 'downloadURL'));
@@ -106,8 +135,16 @@ test('dataset.ttl gives every file its dcat:byteSize; the .gz distributions add 
     assert.equal(size.datatype.value, iri('xsd', 'nonNegativeInteger'));
     assert.equal(Number(size.value), statSync(path.join(g1.outDir, file)).size, file);
     const inner = file.replace(/\.gz$/, '');
-    assert.deepEqual(one(d, iri('dcat', 'mediaType')), [Object.values(FORMATS).find((f) => inner.endsWith(f.extension))!.mediaTypeIri], file);
-    assert.deepEqual(one(d, iri('dcat', 'compressFormat')), file.endsWith('.gz') ? ['https://www.iana.org/assignments/media-types/application/gzip'] : [], file);
+    assert.deepEqual(
+      one(d, iri('dcat', 'mediaType')),
+      [Object.values(FORMATS).find((f) => inner.endsWith(f.extension))!.mediaTypeIri],
+      file,
+    );
+    assert.deepEqual(
+      one(d, iri('dcat', 'compressFormat')),
+      file.endsWith('.gz') ? ['https://www.iana.org/assignments/media-types/application/gzip'] : [],
+      file,
+    );
   }
 });
 

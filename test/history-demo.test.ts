@@ -14,7 +14,9 @@ const pair = (x: string, y: string) => [x, y].sort().join(' | ');
 
 const built = (async () => {
   await build(path.join(demo, 'concordance.json'), path.join(tmp, '2026.1'));
-  return build(path.join(demo, 'release-2', 'concordance.json'), path.join(tmp, '2027.1'), { previous: path.join(tmp, '2026.1') });
+  return build(path.join(demo, 'release-2', 'concordance.json'), path.join(tmp, '2027.1'), {
+    previous: path.join(tmp, '2026.1'),
+  });
 })();
 
 test('merges: each merged cluster holds both former clusters named by the answer key', async () => {
@@ -29,10 +31,14 @@ test('merges: each merged cluster holds both former clusters named by the answer
     assert.equal(ids.size, 1, JSON.stringify(m.joins));
     assert.ok(c.clusters.merged.some((x) => x.into === [...ids][0]));
   }
-  for (const m of c.clusters.merged) assert.ok(c.clusters.retired.some((x) => m.from.includes(x.id) && x.replacedBy[0] === m.into), 'the other ID is retired into the survivor');
+  for (const m of c.clusters.merged)
+    assert.ok(
+      c.clusters.retired.some((x) => m.from.includes(x.id) && x.replacedBy[0] === m.into),
+      'the other ID is retired into the survivor',
+    );
 });
 
-test('split: the curator\'s distinct splits one cluster into the two sides of the answer key', async () => {
+test("split: the curator's distinct splits one cluster into the two sides of the answer key", async () => {
   const r = await built;
   const c = r.changes!;
   assert.equal(c.clusters.split.length, key.counts.splits);
@@ -46,10 +52,20 @@ test('split: the curator\'s distinct splits one cluster into the two sides of th
 
 test('claims: confirmed after being proposed, disappeared, and the overridden decision, as in the answer key', async () => {
   const c = (await built).changes!;
-  const status = (from: string, to: string) => c.claims.status.filter((x) => x.before!.status === from && x.after!.status === to).map((x) => pair(x.subject, x.object)).sort();
-  assert.deepEqual(status('proposed', 'confirmed'), (key.confirmedFromProposed as string[][]).map(([x, y]) => pair(x, y)).sort());
-  assert.deepEqual(c.claims.removed.map((x) => pair(x.subject, x.object)).sort(), (key.disappeared as string[][]).map(([x, y]) => pair(x, y)).sort());
+  const status = (from: string, to: string) =>
+    c.claims.status
+      .filter((x) => x.before!.status === from && x.after!.status === to)
+      .map((x) => pair(x.subject, x.object))
+      .sort();
+  assert.deepEqual(
+    status('proposed', 'confirmed'),
+    (key.confirmedFromProposed as string[][]).map(([x, y]) => pair(x, y)).sort(),
+  );
+  assert.deepEqual(
+    c.claims.removed.map((x) => pair(x.subject, x.object)).sort(),
+    (key.disappeared as string[][]).map(([x, y]) => pair(x, y)).sort(),
+  );
   const [x, y] = key.overriddenDecision.pair as string[];
   assert.deepEqual(status('confirmed', 'rejected'), [pair(x, y)]);
-  assert.ok(c.partners.brindle.added >= key.counts.newSameLinks - 1, 'Brindle\'s links are new');
+  assert.ok(c.partners.brindle.added >= key.counts.newSameLinks - 1, "Brindle's links are new");
 });

@@ -54,6 +54,8 @@ test('vocab maps, JSON project files and JSON-LD documents report syntax errors 
     const p = problem(read);
     assert.deepEqual([p.file, p.line, p.column], [f, 3, 22]);
   }
-  const err = (await jsonldToNQuads('{\n  "@id": "x",\n  "@type" "y"\n}', 'doc.jsonld', 'file:///doc.jsonld').catch((e) => e)) as UserError;
+  const err = (await jsonldToNQuads('{\n  "@id": "x",\n  "@type" "y"\n}', 'doc.jsonld', 'file:///doc.jsonld').catch(
+    (e) => e,
+  )) as UserError;
   assert.deepEqual([err.problems[0].file, err.problems[0].line, err.problems[0].column], ['doc.jsonld', 3, 11]);
 });

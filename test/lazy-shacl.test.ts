@@ -16,7 +16,9 @@ const register = `data:text/javascript,import{register}from'node:module';registe
 function validate(engine: string) {
   const data = path.join(tmp, 'data.ttl');
   writeFileSync(data, '<http://example.org/a> <http://example.org/p> "x" .\n');
-  return spawnSync(process.execPath, ['--import', register, cli, 'validate', data, '--shacl-engine', engine], { encoding: 'utf8' });
+  return spawnSync(process.execPath, ['--import', register, cli, 'validate', data, '--shacl-engine', engine], {
+    encoding: 'utf8',
+  });
 }
 
 test('the built-in engine runs with rdf-validate-shacl unloadable; choosing rdf-validate-shacl then fails', () => {

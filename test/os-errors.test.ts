@@ -14,9 +14,30 @@ const build = (out: string) => spawnSync(process.execPath, [cli, 'build', demo, 
 const noStack = (stderr: string) => assert.doesNotMatch(stderr, /\n\s+at |node:internal/, 'no stack trace');
 
 const cases: { name: string; out: (dir: string) => string; status: number; stderr: RegExp }[] = [
-  { name: '--out under a file', out: (d) => { writeFileSync(path.join(d, 'afile'), ''); return path.join(d, 'afile', 'r'); }, status: 2, stderr: /afile: --out: is a file, so no folder can be made under it/ },
-  { name: '--out deeper under a file', out: (d) => { writeFileSync(path.join(d, 'afile'), ''); return path.join(d, 'afile', 'x', 'r'); }, status: 2, stderr: /afile: --out: is a file/ },
-  { name: '--out under /proc', out: () => '/proc/concordat-release', status: 2, stderr: /^\/proc: --out: no file can be made in this folder \(ENOENT\)/ },
+  {
+    name: '--out under a file',
+    out: (d) => {
+      writeFileSync(path.join(d, 'afile'), '');
+      return path.join(d, 'afile', 'r');
+    },
+    status: 2,
+    stderr: /afile: --out: is a file, so no folder can be made under it/,
+  },
+  {
+    name: '--out deeper under a file',
+    out: (d) => {
+      writeFileSync(path.join(d, 'afile'), '');
+      return path.join(d, 'afile', 'x', 'r');
+    },
+    status: 2,
+    stderr: /afile: --out: is a file/,
+  },
+  {
+    name: '--out under /proc',
+    out: () => '/proc/concordat-release',
+    status: 2,
+    stderr: /^\/proc: --out: no file can be made in this folder \(ENOENT\)/,
+  },
 ];
 
 for (const c of cases)
@@ -32,7 +53,10 @@ test('build on a full disk (a 1 MiB tmpfs): exit 1 naming --out and ENOSPC, the 
   const mnt = path.join(dir, 'mnt');
   mkdirSync(mnt);
   const mounted = spawnSync('mount', ['-t', 'tmpfs', '-o', 'size=1m', 'tmpfs', mnt]).status === 0;
-  if (!mounted) return t.skip(process.getuid?.() === 0 ? (requires(false, 'mount -t tmpfs failed') as string) : 'mounting a tmpfs needs root');
+  if (!mounted)
+    return t.skip(
+      process.getuid?.() === 0 ? (requires(false, 'mount -t tmpfs failed') as string) : 'mounting a tmpfs needs root',
+    );
   try {
     const r = build(path.join(mnt, 'release'));
     assert.equal(r.status, 1, r.stderr);
@@ -44,10 +68,18 @@ test('build on a full disk (a 1 MiB tmpfs): exit 1 naming --out and ENOSPC, the 
   }
 });
 
-for (const [umask, mode] of [['022', 0o755], ['027', 0o750], ['077', 0o700]] as const)
+for (const [umask, mode] of [
+  ['022', 0o755],
+  ['027', 0o750],
+  ['077', 0o700],
+] as const)
   test(`a release folder made under umask ${umask} has mode ${mode.toString(8)}`, () => {
     const out = path.join(tempDir('concordat-umask-'), 'release');
-    const r = spawnSync('sh', ['-c', `umask ${umask} && exec "$0" "$@"`, process.execPath, cli, 'build', demo, '--out', out], { encoding: 'utf8' });
+    const r = spawnSync(
+      'sh',
+      ['-c', `umask ${umask} && exec "$0" "$@"`, process.execPath, cli, 'build', demo, '--out', out],
+      { encoding: 'utf8' },
+    );
     assert.equal(r.status, 0, r.stderr);
     assert.equal(statSync(out).mode & 0o777, mode);
   });

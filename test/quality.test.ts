@@ -1,5 +1,6 @@
 // Quality against answer keys: pair and B-cubed F1 of the published same-work claims and part-of F1, on the demo and
-// on a generated scenario with mount backs, charts, look-alikes and details; every claim traces to evidence or a curator.
+// on a generated scenario with mount backs, charts, look-alikes and details; every claim traces to evidence or a
+// curator.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync } from 'node:fs';
@@ -32,12 +33,22 @@ test('demo: every mount back and colour chart of the answer key is set aside; lo
   const ev = weighEvidence(model);
   const verdictOf = (ref: string) => {
     const [p, id] = [ref.slice(0, ref.indexOf(':')), ref.slice(ref.indexOf(':') + 1)];
-    const i = model.images.id.findIndex((x, k) => x === id && model.project.partners[model.works[model.images.work[k]].partner].key === p);
+    const i = model.images.id.findIndex(
+      (x, k) => x === id && model.project.partners[model.works[model.images.work[k]].partner].key === p,
+    );
     return IMAGE_VERDICTS[ev.verdict[i]];
   };
   assert.deepEqual(new Set(key.phenomena.mountBacks.map(verdictOf)), new Set(['hub']));
-  assert.deepEqual(new Set(key.phenomena.charts.map(verdictOf)), new Set(['uncorroborated']), 'a clique of seven: told apart by the paintings beside them');
-  assert.equal(ev.indiscriminate.length, key.phenomena.mountBacks.length + key.phenomena.charts.length, 'no genuine photograph set aside');
+  assert.deepEqual(
+    new Set(key.phenomena.charts.map(verdictOf)),
+    new Set(['uncorroborated']),
+    'a clique of seven: told apart by the paintings beside them',
+  );
+  assert.equal(
+    ev.indiscriminate.length,
+    key.phenomena.mountBacks.length + key.phenomena.charts.length,
+    'no genuine photograph set aside',
+  );
   const ls = link(model, model.project.policy, ev);
   const c = cluster(model, ls);
   const clusterOfRef = new Map(Array.from(model.works.keys(), (w) => [workRef(model, w), c.clusterOf[w]]));
@@ -65,10 +76,20 @@ test('every published claim of the demo traces to a named curator or to evidence
     for (const l of ls.links) {
       if (!isClaim(l)) continue;
       claims++;
-      if (l.decision !== undefined) { assert.ok(model.decisions[l.decision].curator.trim() !== '', 'a named curator'); continue; }
+      if (l.decision !== undefined) {
+        assert.ok(model.decisions[l.decision].curator.trim() !== '', 'a named curator');
+        continue;
+      }
       const rows = Array.from(matchesOf(ls, l));
-      assert.ok(rows.some((r) => !ev.setAside[r] && model.matches.overlap[r] >= model.project.policy.minOverlap && model.matches.score[r] >= model.project.policy.proposeAt),
-        `${workRef(model, l.a)}–${workRef(model, l.b)} rests on discriminating evidence`);
+      assert.ok(
+        rows.some(
+          (r) =>
+            !ev.setAside[r] &&
+            model.matches.overlap[r] >= model.project.policy.minOverlap &&
+            model.matches.score[r] >= model.project.policy.proposeAt,
+        ),
+        `${workRef(model, l.a)}–${workRef(model, l.b)} rests on discriminating evidence`,
+      );
     }
     assert.ok(claims > 50);
   }
@@ -83,8 +104,14 @@ test('demo report: says which images were set aside (partner, image, works match
   const w = reportData(model, ls, c, a, workContext(model)).withheld;
   assert.equal(w.indiscriminateImages, 19);
   assert.deepEqual(w.byVerdict, { hub: 12, uncorroborated: 7, role: 0 });
-  assert.deepEqual(new Set(w.images.map((i) => `${i.partner}:${i.image}`)), new Set([...key.phenomena.mountBacks, ...key.phenomena.charts]));
-  assert.ok(w.images.every((i) => i.worksMatched >= 6), 'each matched at least six works');
+  assert.deepEqual(
+    new Set(w.images.map((i) => `${i.partner}:${i.image}`)),
+    new Set([...key.phenomena.mountBacks, ...key.phenomena.charts]),
+  );
+  assert.ok(
+    w.images.every((i) => i.worksMatched >= 6),
+    'each matched at least six works',
+  );
   // three prints from one plate (three links) and two pairs of pendants: five look-alike links held back at least
   assert.ok(w.heldLinks['look-alike'] >= 5, `${w.heldLinks['look-alike']} look-alike links held`);
   assert.ok(w.heldLinks.indiscriminate > 0);

@@ -22,9 +22,21 @@ test('validate --report refuses an existing file (exit 2) and leaves it as it wa
 });
 
 const cases: { name: string; prepare: (dir: string) => void; error: RegExp }[] = [
-  { name: 'a release folder', prepare: (d) => writeFileSync(path.join(d, 'SHA256SUMS'), ''), error: /<folder>: is a release folder/ },
-  { name: 'a build\'s unfinished folder', prepare: (d) => writeFileSync(path.join(d, '.concordat-incomplete'), '{}'), error: /<folder>: is a release folder/ },
-  { name: 'a folder with other files', prepare: (d) => writeFileSync(path.join(d, 'notes.txt'), 'x'), error: /<folder>: is not empty \(notes\.txt\)/ },
+  {
+    name: 'a release folder',
+    prepare: (d) => writeFileSync(path.join(d, 'SHA256SUMS'), ''),
+    error: /<folder>: is a release folder/,
+  },
+  {
+    name: "a build's unfinished folder",
+    prepare: (d) => writeFileSync(path.join(d, '.concordat-incomplete'), '{}'),
+    error: /<folder>: is a release folder/,
+  },
+  {
+    name: 'a folder with other files',
+    prepare: (d) => writeFileSync(path.join(d, 'notes.txt'), 'x'),
+    error: /<folder>: is not empty \(notes\.txt\)/,
+  },
 ];
 for (const c of cases)
   test(`init refuses ${c.name} (exit 2, nothing written)`, () => {

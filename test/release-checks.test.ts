@@ -14,7 +14,18 @@ import { isomorphic } from './helpers/isomorphic.js';
 import { validate } from '../src/validate/shacl.js';
 import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
-import { distinctCount, formatOf, merged, ourQuads, rapper, rapperRead, rdflibRead, rdflibJsonLd, rdflibPython, type ToolReading } from './helpers/external-rdf.js';
+import {
+  distinctCount,
+  formatOf,
+  merged,
+  ourQuads,
+  rapper,
+  rapperRead,
+  rdflibRead,
+  rdflibJsonLd,
+  rdflibPython,
+  type ToolReading,
+} from './helpers/external-rdf.js';
 import { PARTNERS, imageId, writeTinyProject, type TinyProject } from './helpers/tiny-project.js';
 import { requires } from './helpers/requires.js';
 
@@ -26,10 +37,11 @@ const dir = release.outDir;
 const partnerKeys = release.model.project.partners.map((p) => p.key);
 
 /** Every file of a folder, relative, sorted. */
-const filesOf = (d: string) => (readdirSync(d, { recursive: true, withFileTypes: true }) as import('node:fs').Dirent[])
-  .filter((e) => e.isFile())
-  .map((e) => path.relative(d, path.join(e.parentPath, e.name)))
-  .sort();
+const filesOf = (d: string) =>
+  (readdirSync(d, { recursive: true, withFileTypes: true }) as import('node:fs').Dirent[])
+    .filter((e) => e.isFile())
+    .map((e) => path.relative(d, path.join(e.parentPath, e.name)))
+    .sort();
 const dumpsOf = (d: string) => filesOf(d).filter((f) => /\.(ttl|nq|jsonld)$/.test(f) && f !== 'validation.ttl');
 
 const dumps = dumpsOf(dir);
@@ -39,14 +51,18 @@ const shapes = (await loadShapesFolder(defaultShapesDir())).quads;
 
 test('the demo release has every dump the design lists', () => {
   // design.md "Outputs": concordance.{ttl,nq,jsonld}, partners/{key}.{ttl,nq,jsonld}, dataset.ttl.
-  const expected = ['concordance', ...partnerKeys.map((k) => path.join('partners', k))].flatMap((s) => ['ttl', 'nq', 'jsonld'].map((e) => `${s}.${e}`));
+  const expected = ['concordance', ...partnerKeys.map((k) => path.join('partners', k))].flatMap((s) =>
+    ['ttl', 'nq', 'jsonld'].map((e) => `${s}.${e}`),
+  );
   assert.deepEqual(dumps, [...expected, 'dataset.ttl'].sort());
   for (const f of dumps) assert.ok(ours.get(f)!.length > 0, `${f} is not empty`);
 });
 
 test('Turtle, N-Quads and JSON-LD of one slice carry the same number of triples (n3, jsonld.js)', () => {
   for (const stem of ['concordance', ...partnerKeys.map((k) => `partners/${k}`)]) {
-    const ttl = ours.get(`${stem}.ttl`)!, nq = ours.get(`${stem}.nq`)!, jsonld = ours.get(`${stem}.jsonld`)!;
+    const ttl = ours.get(`${stem}.ttl`)!,
+      nq = ours.get(`${stem}.nq`)!,
+      jsonld = ours.get(`${stem}.jsonld`)!;
     assert.equal(ttl.length, nq.length, `${stem}: Turtle and N-Quads are written from one quad stream`);
     assert.equal(distinctCount(merged(nq)), distinctCount(ttl), stem);
     assert.equal(distinctCount(jsonld), distinctCount(nq), `${stem}: JSON-LD keeps the named graphs`);
@@ -59,9 +75,13 @@ test('Turtle, N-Quads and JSON-LD of one slice carry the same number of triples 
 // read, written back as N-Triples / N-Quads, must be isomorphic to what we read (RDF 1.1 Concepts §3.6).
 const noRdflib = requires(rdflibPython, 'python3-rdflib is not installed (Debian package; .ci/run installs it)');
 let rdflibMemo: Record<string, ToolReading> | null = null;
-const rdflibOf = (f: string) => (rdflibMemo ??= rdflibRead(dumps.filter((d) => formatOf(d) !== 'jsonld' || rdflibJsonLd).map((d) => path.join(dir, d))))[path.join(dir, f)];
+const rdflibOf = (f: string) =>
+  (rdflibMemo ??= rdflibRead(
+    dumps.filter((d) => formatOf(d) !== 'jsonld' || rdflibJsonLd).map((d) => path.join(dir, d)),
+  ))[path.join(dir, f)];
 for (const f of dumps) {
-  const skip = noRdflib || (formatOf(f) === 'jsonld' && !rdflibJsonLd ? 'this rdflib has no JSON-LD parser plugin' : false);
+  const skip =
+    noRdflib || (formatOf(f) === 'jsonld' && !rdflibJsonLd ? 'this rdflib has no JSON-LD parser plugin' : false);
   test(`rdflib parses ${f} with our count and our graph`, { skip }, async () => {
     const theirs = rdflibOf(f);
     assert.equal(theirs.count, distinctCount(ours.get(f)!));
@@ -89,21 +109,36 @@ for (const stem of ['concordance', `partners/${partnerKeys[0]}`]) {
     const graphs = (qs: N3.Quad[]) => [...new Set(qs.map((q) => q.graph.value))].sort();
     assert.deepEqual(graphs(fromJsonLd), graphs(fromNq));
     assert.ok(graphs(fromNq).length >= 3 && !graphs(fromNq).includes(''), 'every quad is in a named graph');
-    for (const g of graphs(fromNq)) assert.ok(await isomorphic(fromJsonLd.filter((q) => q.graph.value === g), fromNq.filter((q) => q.graph.value === g)), g);
+    for (const g of graphs(fromNq))
+      assert.ok(
+        await isomorphic(
+          fromJsonLd.filter((q) => q.graph.value === g),
+          fromNq.filter((q) => q.graph.value === g),
+        ),
+        g,
+      );
     assert.ok(await isomorphic(fromJsonLd, fromNq));
   });
 }
 
 test('every class the release uses is the target class of some shape', () => {
-  const targets = new Set(shapes.filter((q) => q.predicate.value === iri('sh', 'targetClass')).map((q) => q.object.value));
-  const used = new Set(ours.get('concordance.nq')!.filter((q) => q.predicate.value === iri('rdf', 'type')).map((q) => q.object.value));
+  const targets = new Set(
+    shapes.filter((q) => q.predicate.value === iri('sh', 'targetClass')).map((q) => q.object.value),
+  );
+  const used = new Set(
+    ours
+      .get('concordance.nq')!
+      .filter((q) => q.predicate.value === iri('rdf', 'type'))
+      .map((q) => q.object.value),
+  );
   assert.ok(used.size >= 15);
   assert.deepEqual([...used].filter((c) => !targets.has(c)).sort(), []);
 });
 
 // ---------------------------------------------------------------- SPARQL invariants (SPARQL 1.1 Query, in oxigraph)
 const P = `PREFIX cx: <${NS.cx}> PREFIX prov: <${NS.prov}> PREFIX owl: <${NS.owl}> PREFIX skos: <${NS.skos}> PREFIX dcterms: <${NS.dcterms}> PREFIX void: <${NS.void}> PREFIX rdf: <${NS.rdf}> PREFIX rdfs: <${NS.rdfs}>\n`;
-const CLAIM = 'owl:sameAs, skos:closeMatch, skos:exactMatch, skos:relatedMatch, dcterms:isPartOf, cx:proposedPartOf, owl:differentFrom';
+const CLAIM =
+  'owl:sameAs, skos:closeMatch, skos:exactMatch, skos:relatedMatch, dcterms:isPartOf, cx:proposedPartOf, owl:differentFrom';
 const base = release.model.project.base;
 const claimsGraph = `<${base}graph/claims>`;
 const spaces = release.model.project.partners.map((p) => [p.key, p.workIri.slice(0, p.workIri.indexOf('{'))] as const);
@@ -117,7 +152,8 @@ function storeWith(inject?: string): Store {
   if (inject) store.update(`${P}INSERT DATA { GRAPH ${claimsGraph} { ${inject} } }`);
   return store;
 }
-const rows = (store: Store, query: string) => store.query(P + query, { use_default_graph_as_union: true }) as Map<string, N3.Term>[];
+const rows = (store: Store, query: string) =>
+  store.query(P + query, { use_default_graph_as_union: true }) as Map<string, N3.Term>[];
 
 interface Invariant {
   name: string;
@@ -133,14 +169,25 @@ const INVARIANTS: Invariant[] = [
     query: `SELECT ?s ?p ?o WHERE { ?s ?p ?o . FILTER(?p IN (${CLAIM}))
       FILTER NOT EXISTS { ?l a cx:Link ; cx:subjectWork ?s ; cx:objectWork ?o ; cx:relation ?p } }`,
     breaks: [
-      { inject: `${inSpace(0, 'injected-a')} skos:closeMatch ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
-      { inject: `${inSpace(0, 'injected-a')} owl:sameAs ${inSpace(1, 'injected-b')} . <${base}link/injected> a cx:Link ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} ; cx:relation skos:closeMatch .`, caught: inSpace(0, 'injected-a') },
+      {
+        inject: `${inSpace(0, 'injected-a')} skos:closeMatch ${inSpace(1, 'injected-b')} .`,
+        caught: inSpace(0, 'injected-a'),
+      },
+      {
+        inject: `${inSpace(0, 'injected-a')} owl:sameAs ${inSpace(1, 'injected-b')} . <${base}link/injected> a cx:Link ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} ; cx:relation skos:closeMatch .`,
+        caught: inSpace(0, 'injected-a'),
+      },
     ],
   },
   {
     name: 'every link with a relation has its claim triple',
     query: `SELECT ?l WHERE { ?l a cx:Link ; cx:subjectWork ?s ; cx:objectWork ?o ; cx:relation ?p . FILTER NOT EXISTS { ?s ?p ?o } }`,
-    breaks: [{ inject: `<${base}link/injected> a cx:Link ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} ; cx:relation skos:closeMatch .`, caught: `<${base}link/injected>` }],
+    breaks: [
+      {
+        inject: `<${base}link/injected> a cx:Link ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} ; cx:relation skos:closeMatch .`,
+        caught: `<${base}link/injected>`,
+      },
+    ],
   },
   {
     // Design "RDF model": prov:wasDerivedFrom its image matches, prov:wasGeneratedBy the run or the curator review.
@@ -148,10 +195,16 @@ const INVARIANTS: Invariant[] = [
     query: `SELECT ?l WHERE { ?l a cx:Link .
       FILTER NOT EXISTS { ?l prov:wasDerivedFrom ?m . ?m a cx:ImageMatch }
       FILTER NOT EXISTS { ?l prov:wasGeneratedBy ?r . ?r a cx:CuratorReview } }`,
-    breaks: [{ inject: `<${base}link/injected> a cx:Link ; prov:wasGeneratedBy <${base}run/${release.model.runs[0].id}> .`, caught: `<${base}link/injected>` }],
+    breaks: [
+      {
+        inject: `<${base}link/injected> a cx:Link ; prov:wasGeneratedBy <${base}run/${release.model.runs[0].id}> .`,
+        caught: `<${base}link/injected>`,
+      },
+    ],
   },
   {
-    // Standards digest §1 "Choosing": owl:sameAs only for curator-confirmed same artwork; machine-probable → skos:closeMatch.
+    // Standards digest §1 "Choosing": owl:sameAs only for curator-confirmed same artwork; machine-probable →
+    // skos:closeMatch.
     name: 'owl:sameAs only on confirmed links',
     query: `SELECT ?s ?o WHERE {
       { ?s owl:sameAs ?o . FILTER NOT EXISTS { ?l a cx:Link ; cx:subjectWork ?s ; cx:objectWork ?o ; cx:relation owl:sameAs ; cx:status cx:Confirmed } }
@@ -159,12 +212,19 @@ const INVARIANTS: Invariant[] = [
     breaks: [], // filled below from a proposed link of the release
   },
   {
-    // OWL 2 eq-ref makes every IRI sameAs itself anyway; a link of a work to itself says nothing (common practice, no source).
+    // OWL 2 eq-ref makes every IRI sameAs itself anyway; a link of a work to itself says nothing (common practice, no
+    // source).
     name: 'no claim or link joins a work to itself',
     query: `SELECT ?s WHERE { { ?s ?p ?s . FILTER(?p IN (${CLAIM})) } UNION { ?l cx:subjectWork ?s ; cx:objectWork ?s } }`,
     breaks: [
-      { inject: `${inSpace(1, 'injected-b')} skos:closeMatch ${inSpace(1, 'injected-b')} .`, caught: inSpace(1, 'injected-b') },
-      { inject: `<${base}link/injected> cx:subjectWork ${inSpace(2, 'injected-c')} ; cx:objectWork ${inSpace(2, 'injected-c')} .`, caught: inSpace(2, 'injected-c') },
+      {
+        inject: `${inSpace(1, 'injected-b')} skos:closeMatch ${inSpace(1, 'injected-b')} .`,
+        caught: inSpace(1, 'injected-b'),
+      },
+      {
+        inject: `<${base}link/injected> cx:subjectWork ${inSpace(2, 'injected-c')} ; cx:objectWork ${inSpace(2, 'injected-c')} .`,
+        caught: inSpace(2, 'injected-c'),
+      },
     ],
   },
   {
@@ -175,7 +235,10 @@ const INVARIANTS: Invariant[] = [
       FILTER NOT EXISTS { ?w cx:partner ?k . VALUES (?k ?space) { ${spaces.map(([k, s]) => `(${JSON.stringify(k)} ${JSON.stringify(s)})`).join(' ')} }
         FILTER(STRSTARTS(STR(?w), ?space)) } }`,
     breaks: [
-      { inject: `<https://elsewhere.example.org/work/1> cx:partner ${JSON.stringify(spaces[0][0])} .`, caught: '<https://elsewhere.example.org/work/1>' },
+      {
+        inject: `<https://elsewhere.example.org/work/1> cx:partner ${JSON.stringify(spaces[0][0])} .`,
+        caught: '<https://elsewhere.example.org/work/1>',
+      },
       { inject: `${inSpace(0, 'x')} cx:partner ${JSON.stringify(spaces[1][0])} .`, caught: inSpace(0, 'x') },
       { inject: `<${base}work/injected> cx:member ${inSpace(1, 'undescribed')} .`, caught: inSpace(1, 'undescribed') },
     ],
@@ -189,16 +252,34 @@ const INVARIANTS: Invariant[] = [
       { ?s ?p ?o . FILTER NOT EXISTS { ?l a cx:Link ; cx:subjectWork ?s ; cx:objectWork ?o ; cx:relation ?p ; cx:status cx:Confirmed } }
       UNION { ?l cx:relation ?p ; cx:status ?st ; cx:subjectWork ?s ; cx:objectWork ?o . FILTER(?st != cx:Confirmed) } }`,
     breaks: [
-      { inject: `${inSpace(0, 'injected-a')} dcterms:isPartOf ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
-      { inject: `<${base}link/injected> cx:relation dcterms:isPartOf ; cx:status cx:Proposed ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
-      { inject: `${inSpace(2, 'injected-c')} owl:sameAs ${inSpace(1, 'injected-b')} .`, caught: inSpace(2, 'injected-c') },
+      {
+        inject: `${inSpace(0, 'injected-a')} dcterms:isPartOf ${inSpace(1, 'injected-b')} .`,
+        caught: inSpace(0, 'injected-a'),
+      },
+      {
+        inject: `<${base}link/injected> cx:relation dcterms:isPartOf ; cx:status cx:Proposed ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} .`,
+        caught: inSpace(0, 'injected-a'),
+      },
+      {
+        inject: `${inSpace(2, 'injected-c')} owl:sameAs ${inSpace(1, 'injected-b')} .`,
+        caught: inSpace(2, 'injected-c'),
+      },
     ],
   },
 ];
-const proposed = rows(storeWith(), `SELECT ?s ?o WHERE { ?l cx:status cx:Proposed ; cx:relation skos:closeMatch ; cx:subjectWork ?s ; cx:objectWork ?o } ORDER BY ?s ?o LIMIT 1`)[0];
+const proposed = rows(
+  storeWith(),
+  `SELECT ?s ?o WHERE { ?l cx:status cx:Proposed ; cx:relation skos:closeMatch ; cx:subjectWork ?s ; cx:objectWork ?o } ORDER BY ?s ?o LIMIT 1`,
+)[0];
 INVARIANTS[3].breaks.push(
-  { inject: `<${proposed.get('s')!.value}> owl:sameAs <${proposed.get('o')!.value}> .`, caught: `<${proposed.get('s')!.value}>` },
-  { inject: `<${base}link/injected> cx:relation owl:sameAs ; cx:status cx:Proposed ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} .`, caught: inSpace(0, 'injected-a') },
+  {
+    inject: `<${proposed.get('s')!.value}> owl:sameAs <${proposed.get('o')!.value}> .`,
+    caught: `<${proposed.get('s')!.value}>`,
+  },
+  {
+    inject: `<${base}link/injected> cx:relation owl:sameAs ; cx:status cx:Proposed ; cx:subjectWork ${inSpace(0, 'injected-a')} ; cx:objectWork ${inSpace(1, 'injected-b')} .`,
+    caught: inSpace(0, 'injected-a'),
+  },
 );
 
 const demoStore = storeWith();
@@ -211,15 +292,26 @@ test('the vocab map gives owl:sameAs and dcterms:isPartOf to confirmed claims on
 test('the demo release holds claims, links, clusters and partner works for the invariants to range over', () => {
   const count = (q: string) => Number(rows(demoStore, q)[0].get('n')!.value);
   // proposed and confirmed part links both, so the cautious-claims invariant has something to range over
-  assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Proposed ; cx:relation cx:proposedPartOf }`) > 0);
-  assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Confirmed ; cx:relation dcterms:isPartOf }`) > 0);
+  assert.ok(
+    count(
+      `SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Proposed ; cx:relation cx:proposedPartOf }`,
+    ) > 0,
+  );
+  assert.ok(
+    count(
+      `SELECT (COUNT(*) AS ?n) WHERE { ?l cx:kind cx:Part ; cx:status cx:Confirmed ; cx:relation dcterms:isPartOf }`,
+    ) > 0,
+  );
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?s owl:sameAs ?o }`) > 0);
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?l a cx:Link }`) > 50);
   assert.ok(count(`SELECT (COUNT(*) AS ?n) WHERE { ?w cx:partner ?k }`) > 50);
 });
 for (const inv of INVARIANTS) {
   test(`invariant: ${inv.name}`, () => {
-    assert.deepEqual(rows(demoStore, inv.query).map((r) => [...r.values()].map((t) => t.value).join(' ')), []);
+    assert.deepEqual(
+      rows(demoStore, inv.query).map((r) => [...r.values()].map((t) => t.value).join(' ')),
+      [],
+    );
   });
   test(`invariant can fail: ${inv.name}`, () => {
     assert.ok(inv.breaks.length > 0);
@@ -231,16 +323,29 @@ for (const inv of INVARIANTS) {
 }
 
 test("each partner dataset's void:uriSpace is its workIri prefix (VoID §4.2: a literal)", () => {
-  const got = rows(demoStore, `SELECT ?key ?space WHERE { ?w cx:partner ?key ; void:inDataset ?d . ?d void:uriSpace ?space . FILTER(isLiteral(?space)) } GROUP BY ?key ?space ORDER BY ?key`);
-  assert.deepEqual(got.map((r) => [r.get('key')!.value, r.get('space')!.value]), [...spaces].sort((a, b) => a[0].localeCompare(b[0])));
+  const got = rows(
+    demoStore,
+    `SELECT ?key ?space WHERE { ?w cx:partner ?key ; void:inDataset ?d . ?d void:uriSpace ?space . FILTER(isLiteral(?space)) } GROUP BY ?key ?space ORDER BY ?key`,
+  );
+  assert.deepEqual(
+    got.map((r) => [r.get('key')!.value, r.get('space')!.value]),
+    [...spaces].sort((a, b) => a[0].localeCompare(b[0])),
+  );
 });
 
 test('a curator named with accents gets an IRI from the unaccented words of the name (Aurélie → aurelie)', () => {
   // Slugs fold diacritics instead of breaking words at them (common practice, no source).
   const people = rows(demoStore, `SELECT ?p ?label WHERE { ?p a prov:Person ; rdfs:label ?label }`);
-  assert.ok(people.some((r) => /[^\u0000-\u007f]/.test(r.get('label')!.value)), 'the demo has a curator name with a diacritic');
+  assert.ok(
+    people.some((r) => /[^\u0000-\u007f]/.test(r.get('label')!.value)),
+    'the demo has a curator name with a diacritic',
+  );
   for (const r of people) {
-    const words = r.get('label')!.value.split(/[^\p{L}\p{N}]+/u).filter(Boolean).map((w) => w.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase());
+    const words = r
+      .get('label')!
+      .value.split(/[^\p{L}\p{N}]+/u)
+      .filter(Boolean)
+      .map((w) => w.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase());
     assert.equal(r.get('p')!.value.replace(/^.*\//, ''), words.join('-'));
   }
 });
@@ -251,23 +356,74 @@ test('two builds of the demo are byte-identical, file by file (design "Outputs":
   const [a, b] = [filesOf(dir), filesOf(again.outDir)];
   assert.deepEqual(b, a);
   assert.ok(a.length >= 15);
-  for (const f of a) assert.ok(readFileSync(path.join(dir, f)).equals(readFileSync(path.join(again.outDir, f))), `${f} differs`);
+  for (const f of a)
+    assert.ok(readFileSync(path.join(dir, f)).equals(readFileSync(path.join(again.outDir, f))), `${f} differs`);
 });
 
 // ---------------------------------------------------------------- property: hostile IDs and titles
-const piece = fc.constantFrom('"', '\\', '\n', '\t', '<', '>', ' ', "'", '&', '#', '%', '{', '}', ':', ',', ';', '/', '?', '.', '@',
-  'a', 'Q', '7', 'é', 'e\u0301', 'Ж', '漢', '\u200b', '😀', '👩\u200d🎨');
+const piece = fc.constantFrom(
+  '"',
+  '\\',
+  '\n',
+  '\t',
+  '<',
+  '>',
+  ' ',
+  "'",
+  '&',
+  '#',
+  '%',
+  '{',
+  '}',
+  ':',
+  ',',
+  ';',
+  '/',
+  '?',
+  '.',
+  '@',
+  'a',
+  'Q',
+  '7',
+  'é',
+  'e\u0301',
+  'Ж',
+  '漢',
+  '\u200b',
+  '😀',
+  '👩\u200d🎨',
+);
 const text = fc.array(piece, { maxLength: 8 }).map((a) => a.join(''));
 const id = text.map((s) => s.trim()).filter((s) => s !== '');
-const works = fc.uniqueArray(fc.record({ id, title: text, images: fc.integer({ min: 1, max: 2 }) }), { minLength: 1, maxLength: 3, selector: (w) => w.id });
+const works = fc.uniqueArray(fc.record({ id, title: text, images: fc.integer({ min: 1, max: 2 }) }), {
+  minLength: 1,
+  maxLength: 3,
+  selector: (w) => w.id,
+});
 const project: fc.Arbitrary<TinyProject> = fc.record({
   alpha: works,
   beta: works,
-  matches: fc.array(fc.record({ a: fc.nat(9), ai: fc.nat(3), b: fc.nat(9), bi: fc.nat(3), score: fc.integer({ min: 40, max: 100 }), overlap: fc.integer({ min: 1, max: 100 }) }), { minLength: 1, maxLength: 5 }),
-  decisions: fc.array(fc.record({
-    a: fc.nat(9), b: fc.nat(9), verdict: fc.constantFrom('same' as const, 'part' as const, 'related' as const, 'distinct' as const),
-    curator: fc.oneof(id, fc.constant('https://orcid.org/0000-0002-1825-0097')), note: text,
-  }), { maxLength: 3 }),
+  matches: fc.array(
+    fc.record({
+      a: fc.nat(9),
+      ai: fc.nat(3),
+      b: fc.nat(9),
+      bi: fc.nat(3),
+      score: fc.integer({ min: 40, max: 100 }),
+      overlap: fc.integer({ min: 1, max: 100 }),
+    }),
+    { minLength: 1, maxLength: 5 },
+  ),
+  decisions: fc.array(
+    fc.record({
+      a: fc.nat(9),
+      b: fc.nat(9),
+      verdict: fc.constantFrom('same' as const, 'part' as const, 'related' as const, 'distinct' as const),
+      curator: fc.oneof(id, fc.constant('https://orcid.org/0000-0002-1825-0097')),
+      note: text,
+    }),
+    { maxLength: 3 },
+  ),
 });
 
 /** Works and images named in a release decode back to generated IDs, and titles come back unchanged (RFC 3986 §2.1). */
@@ -288,45 +444,53 @@ function assertRoundTrip(p: TinyProject, quads: N3.Quad[]): number {
     }
     const images = new Set(p[key].flatMap((w) => Array.from({ length: w.images }, (_, k) => imageId(w, k))));
     for (const q of quads)
-      if (q.object.value.startsWith(imageSpace)) assert.ok(images.has(decodeURIComponent(q.object.value.slice(imageSpace.length))), q.object.value);
+      if (q.object.value.startsWith(imageSpace))
+        assert.ok(images.has(decodeURIComponent(q.object.value.slice(imageSpace.length))), q.object.value);
   }
   return seen;
 }
 
 test('IDs and titles with quotes, backslashes, newlines, <, >, spaces, unicode and emoji give dumps that parse and conform', async () => {
   let checkedWorks = 0;
-  await fc.assert(fc.asyncProperty(project, async (p) => {
-    const work = mkdtempSync(path.join(tmp, 'prop-'));
-    try {
-      const r = await build(writeTinyProject(path.join(work, 'project'), p), path.join(work, 'release'), { workers: 0 });
-      assert.equal(r.publish.validation.violations, 0);
-      const files = dumpsOf(r.outDir);
-      const parsed = new Map<string, N3.Quad[]>();
-      for (const f of files) parsed.set(f, await ourQuads(path.join(r.outDir, f)));
-      const [ttl, nqQuads, jsonld] = ['ttl', 'nq', 'jsonld'].map((e) => parsed.get(`concordance.${e}`)!);
-      assert.equal(ttl.length, nqQuads.length);
-      assert.ok(await isomorphic(jsonld, nqQuads), 'JSON-LD and N-Quads agree, named graphs included');
-      // The release conforms as one graph too, not only chunk by chunk (SHACL §3 over the merged data graph).
-      assert.equal((await validate(merged(nqQuads), shapes)).violations, 0);
-      checkedWorks += assertRoundTrip(p, ttl);
-      if (rdflibPython) {
-        const read = rdflibRead(files.filter((f) => formatOf(f) !== 'jsonld' || rdflibJsonLd).map((f) => path.join(r.outDir, f)));
-        for (const [f, theirs] of Object.entries(read)) {
-          const mine = parsed.get(path.relative(r.outDir, f))!;
-          assert.equal(theirs.count, distinctCount(mine), `rdflib count on ${f}`);
-          assert.ok(await isomorphic(theirs.quads, mine), `rdflib graph of ${f}`);
+  await fc.assert(
+    fc.asyncProperty(project, async (p) => {
+      const work = mkdtempSync(path.join(tmp, 'prop-'));
+      try {
+        const r = await build(writeTinyProject(path.join(work, 'project'), p), path.join(work, 'release'), {
+          workers: 0,
+        });
+        assert.equal(r.publish.validation.violations, 0);
+        const files = dumpsOf(r.outDir);
+        const parsed = new Map<string, N3.Quad[]>();
+        for (const f of files) parsed.set(f, await ourQuads(path.join(r.outDir, f)));
+        const [ttl, nqQuads, jsonld] = ['ttl', 'nq', 'jsonld'].map((e) => parsed.get(`concordance.${e}`)!);
+        assert.equal(ttl.length, nqQuads.length);
+        assert.ok(await isomorphic(jsonld, nqQuads), 'JSON-LD and N-Quads agree, named graphs included');
+        // The release conforms as one graph too, not only chunk by chunk (SHACL §3 over the merged data graph).
+        assert.equal((await validate(merged(nqQuads), shapes)).violations, 0);
+        checkedWorks += assertRoundTrip(p, ttl);
+        if (rdflibPython) {
+          const read = rdflibRead(
+            files.filter((f) => formatOf(f) !== 'jsonld' || rdflibJsonLd).map((f) => path.join(r.outDir, f)),
+          );
+          for (const [f, theirs] of Object.entries(read)) {
+            const mine = parsed.get(path.relative(r.outDir, f))!;
+            assert.equal(theirs.count, distinctCount(mine), `rdflib count on ${f}`);
+            assert.ok(await isomorphic(theirs.quads, mine), `rdflib graph of ${f}`);
+          }
         }
+        if (rapper)
+          for (const f of files.filter((x) => formatOf(x) !== 'jsonld')) {
+            const theirs = rapperRead(path.join(r.outDir, f));
+            assert.equal(theirs.count, parsed.get(f)!.length, `rapper count on ${f}`);
+            assert.ok(await isomorphic(theirs.quads, parsed.get(f)!), `rapper graph of ${f}`);
+          }
+      } finally {
+        rmSync(work, { recursive: true, force: true });
       }
-      if (rapper)
-        for (const f of files.filter((x) => formatOf(x) !== 'jsonld')) {
-          const theirs = rapperRead(path.join(r.outDir, f));
-          assert.equal(theirs.count, parsed.get(f)!.length, `rapper count on ${f}`);
-          assert.ok(await isomorphic(theirs.quads, parsed.get(f)!), `rapper graph of ${f}`);
-        }
-    } finally {
-      rmSync(work, { recursive: true, force: true });
-    }
-  }), { numRuns: Number(process.env.PROP_RUNS ?? 20) });
+    }),
+    { numRuns: Number(process.env.PROP_RUNS ?? 20) },
+  );
   assert.ok(checkedWorks > 0, 'some generated works were published and checked');
 });
 
@@ -335,12 +499,17 @@ test('IDs and titles with quotes, backslashes, newlines, <, >, spaces, unicode a
 // RDF 1.1 Concepts §3.2 asks for IRIs normalized per RFC 3987 §5: the expansion percent-encodes such dots.
 test('a work ID "." or ".." keeps its IRI in every reader', { skip: noRapper }, async () => {
   const p: TinyProject = {
-    alpha: [{ id: '..', title: 'dots', images: 1 }], beta: [{ id: '.', title: 'dot', images: 1 }],
-    matches: [{ a: 0, ai: 0, b: 0, bi: 0, score: 90, overlap: 90 }], decisions: [],
+    alpha: [{ id: '..', title: 'dots', images: 1 }],
+    beta: [{ id: '.', title: 'dot', images: 1 }],
+    matches: [{ a: 0, ai: 0, b: 0, bi: 0, score: 90, overlap: 90 }],
+    decisions: [],
   };
   const work = mkdtempSync(path.join(tmp, 'dots-'));
   const r = await build(writeTinyProject(path.join(work, 'project'), p), path.join(work, 'release'), { workers: 0 });
-  const iris = (qs: N3.Quad[]) => new Set(qs.flatMap((q) => [q.subject.value, q.object.value]).filter((v) => v.includes('/id/work/') || v.endsWith('/id/')));
+  const iris = (qs: N3.Quad[]) =>
+    new Set(
+      qs.flatMap((q) => [q.subject.value, q.object.value]).filter((v) => v.includes('/id/work/') || v.endsWith('/id/')),
+    );
   const fromTurtle = iris(rapperRead(path.join(r.outDir, 'concordance.ttl')).quads);
   assert.deepEqual(fromTurtle, iris(await ourQuads(path.join(r.outDir, 'concordance.ttl'))));
 });

@@ -71,9 +71,21 @@ function richModel(): Model {
       { ref: 'a:4', title: 'Alone', date: '1600' },
       { ref: 'b:4', title: 'Alone too', date: '1601' },
     ],
-    matches: [['a:1', 'c:1', 0.91], ['c:1', 'b:1', 0.8], ['a:2', 'b:2', 0.9], ['b:2', 'c:2', 0.85], ['c:2', 'b:3', 0.8], ['a:4', 'b:4', 0.52], ['b:3', 'a:4', 0.7, 0.5]],
+    matches: [
+      ['a:1', 'c:1', 0.91],
+      ['c:1', 'b:1', 0.8],
+      ['a:2', 'b:2', 0.9],
+      ['b:2', 'c:2', 0.85],
+      ['c:2', 'b:3', 0.8],
+      ['a:4', 'b:4', 0.52],
+      ['b:3', 'a:4', 0.7, 0.5],
+    ],
     decisions: [['a:4', 'b:4', 'same', 'https://orcid.org/0000-0002-1825-0097', '2026-11-02']],
-    gold: [['a:1', 'b:1'], ['a:2', 'c:2'], ['a:4', 'c:1']],
+    gold: [
+      ['a:1', 'b:1'],
+      ['a:2', 'c:2'],
+      ['a:4', 'c:1'],
+    ],
   });
 }
 
@@ -86,11 +98,18 @@ async function reportInto(m: Model): Promise<{ dir: string; files: string[] }> {
 
 test('report files: neutralised spreadsheet cells, untouched references; CSV files with BOM and CRLF, the rest without', async () => {
   const { dir, files } = await reportInto(richModel());
-  assert.deepEqual(files.map((f) => path.basename(f)), [...REPORT_FILES]);
+  assert.deepEqual(
+    files.map((f) => path.basename(f)),
+    [...REPORT_FILES],
+  );
   for (const f of files) {
     const bytes = readFileSync(f);
     const csv = f.endsWith('.csv');
-    assert.equal(bytes.subarray(0, 3).equals(Buffer.from([0xef, 0xbb, 0xbf])), csv, `${path.basename(f)}: ${csv ? 'a' : 'no'} BOM`);
+    assert.equal(
+      bytes.subarray(0, 3).equals(Buffer.from([0xef, 0xbb, 0xbf])),
+      csv,
+      `${path.basename(f)}: ${csv ? 'a' : 'no'} BOM`,
+    );
     // RFC 4180 §2.1: each record ends with CRLF; a line break inside a quoted cell is content
     const outside = bytes.toString('utf8').replace(/"(?:[^"]|"")*"/g, '');
     if (csv) assert.ok(!/[^\r]\n/.test(outside) && outside.endsWith('\r\n'), `${path.basename(f)}: CRLF record ends`);
@@ -103,7 +122,10 @@ test('report files: neutralised spreadsheet cells, untouched references; CSV fil
   const conflicts = readFileSync(path.join(dir, 'conflicts.csv'), 'utf8');
   assert.equal(conflicts.slice(1).split('\r\n')[0], CONFLICTS_HEADER.join(','));
   // b:2 (-0300) and a:2 (-0500/-0401) are 101 years apart, a pair with no majority: each listed against the other
-  assert.ok(conflicts.includes(",'-0300,'-300,'-0500/-0401,'-500/-401,1 of 2 (tie: no majority),101,its cluster,"), 'dates as catalogued and intervals read neutralised');
+  assert.ok(
+    conflicts.includes(",'-0300,'-300,'-0500/-0401,'-500/-401,1 of 2 (tie: no majority),101,its cluster,"),
+    'dates as catalogued and intervals read neutralised',
+  );
   const registry = readFileSync(path.join(dir, 'clusters.csv'), 'utf8');
   assert.ok(!registry.includes("'"), 'clusters.csv is never neutralised');
 });
@@ -114,12 +136,14 @@ test('release.csv "plain": the same CSV files with LF and no BOM, and clusters.c
   m.project.release.csv = 'plain';
   const plain = await reportInto(m);
   for (const name of ['review-queue.csv', 'conflicts.csv', 'clusters.csv']) {
-    const a = readFileSync(path.join(sheet.dir, name), 'utf8'), b = readFileSync(path.join(plain.dir, name), 'utf8');
+    const a = readFileSync(path.join(sheet.dir, name), 'utf8'),
+      b = readFileSync(path.join(plain.dir, name), 'utf8');
     assert.ok(!b.startsWith('\uFEFF') && !b.replace(/"(?:[^"]|"")*"/g, '').includes('\r'), `${name}: plain`);
     assert.equal(a.slice(1).replace(/\r\n/g, '\n'), b, `${name}: same records`);
   }
   const c = cluster(m, link(m));
-  for (const dir of [sheet.dir, plain.dir]) assert.deepEqual(await readClusterRegistry(path.join(dir, 'clusters.csv')), registryOf(m, c));
+  for (const dir of [sheet.dir, plain.dir])
+    assert.deepEqual(await readClusterRegistry(path.join(dir, 'clusters.csv')), registryOf(m, c));
 });
 
 test('a filled-in review queue is a valid decisions file (read by header name, extra columns ignored)', async () => {
@@ -130,13 +154,20 @@ test('a filled-in review queue is a valid decisions file (read by header name, e
   for await (const r of readCsv(queueFile, ',')) rows.push(r.fields);
   assert.equal(rows[0][4], 'decided_on');
   assert.ok(rows.length > 3, 'the queue has rows');
-  const filled = rows.map((r, i) => (i === 0 ? r : [r[0], r[1], i % 2 ? 'same' : 'distinct', 'Jo Curator', '2026-12-01', `row ${i}`, ...r.slice(6)]));
+  const filled = rows.map((r, i) =>
+    i === 0 ? r : [r[0], r[1], i % 2 ? 'same' : 'distinct', 'Jo Curator', '2026-12-01', `row ${i}`, ...r.slice(6)],
+  );
   const file = path.join(dir, 'filled.csv');
   writeFileSync(file, filled.map((r) => csvLine(r)).join(''));
   const keys = m.project.partners.map((p) => p.key);
   const out: Decision[] = [];
   const problems = new ProblemList();
-  await loadDecisions({ file }, { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex }, out, problems);
+  await loadDecisions(
+    { file },
+    { keys, byKey: new Map(keys.map((k, i) => [k, i])), index: m.workIndex },
+    out,
+    problems,
+  );
   assert.deepEqual(problems.items, []);
   assert.equal(out.length, rows.length - 1);
   out.forEach((d, i) => {
@@ -150,7 +181,8 @@ test('a filled-in review queue is a valid decisions file (read by header name, e
 test('two runs write byte-identical report files', async () => {
   const one = await reportInto(richModel());
   const two = await reportInto(richModel());
-  for (const name of REPORT_FILES) assert.equal(readFileSync(path.join(one.dir, name), 'utf8'), readFileSync(path.join(two.dir, name), 'utf8'), name);
+  for (const name of REPORT_FILES)
+    assert.equal(readFileSync(path.join(one.dir, name), 'utf8'), readFileSync(path.join(two.dir, name), 'utf8'), name);
   const json = readFileSync(path.join(one.dir, 'report.json'), 'utf8');
   const md = readFileSync(path.join(one.dir, 'report.md'), 'utf8');
   for (const text of [json, md]) {

@@ -19,16 +19,28 @@ const r1 = path.join(tmp, 'r1');
 const r2 = path.join(tmp, 'r2');
 
 /** What curators write into a row of the queue. */
-interface Filled { verdict: string; curator: string; date: string; note: string }
+interface Filled {
+  verdict: string;
+  curator: string;
+  date: string;
+  note: string;
+}
 const CURATORS = ['Maren Olofsdóttir', 'https://orcid.org/0000-0002-1825-0097', 'Élodie Varenne'];
 
 /** RFC 4180 cell with a chosen separator: quoted when it holds the separator, a quote, CR or LF. */
 const cell = (v: string, sep: string) => (v.includes(sep) || /["\r\n]/.test(v) ? `"${v.replace(/"/g, '""')}"` : v);
 /** Rows as a spreadsheet saves them: UTF-8 with BOM, CRLF after every row. */
-const save = (rows: string[][], sep: string) => Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from(rows.map((r) => r.map((c) => cell(c, sep)).join(sep) + '\r\n').join(''))]);
+const save = (rows: string[][], sep: string) =>
+  Buffer.concat([
+    Buffer.from([0xef, 0xbb, 0xbf]),
+    Buffer.from(rows.map((r) => r.map((c) => cell(c, sep)).join(sep) + '\r\n').join('')),
+  ]);
 
 const trip = (async () => {
-  cpSync(path.join(repoRoot, 'demo-data'), demo, { recursive: true, filter: (f) => !f.includes(`${path.sep}releases`) });
+  cpSync(path.join(repoRoot, 'demo-data'), demo, {
+    recursive: true,
+    filter: (f) => !f.includes(`${path.sep}releases`),
+  });
   const b1 = run('build', path.join(demo, 'concordance.json'), '--out', r1);
   assert.equal(b1.status, 0, b1.stderr);
   const rows: string[][] = [];
@@ -42,7 +54,12 @@ const trip = (async () => {
   const verdicts = ['same', 'distinct', 'related', 'part', 'same'];
   const decided = new Map<string, Filled & { link: string; a: string; b: string }>();
   proposed.forEach((r, i) => {
-    const f: Filled = { verdict: verdicts[i], curator: CURATORS[i % CURATORS.length], date: `2027-01-0${i + 1}`, note: `looked at the photos, row ${i}` };
+    const f: Filled = {
+      verdict: verdicts[i],
+      curator: CURATORS[i % CURATORS.length],
+      date: `2027-01-0${i + 1}`,
+      note: `looked at the photos, row ${i}`,
+    };
     r[col('verdict')] = i === 0 ? 'Same' : f.verdict; // a capital letter, as people type
     r[col('curator')] = f.curator;
     r[col('decided_on')] = f.date;
@@ -53,11 +70,17 @@ const trip = (async () => {
   const untouched = body.filter((r) => !proposed.includes(r));
   // sheet A: comma-separated, BOM + CRLF, with blank rows (separators only, and an empty line)
   const blank = header.map(() => '');
-  writeFileSync(path.join(demo, 'decisions', 'queue-a.csv'), Buffer.concat([save([header, ...first, blank, ...untouched.slice(0, 40), blank], ','), Buffer.from('\r\n')]));
+  writeFileSync(
+    path.join(demo, 'decisions', 'queue-a.csv'),
+    Buffer.concat([save([header, ...first, blank, ...untouched.slice(0, 40), blank], ','), Buffer.from('\r\n')]),
+  );
   // sheet B: ";"-separated with decimal commas in every number column, BOM + CRLF
   const decimal = new Set(['score', 'pair_scores', 'pair_overlaps'].map(col));
   const commas = (r: string[]) => r.map((c, i) => (decimal.has(i) ? c.replace(/(\d)\.(\d)/g, '$1,$2') : c));
-  writeFileSync(path.join(demo, 'decisions', 'queue-b.csv'), save([header, ...[...second, ...untouched.slice(40)].map(commas)], ';'));
+  writeFileSync(
+    path.join(demo, 'decisions', 'queue-b.csv'),
+    save([header, ...[...second, ...untouched.slice(40)].map(commas)], ';'),
+  );
   const p = JSON.parse(readFileSync(path.join(demo, 'concordance.json'), 'utf8'));
   p.decisions.push('decisions/queue-a.csv', 'decisions/queue-b.csv');
   p.release = { ...p.release, version: '2026.2', issued: '2027-01-15' };
@@ -111,7 +134,10 @@ test('changes.md has one line per decision reading before → after and who deci
   await built;
   const md = readFileSync(path.join(r2, 'changes.md'), 'utf8');
   const AFTER: Record<string, RegExp> = {
-    same: /→ same work \(confirmed/, distinct: /→ distinct works \(rejected\)/, related: /→ related works \(confirmed/, part: /→ `[^`]+` is part of `[^`]+` \(confirmed/,
+    same: /→ same work \(confirmed/,
+    distinct: /→ distinct works \(rejected\)/,
+    related: /→ related works \(confirmed/,
+    part: /→ `[^`]+` is part of `[^`]+` \(confirmed/,
   };
   for (const f of decided.values()) {
     const lines = md.split('\n').filter((l) => l.includes(`<${f.link}>`));
@@ -126,7 +152,8 @@ test('changes.ttl names the review and the curator behind each decided change', 
   const { decided } = await trip;
   await built;
   const store = new N3.Store(await readRdfFile(path.join(r2, 'changes.ttl')));
-  const objects = (s: string, p: string) => store.getObjects(N3.DataFactory.namedNode(s), N3.DataFactory.namedNode(p), null).map((o) => o.value);
+  const objects = (s: string, p: string) =>
+    store.getObjects(N3.DataFactory.namedNode(s), N3.DataFactory.namedNode(p), null).map((o) => o.value);
   for (const f of decided.values()) {
     const reviews = objects(f.link, 'http://www.w3.org/ns/prov#wasGeneratedBy');
     assert.equal(reviews.length, 1, f.link);
@@ -145,7 +172,10 @@ test('cite shows each decision with its curator, date, verdict and note, in text
     const t = run('cite', f.link, '--release', r2);
     assert.equal(t.status, 0, t.stderr);
     const who = f.curator;
-    assert.ok(t.stdout.includes(`${f.verdict === 'distinct' ? 'as judged by' : 'confirmed by'} ${who} on ${f.date}`), t.stdout);
+    assert.ok(
+      t.stdout.includes(`${f.verdict === 'distinct' ? 'as judged by' : 'confirmed by'} ${who} on ${f.date}`),
+      t.stdout,
+    );
     assert.ok(t.stdout.includes(`verdict ${f.verdict}, note "${f.note}"`), t.stdout);
     const [item] = JSON.parse(run('cite', f.link, '--release', r2, '--format', 'csl-json').stdout);
     assert.equal(item.URL, f.link);

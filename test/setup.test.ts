@@ -1,4 +1,5 @@
-// concordat init and add-partner: starter project, delimiter sniffing, column proposals on the demo exports, confirmation.
+// concordat init and add-partner: starter project, delimiter sniffing, column proposals on the demo exports,
+// confirmation.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { readFileSync, existsSync, statSync } from 'node:fs';
@@ -14,7 +15,8 @@ import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const demo = path.join(repoRoot, 'demo-data');
 const cli = path.join(repoRoot, 'dist', 'src', 'cli', 'main.js');
-const run = (...args: string[]) => spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8', stdio: ['pipe', 'pipe', 'pipe'] });
+const run = (...args: string[]) =>
+  spawnSync(process.execPath, [cli, ...args], { encoding: 'utf8', stdio: ['pipe', 'pipe', 'pipe'] });
 const fresh = () => tempDir('concordat-setup-');
 const formatted = (file: string) => {
   const text = readFileSync(file, 'utf8');
@@ -24,8 +26,13 @@ const formatted = (file: string) => {
 
 /** The demo's own partner blocks: release 1 (three archives) and Brindle from release 2. */
 const expected = [
-  ...JSON.parse(readFileSync(path.join(demo, 'concordance.json'), 'utf8')).partners.map((p: any) => ({ ...p, dir: demo })),
-  ...JSON.parse(readFileSync(path.join(demo, 'release-2', 'concordance.json'), 'utf8')).partners.filter((p: any) => p.key === 'brindle').map((p: any) => ({ ...p, dir: path.join(demo, 'release-2') })),
+  ...JSON.parse(readFileSync(path.join(demo, 'concordance.json'), 'utf8')).partners.map((p: any) => ({
+    ...p,
+    dir: demo,
+  })),
+  ...JSON.parse(readFileSync(path.join(demo, 'release-2', 'concordance.json'), 'utf8'))
+    .partners.filter((p: any) => p.key === 'brindle')
+    .map((p: any) => ({ ...p, dir: path.join(demo, 'release-2') })),
 ];
 
 test('init: starter concordance.json and empty input folders; a second init refuses', () => {
@@ -40,11 +47,16 @@ test('init: starter concordance.json and empty input folders; a second init refu
 });
 
 test('delimiter sniffing: tab, semicolon, comma; quoted delimiters do not count', () => {
-  const cases: [string, string][] = [['a\tb\tc', '\t'], ['a;b;"c,d,e"', ';'], ['"x;y;z",b', ','], ['single', ',']];
+  const cases: [string, string][] = [
+    ['a\tb\tc', '\t'],
+    ['a;b;"c,d,e"', ';'],
+    ['"x;y;z",b', ','],
+    ['single', ','],
+  ];
   for (const [line, d] of cases) assert.equal(sniffDelimiter(line), d, JSON.stringify(line));
 });
 
-test('add-partner proposes the demo project\'s delimiter and column mapping for all four exports', async () => {
+test("add-partner proposes the demo project's delimiter and column mapping for all four exports", async () => {
   const dir = fresh();
   initProject(dir);
   const file = path.join(dir, 'concordance.json');
@@ -57,7 +69,10 @@ test('add-partner proposes the demo project\'s delimiter and column mapping for 
     writePartner(proposal);
   }
   const written = formatted(file);
-  assert.deepEqual(written.partners.map((p: any) => p.key), expected.map((p) => p.key));
+  assert.deepEqual(
+    written.partners.map((p: any) => p.key),
+    expected.map((p) => p.key),
+  );
   assert.equal(written.title, `${path.basename(dir)} concordance`, 'other fields kept');
   const project = loadProjectFile(file);
   assert.equal(project.partners.length, 4);
@@ -67,7 +82,12 @@ test('add-partner proposes the demo project\'s delimiter and column mapping for 
 
 test('column proposal by values alone: repeated IDs are works, unique ones images, years are dates', () => {
   const header = ['A', 'B', 'C'];
-  const rows = [['W-1', 'P-10', 'ca. 1480'], ['W-1', 'P-11', 'ca. 1480'], ['W-2', 'P-12', '1475'], ['W-3', 'P-13', '15th century']];
+  const rows = [
+    ['W-1', 'P-10', 'ca. 1480'],
+    ['W-1', 'P-11', 'ca. 1480'],
+    ['W-2', 'P-12', '1475'],
+    ['W-3', 'P-13', '15th century'],
+  ];
   assert.deepEqual(proposeColumns(header, rows).columns, { work: 'A', image: 'B', date: 'C' });
 });
 

@@ -18,7 +18,9 @@ import { repoRoot, tempDir } from './helpers/fixture.js';
 
 const BASE = 'https://concordance.lanternfield.example.org/';
 const servers: { close: () => Promise<void> }[] = [];
-after(async () => { for (const s of servers) await s.close(); });
+after(async () => {
+  for (const s of servers) await s.close();
+});
 async function start(site: string) {
   const s = await serveSite(site, { port: 0, host: '127.0.0.1' });
   servers.push(s);
@@ -49,8 +51,10 @@ test('site: every statement of concordance.nq is in exactly one document (.ttl f
   const walk = (dir: string) => {
     for (const e of readdirSync(dir, { withFileTypes: true })) {
       const p = path.join(dir, e.name);
-      if (e.isDirectory()) { if (!['releases', 'vocab'].includes(e.name)) walk(p); }
-      else if (e.name.endsWith('.ttl')) for (const l of readFileSync(p, 'utf8').split('\n').filter(Boolean)) got.set(l, (got.get(l) ?? 0) + 1);
+      if (e.isDirectory()) {
+        if (!['releases', 'vocab'].includes(e.name)) walk(p);
+      } else if (e.name.endsWith('.ttl'))
+        for (const l of readFileSync(p, 'utf8').split('\n').filter(Boolean)) got.set(l, (got.get(l) ?? 0) + 1);
     }
   };
   walk(d.site1);
@@ -63,7 +67,13 @@ test('site: same release → byte-identical site; an existing folder is never ov
   await writeSite(d.release2, again, { previous: d.site1 });
   const digest = (dir: string) => {
     const h = createHash('sha256');
-    const walk = (x: string) => { for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) { const p = path.join(x, e.name); if (e.isDirectory()) walk(p); else h.update(path.relative(dir, p) + '\0').update(readFileSync(p)); } };
+    const walk = (x: string) => {
+      for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
+        const p = path.join(x, e.name);
+        if (e.isDirectory()) walk(p);
+        else h.update(path.relative(dir, p) + '\0').update(readFileSync(p));
+      }
+    };
     walk(dir);
     return h.digest('hex');
   };
@@ -71,12 +81,20 @@ test('site: same release → byte-identical site; an existing folder is never ov
   await assert.rejects(writeSite(d.release2, again), /already exists/);
 });
 
-function raw(origin: string, p: string, method = 'GET', headers: Record<string, string> = {}): Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: string }> {
+function raw(
+  origin: string,
+  p: string,
+  method = 'GET',
+  headers: Record<string, string> = {},
+): Promise<{ status: number; headers: Record<string, string | string[] | undefined>; body: string }> {
   const u = new URL(origin);
   return new Promise((resolve, reject) => {
     const req = request({ host: u.hostname, port: u.port, path: p, method, headers }, (res) => {
       let body = '';
-      res.setEncoding('utf8').on('data', (c) => (body += c)).on('end', () => resolve({ status: res.statusCode!, headers: res.headers, body }));
+      res
+        .setEncoding('utf8')
+        .on('data', (c) => (body += c))
+        .on('end', () => resolve({ status: res.statusCode!, headers: res.headers, body }));
     });
     req.on('error', reject).end();
   });
@@ -92,7 +110,19 @@ test('serve: nothing outside the site folder, whatever the path (dot segments, e
   symlinkSync(d.tmp, path.join(site, 'up'));
   const origin = await start(site);
   const rel = path.relative('/', outside);
-  for (const p of ['/../secret.txt', '/%2e%2e/secret.txt', '/%2E%2E%2Fsecret.txt', '/assets/..%2f..%2fsecret.txt', `/..%2f..%2f..%2f..%2f..%2f${rel}`, `//${rel}`, '/assets/link.css', '/up/secret.txt', '/index.html%00.txt', '/work/..%5c..%5csecret.txt', `/${'..%2f'.repeat(12)}etc/passwd`]) {
+  for (const p of [
+    '/../secret.txt',
+    '/%2e%2e/secret.txt',
+    '/%2E%2E%2Fsecret.txt',
+    '/assets/..%2f..%2fsecret.txt',
+    `/..%2f..%2f..%2f..%2f..%2f${rel}`,
+    `//${rel}`,
+    '/assets/link.css',
+    '/up/secret.txt',
+    '/index.html%00.txt',
+    '/work/..%5c..%5csecret.txt',
+    `/${'..%2f'.repeat(12)}etc/passwd`,
+  ]) {
     const r = await raw(origin, p);
     assert.ok([400, 404].includes(r.status), `${p}: ${r.status}`);
     assert.ok(!r.body.includes('SECRET-OUTSIDE') && !r.body.includes('root:'), p);
@@ -108,7 +138,10 @@ test('serve: headers — media types, Vary, caching, ETag/304, CSP and nosniff; 
   assert.match(String(page.headers['content-security-policy']), /default-src 'none'.*script-src 'self'/);
   assert.equal(page.headers['x-content-type-options'], 'nosniff');
   assert.match(String(page.headers['cache-control']), /max-age=\d+/);
-  assert.equal((await raw(origin, '/work/c000001.html', 'GET', { 'if-none-match': String(page.headers.etag) })).status, 304);
+  assert.equal(
+    (await raw(origin, '/work/c000001.html', 'GET', { 'if-none-match': String(page.headers.etag) })).status,
+    304,
+  );
   const head = await raw(origin, '/work/c000001.html', 'HEAD');
   assert.equal(head.status, 200);
   assert.equal(head.body, '');
@@ -136,9 +169,18 @@ test('serve: downloads named by the dataset are served under releases/<version>/
 
 test('negotiation: q-values and specificity decide (RFC 9110 §12.5.1); HTML for no header and */*', () => {
   const table: [string | undefined, string | null][] = [
-    [undefined, '.html'], ['*/*', '.html'], ['text/turtle', '.ttl'], ['application/ld+json', '.jsonld'], ['application/json', '.jsonld'],
-    ['text/html;q=0.5, text/turtle', '.ttl'], ['text/turtle;q=0.2, application/ld+json;q=0.9', '.jsonld'], ['text/*', '.html'],
-    ['application/n-triples', '.nt'], ['text/turtle;q=0, */*;q=0.1', '.html'], ['image/png', null], ['application/xhtml+xml', '.html'],
+    [undefined, '.html'],
+    ['*/*', '.html'],
+    ['text/turtle', '.ttl'],
+    ['application/ld+json', '.jsonld'],
+    ['application/json', '.jsonld'],
+    ['text/html;q=0.5, text/turtle', '.ttl'],
+    ['text/turtle;q=0.2, application/ld+json;q=0.9', '.jsonld'],
+    ['text/*', '.html'],
+    ['application/n-triples', '.nt'],
+    ['text/turtle;q=0, */*;q=0.1', '.html'],
+    ['image/png', null],
+    ['application/xhtml+xml', '.html'],
     ['text/html, application/xhtml+xml, application/xml;q=0.9, */*;q=0.8', '.html'],
   ];
   for (const [accept, ext] of table) assert.equal(negotiate(accept)?.ext ?? null, ext, String(accept));
@@ -146,9 +188,13 @@ test('negotiation: q-values and specificity decide (RFC 9110 §12.5.1); HTML for
 
 test('vocabulary: vocab/cx.ttl is the shipped vocabulary and vocab/index.html lists every term', async () => {
   const d = await demoSitesOnce();
-  assert.equal(readFileSync(path.join(d.site2, 'vocab', 'cx.ttl'), 'utf8'), readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8'));
+  assert.equal(
+    readFileSync(path.join(d.site2, 'vocab', 'cx.ttl'), 'utf8'),
+    readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8'),
+  );
   const page = readFileSync(path.join(d.site2, 'vocab', 'index.html'), 'utf8');
-  for (const m of readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8').matchAll(/^cx:(\w+) a /gm)) assert.ok(page.includes(`id="${m[1]}"`), m[1]);
+  for (const m of readFileSync(path.join(repoRoot, 'vocab-map', 'cx.ttl'), 'utf8').matchAll(/^cx:(\w+) a /gm))
+    assert.ok(page.includes(`id="${m[1]}"`), m[1]);
 });
 
 test('site CLI: prints where it wrote the site and how to serve it; --json; exit 2 for a folder that is not a release', () => {
@@ -157,7 +203,8 @@ test('site CLI: prints where it wrote the site and how to serve it; --json; exit
   const bad = spawnSync(process.execPath, [cli, 'site', tmp, '--out', path.join(tmp, 'x')], { encoding: 'utf8' });
   assert.equal(bad.status, 2);
   assert.match(bad.stderr, /not a release folder/);
-  void triplesBySubject; void statSync;
+  void triplesBySubject;
+  void statSync;
 });
 
 test('a link IRI from any earlier release resolves: release 3 no longer describes links gone in release 2, its site keeps them from the earlier sites', async () => {
@@ -165,13 +212,26 @@ test('a link IRI from any earlier release resolves: release 3 no longer describe
   const project = JSON.parse(readFileSync(path.join(repoRoot, 'demo-data', 'release-2', 'concordance.json'), 'utf8'));
   const dir = path.join(repoRoot, 'demo-data', 'release-2');
   const p3 = path.join(dir, '.release-3-test.json');
-  writeFileSync(p3, JSON.stringify({ ...project, previous: undefined, release: { ...project.release, version: '2028.1' } }));
+  writeFileSync(
+    p3,
+    JSON.stringify({ ...project, previous: undefined, release: { ...project.release, version: '2028.1' } }),
+  );
   const release3 = path.join(d.tmp, 'releases', '2028.1');
-  try { await build(p3, release3, { previous: d.release2 }); } finally { rmSync(p3) }
+  try {
+    await build(p3, release3, { previous: d.release2 });
+  } finally {
+    rmSync(p3);
+  }
   const site3 = path.join(d.tmp, 'site', '2028.1');
   await writeSite(release3, site3, { previous: d.site2 });
-  const linksOf = (release: string) => new Set([...readFileSync(path.join(release, 'concordance.nq'), 'utf8').matchAll(/^<(https:[^>]*\/link\/[0-9a-f]+)> /gm)].map((m) => m[1]));
-  const in1 = linksOf(d.release1), in3 = linksOf(release3);
+  const linksOf = (release: string) =>
+    new Set(
+      [
+        ...readFileSync(path.join(release, 'concordance.nq'), 'utf8').matchAll(/^<(https:[^>]*\/link\/[0-9a-f]+)> /gm),
+      ].map((m) => m[1]),
+    );
+  const in1 = linksOf(d.release1),
+    in3 = linksOf(release3);
   const gone = [...in1].filter((l) => !in3.has(l));
   assert.ok(gone.length > 0, 'the demo has links of release 1 that release 3 no longer describes');
   const origin = await start(site3);
@@ -180,24 +240,38 @@ test('a link IRI from any earlier release resolves: release 3 no longer describe
       const r = await fetch(origin + new URL(l).pathname, { headers: { accept } });
       assert.equal(r.status, 200, `${l} ${accept}`);
       const body = await r.text();
-      assert.ok(accept === 'text/html' ? body.includes(`id="link/${l.replace(/^.*\//, '')}"`) : body.includes(`<${l}> <http://www.w3.org/1999/02/22-rdf-syntax-ns#type>`), `${l} ${accept}`);
+      assert.ok(
+        accept === 'text/html'
+          ? body.includes(`id="link/${l.replace(/^.*\//, '')}"`)
+          : body.includes(`<${l}> <http://www.w3.org/1999/02/22-rdf-syntax-ns#type>`),
+        `${l} ${accept}`,
+      );
     }
   }
   // and the earlier releases' datasets and downloads are there too
-  for (const v of ['2026.1', '2027.1']) assert.equal((await fetch(`${origin}/dataset/${v}`, { headers: { accept: 'text/turtle' } })).status, 200, v);
+  for (const v of ['2026.1', '2027.1'])
+    assert.equal((await fetch(`${origin}/dataset/${v}`, { headers: { accept: 'text/turtle' } })).status, 200, v);
   assert.equal((await fetch(`${origin}/releases/2026.1/concordance.nq`)).status, 200);
 });
 
 test('cluster pages cite as `concordat cite <cluster IRI>` does: the plain-text citation is the same text', async () => {
   const d = await demoSitesOnce();
   const { cite, CITE_FORMATS } = await import('../src/cite/index.js');
-  const ids = readdirSync(path.join(d.site2, 'work')).filter((f) => /^c\d+\.html$/.test(f)).map((f) => f.slice(0, -5)).slice(0, 25);
+  const ids = readdirSync(path.join(d.site2, 'work'))
+    .filter((f) => /^c\d+\.html$/.test(f))
+    .map((f) => f.slice(0, -5))
+    .slice(0, 25);
   let compared = 0;
   for (const id of ids) {
     const page = readFileSync(path.join(d.site2, 'work', `${id}.html`), 'utf8');
     const m = /<pre id="cite-text"[^>]*>([^]*?)<\/pre>/.exec(page);
     if (!m) continue;
-    const shown = m[1].replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&#39;/g, "'").replace(/&amp;/g, '&');
+    const shown = m[1]
+      .replace(/&lt;/g, '<')
+      .replace(/&gt;/g, '>')
+      .replace(/&quot;/g, '"')
+      .replace(/&#39;/g, "'")
+      .replace(/&amp;/g, '&');
     const expected = await CITE_FORMATS.text(await cite(`${BASE}work/${id}`, { release: d.release2 }));
     assert.equal(shown, expected, id);
     compared++;

@@ -1,3 +1,5 @@
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
-test('smoke', () => { assert.equal(1 + 1, 2); });
+test('smoke', () => {
+  assert.equal(1 + 1, 2);
+});

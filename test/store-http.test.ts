@@ -1,4 +1,5 @@
-// Remote store HTTP behaviour against a local stub server: Basic auth, retries on 5xx and resets, none on 4xx, redaction.
+// Remote store HTTP behaviour against a local stub server: Basic auth, retries on 5xx and resets, none on 4xx,
+// redaction.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { createServer, type IncomingMessage, type ServerResponse } from 'node:http';
@@ -37,7 +38,10 @@ test('Basic auth (RFC 7617 §2) is used when the challenge names it', async () =
   const env = { CONCORDAT_STORE_USER: 'curator', CONCORDAT_STORE_PASSWORD: 'open sesame' };
   const expected = `Basic ${Buffer.from('curator:open sesame').toString('base64')}`;
   const seen = await withServer(
-    (req, res) => (req.headers.authorization === expected ? ok(res) : res.writeHead(401, { 'www-authenticate': 'Basic realm="store"' }).end()),
+    (req, res) =>
+      req.headers.authorization === expected
+        ? ok(res)
+        : res.writeHead(401, { 'www-authenticate': 'Basic realm="store"' }).end(),
     async (url) => assert.deepEqual(await store(url, env).query('ASK {}'), { kind: 'boolean', value: true }),
   );
   assert.equal(seen.at(-1), expected);
@@ -58,7 +62,11 @@ test('a 5xx answer and a reset connection are retried with backoff; the query th
 test('a 4xx answer is not retried and becomes a user error (400: exit 2)', async () => {
   const seen = await withServer(
     (_req, res) => res.writeHead(400).end('syntax error'),
-    async (url) => assert.rejects(store(url).query('ASK {}'), (e: unknown) => e instanceof UserError && e.exitCode === 2 && /HTTP 400/.test(e.message)),
+    async (url) =>
+      assert.rejects(
+        store(url).query('ASK {}'),
+        (e: unknown) => e instanceof UserError && e.exitCode === 2 && /HTTP 400/.test(e.message),
+      ),
   );
   assert.equal(seen.length, 1);
 });
@@ -68,12 +76,15 @@ test('retries are bounded, and the password never appears in the message even if
   const seen = await withServer(
     (_req, res) => res.writeHead(500).end(`internal error for password ${secret}`),
     async (url) =>
-      assert.rejects(store(url, { CONCORDAT_STORE_USER: 'u', CONCORDAT_STORE_PASSWORD: secret }).query('ASK {}'), (e: unknown) => {
-        assert.ok(e instanceof UserError && e.exitCode === 1);
-        assert.match(e.message, /HTTP 500/);
-        assert.ok(!e.message.includes(secret));
-        return true;
-      }),
+      assert.rejects(
+        store(url, { CONCORDAT_STORE_USER: 'u', CONCORDAT_STORE_PASSWORD: secret }).query('ASK {}'),
+        (e: unknown) => {
+          assert.ok(e instanceof UserError && e.exitCode === 1);
+          assert.match(e.message, /HTTP 500/);
+          assert.ok(!e.message.includes(secret));
+          return true;
+        },
+      ),
   );
   assert.equal(seen.length, 3, 'one try plus two retries');
 });
@@ -81,5 +92,8 @@ test('retries are bounded, and the password never appears in the message even if
 test('a URL carrying a password and half-set credentials are refused before any request', async () => {
   const { openStore } = await import('../src/store/open.js');
   await assert.rejects(openStore({ query: 'http://u:pw@127.0.0.1:1/sparql' }), /carries a password/);
-  assert.throws(() => store('http://127.0.0.1:1/sparql', { CONCORDAT_STORE_USER: 'u' }), /CONCORDAT_STORE_PASSWORD: is not set/);
+  assert.throws(
+    () => store('http://127.0.0.1:1/sparql', { CONCORDAT_STORE_USER: 'u' }),
+    /CONCORDAT_STORE_PASSWORD: is not set/,
+  );
 });

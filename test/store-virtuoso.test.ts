@@ -1,4 +1,5 @@
-// Remote store against a real Virtuoso (started by .ci/run): counts, same answers as the embedded store, atomic replace.
+// Remote store against a real Virtuoso (started by .ci/run): counts, same answers as the embedded store, atomic
+// replace.
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import { spawnSync } from 'node:child_process';
@@ -21,18 +22,33 @@ const URL_BASE = process.env.CONCORDAT_TEST_VIRTUOSO;
 const skip = requires(URL_BASE, 'set CONCORDAT_TEST_VIRTUOSO=http://127.0.0.1:28890 (a running Virtuoso, see .ci/run)');
 const CLI = fileURLToPath(new URL('../src/cli/main.js', import.meta.url));
 // Virtuoso's endpoints (GSP and Update behind HTTP Digest; Query anonymous), per the Virtuoso 7 documentation.
-const ENDPOINTS: Endpoints = URL_BASE ? { gsp: `${URL_BASE}/sparql-graph-crud-auth`, update: `${URL_BASE}/sparql-auth`, query: `${URL_BASE}/sparql` } : { query: '' };
-const ENV = { CONCORDAT_STORE_USER: process.env.CONCORDAT_TEST_VIRTUOSO_USER ?? 'dba', CONCORDAT_STORE_PASSWORD: process.env.CONCORDAT_TEST_VIRTUOSO_PASSWORD ?? 'dba' };
+const ENDPOINTS: Endpoints = URL_BASE
+  ? { gsp: `${URL_BASE}/sparql-graph-crud-auth`, update: `${URL_BASE}/sparql-auth`, query: `${URL_BASE}/sparql` }
+  : { query: '' };
+const ENV = {
+  CONCORDAT_STORE_USER: process.env.CONCORDAT_TEST_VIRTUOSO_USER ?? 'dba',
+  CONCORDAT_STORE_PASSWORD: process.env.CONCORDAT_TEST_VIRTUOSO_PASSWORD ?? 'dba',
+};
 
 const remote = (hooks?: RemoteHooks, chunkTriples?: number, endpoints = ENDPOINTS): RemoteStore =>
-  new RemoteStore(endpoints, { env: ENV, hooks, chunkTriples, retries: 1, backoffMs: 50, timeoutMs: 60_000, progress: false });
+  new RemoteStore(endpoints, {
+    env: ENV,
+    hooks,
+    chunkTriples,
+    retries: 1,
+    backoffMs: 50,
+    timeoutMs: 60_000,
+    progress: false,
+  });
 const scratchGraph = (): string => `${BASE}test/graph-${randomBytes(4).toString('hex')}`;
 const V1 = readFileSync(join(FIXTURE, 'concordance.nq'), 'utf8');
 
 /** A graph holding the fixture's provenance graph (blank nodes included), for the failure cases. */
 async function seeded(store: RemoteStore): Promise<{ graph: string; before: string[] }> {
   const graph = scratchGraph();
-  const prov = V1.split('\n').filter((l) => l.endsWith('<https://concordance.example.org/graph/provenance> .')).join('\n');
+  const prov = V1.split('\n')
+    .filter((l) => l.endsWith('<https://concordance.example.org/graph/provenance> .'))
+    .join('\n');
   await store.loadGraph(graph, { format: 'n-quads', text: prov, file: 'provenance.nq' });
   return { graph, before: await graphDump(store, graph) };
 }
@@ -77,9 +93,21 @@ test('replacing a graph with a second version leaves none of the old triples', {
 });
 
 const FAILURES: Array<[string, RemoteHooks, RegExp]> = [
-  ['a chunk the server refuses', { chunkBody: (i, body) => (i === 1 ? `${body}<urn:x:broken> this is not N-Triples\n` : body) }, /chunk 2 of 3 refused/],
-  ['a staging count that differs from the dump', { expectedTriples: (n) => n + 1 }, /staging graph holds \d+ triples, the file has \d+/],
-  ['a MOVE the server refuses', { moveUpdate: (u) => u.replace('MOVE SILENT GRAPH', 'MOVE SILENT GRAPHH') }, /update refused \(HTTP \d+\)/],
+  [
+    'a chunk the server refuses',
+    { chunkBody: (i, body) => (i === 1 ? `${body}<urn:x:broken> this is not N-Triples\n` : body) },
+    /chunk 2 of 3 refused/,
+  ],
+  [
+    'a staging count that differs from the dump',
+    { expectedTriples: (n) => n + 1 },
+    /staging graph holds \d+ triples, the file has \d+/,
+  ],
+  [
+    'a MOVE the server refuses',
+    { moveUpdate: (u) => u.replace('MOVE SILENT GRAPH', 'MOVE SILENT GRAPHH') },
+    /update refused \(HTTP \d+\)/,
+  ],
 ];
 for (const [label, hooks, message] of FAILURES) {
   test(`a load that fails with ${label} leaves the previous graph intact`, { skip }, async () => {
@@ -87,12 +115,15 @@ for (const [label, hooks, message] of FAILURES) {
     const { graph, before } = await seeded(store);
     const v2 = secondVersion();
     const failing = remote(hooks, 1); // one triple per chunk, so the load fails midway
-    await assert.rejects(failing.loadGraph(graph, { format: 'n-triples', text: v2.text, file: 'v2.nt' }), (e: unknown) => {
-      assert.ok(e instanceof UserError && e.exitCode === 1);
-      assert.match(e.message, message);
-      assert.match(e.message, /staging graph was dropped and <[^>]+> is unchanged/);
-      return true;
-    });
+    await assert.rejects(
+      failing.loadGraph(graph, { format: 'n-triples', text: v2.text, file: 'v2.nt' }),
+      (e: unknown) => {
+        assert.ok(e instanceof UserError && e.exitCode === 1);
+        assert.match(e.message, message);
+        assert.match(e.message, /staging graph was dropped and <[^>]+> is unchanged/);
+        return true;
+      },
+    );
     await assertUnchanged(store, graph, before);
   });
 }
@@ -101,14 +132,30 @@ test('uploads sent to a wrong Graph Store URL fail and leave the previous graph 
   const store = remote();
   const { graph, before } = await seeded(store);
   const wrong = remote(undefined, undefined, { ...ENDPOINTS, gsp: `${URL_BASE}/no-such-graph-store` });
-  await assert.rejects(wrong.loadGraph(graph, { format: 'n-triples', text: secondVersion().text, file: 'v2.nt' }), /refused \(HTTP 404\)/);
+  await assert.rejects(
+    wrong.loadGraph(graph, { format: 'n-triples', text: secondVersion().text, file: 'v2.nt' }),
+    /refused \(HTTP 404\)/,
+  );
   await assertUnchanged(store, graph, before);
 });
 
 test('wrong credentials: exit 1, a clear message, and the password appears nowhere', { skip }, () => {
   const secret = `pw-${randomBytes(8).toString('hex')}`;
-  const args = [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query-endpoint', ENDPOINTS.query];
-  const r = spawnSync(process.execPath, args, { encoding: 'utf8', env: { ...process.env, CONCORDAT_STORE_USER: 'dba', CONCORDAT_STORE_PASSWORD: secret, NETRC: '/nonexistent' } });
+  const args = [
+    CLI,
+    'load',
+    FIXTURE,
+    '--endpoint',
+    ENDPOINTS.gsp!,
+    '--update',
+    ENDPOINTS.update!,
+    '--query-endpoint',
+    ENDPOINTS.query,
+  ];
+  const r = spawnSync(process.execPath, args, {
+    encoding: 'utf8',
+    env: { ...process.env, CONCORDAT_STORE_USER: 'dba', CONCORDAT_STORE_PASSWORD: secret, NETRC: '/nonexistent' },
+  });
   assert.equal(r.status, 1, r.stderr);
   assert.match(r.stderr, /refused the credentials from CONCORDAT_STORE_USER\/CONCORDAT_STORE_PASSWORD \(HTTP 401\)/);
   assert.ok(!r.stdout.includes(secret) && !r.stderr.includes(secret));
@@ -118,17 +165,33 @@ test('no credentials at all: exit 1 and a hint naming the environment variables'
   const env: NodeJS.ProcessEnv = { ...process.env, NETRC: '/nonexistent', HOME: '/nonexistent' };
   delete env.CONCORDAT_STORE_USER;
   delete env.CONCORDAT_STORE_PASSWORD;
-  const r = spawnSync(process.execPath, [CLI, 'load', FIXTURE, '--endpoint', ENDPOINTS.gsp!, '--update', ENDPOINTS.update!, '--query-endpoint', ENDPOINTS.query], { encoding: 'utf8', env });
+  const r = spawnSync(
+    process.execPath,
+    [
+      CLI,
+      'load',
+      FIXTURE,
+      '--endpoint',
+      ENDPOINTS.gsp!,
+      '--update',
+      ENDPOINTS.update!,
+      '--query-endpoint',
+      ENDPOINTS.query,
+    ],
+    { encoding: 'utf8', env },
+  );
   assert.equal(r.status, 1);
   assert.match(r.stderr, /asks for credentials \(HTTP 401\).*CONCORDAT_STORE_USER/);
 });
 
 test('credentials from a netrc file matched by host', { skip }, async () => {
-  const { writeFileSync, mkdtempSync, rmSync } = await import('node:fs');
-  const { tmpdir } = await import('node:os');
+  const { writeFileSync, rmSync } = await import('node:fs');
   const dir = tempDir('concordat-netrc-');
   try {
-    writeFileSync(join(dir, 'netrc'), `machine elsewhere.example login x password y\nmachine ${new URL(URL_BASE!).hostname} login ${ENV.CONCORDAT_STORE_USER} password ${ENV.CONCORDAT_STORE_PASSWORD}\n`);
+    writeFileSync(
+      join(dir, 'netrc'),
+      `machine elsewhere.example login x password y\nmachine ${new URL(URL_BASE!).hostname} login ${ENV.CONCORDAT_STORE_USER} password ${ENV.CONCORDAT_STORE_PASSWORD}\n`,
+    );
     const store = new RemoteStore(ENDPOINTS, { env: { NETRC: join(dir, 'netrc') }, retries: 0, progress: false });
     const graph = scratchGraph();
     const loaded = await store.loadGraph(graph, { format: 'n-triples', text: secondVersion().text, file: 'v2.nt' });

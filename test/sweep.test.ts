@@ -15,18 +15,38 @@ test('sweepValues: inclusive range without floating-point drift; bad ranges are 
   assert.equal(v[13], 0.95);
   assert.equal(v[1], 0.35, 'not 0.35000000000000003');
   assert.deepEqual(sweepValues(0.5, 0.5, 0.1), [0.5]);
-  const bad: [number, number, number, string][] = [[0.5, 0.4, 0.1, '--from'], [-0.1, 0.5, 0.1, '--from'], [0.1, 1.5, 0.1, '--to'], [0.1, 0.5, 0, '--step'], [0.1, 0.5, NaN, '--step']];
+  const bad: [number, number, number, string][] = [
+    [0.5, 0.4, 0.1, '--from'],
+    [-0.1, 0.5, 0.1, '--from'],
+    [0.1, 1.5, 0.1, '--to'],
+    [0.1, 0.5, 0, '--step'],
+    [0.1, 0.5, NaN, '--step'],
+  ];
   for (const [from, to, step, field] of bad)
-    assert.throws(() => sweepValues(from, to, step), (e: unknown) => e instanceof UserError && e.problems[0].field === field, `${from} ${to} ${step}`);
+    assert.throws(
+      () => sweepValues(from, to, step),
+      (e: unknown) => e instanceof UserError && e.problems[0].field === field,
+      `${from} ${to} ${step}`,
+    );
 });
 
 test('sweep: precision, recall and F1 per proposeAt, worked by hand', () => {
   // gold: a:1–b:1, a:2–b:2, a:3–b:3. Evidence: a:1–b:1 0.9, a:2–b:2 0.6, a:3–b:3 0.4, a:1–b:2 0.7 (wrong), one
   // photograph each: confidence = score × 2/3 (src/link/confidence.ts): 0.6, 0.4, 0.267, 0.467
   const m = tinyModel({
-    partners: ['a', 'b'], works: ['a:1', 'a:2', 'a:3', 'b:1', 'b:2', 'b:3'],
-    matches: [['a:1', 'b:1', 0.9], ['a:2', 'b:2', 0.6], ['a:3', 'b:3', 0.4], ['a:1', 'b:2', 0.7]],
-    gold: [['a:1', 'b:1'], ['a:2', 'b:2'], ['a:3', 'b:3']],
+    partners: ['a', 'b'],
+    works: ['a:1', 'a:2', 'a:3', 'b:1', 'b:2', 'b:3'],
+    matches: [
+      ['a:1', 'b:1', 0.9],
+      ['a:2', 'b:2', 0.6],
+      ['a:3', 'b:3', 0.4],
+      ['a:1', 'b:2', 0.7],
+    ],
+    gold: [
+      ['a:1', 'b:1'],
+      ['a:2', 'b:2'],
+      ['a:3', 'b:3'],
+    ],
   });
   const rows = sweep(m, [0.2, 0.3, 0.45, 0.5, 0.65]);
   const got = rows.map((r) => [r.proposeAt, r.claimedPairs, r.found, r.precision, r.recall]);
@@ -51,7 +71,8 @@ test('sweep: precision, recall and F1 per proposeAt, worked by hand', () => {
   assert.throws(() => sweep(tinyModel({ partners: ['a'], works: ['a:1'] }), [0.5]), UserError);
 });
 
-const cli = (args: string[]) => spawnSync(process.execPath, [path.join(repoRoot, 'dist', 'src', 'cli', 'main.js'), ...args], { encoding: 'utf8' });
+const cli = (args: string[]) =>
+  spawnSync(process.execPath, [path.join(repoRoot, 'dist', 'src', 'cli', 'main.js'), ...args], { encoding: 'utf8' });
 
 test('concordat sweep prints a table or JSON; exit 2 without gold or with a bad range', () => {
   const project = path.join(fixtureCopy('load/base'), 'concordance.json');
@@ -64,11 +85,17 @@ test('concordat sweep prints a table or JSON; exit 2 without gold or with a bad 
   const j = cli(['sweep', project, '--from', '0.4', '--to', '0.6', '--step', '0.1', '--json']);
   assert.equal(j.status, 0);
   const rows = JSON.parse(j.stdout);
-  assert.deepEqual(rows.map((x: { proposeAt: number }) => x.proposeAt), [0.4, 0.5, 0.6]);
+  assert.deepEqual(
+    rows.map((x: { proposeAt: number }) => x.proposeAt),
+    [0.4, 0.5, 0.6],
+  );
   // the fixture's gold pair alpha:A 1–beta:B1 is confirmed by a curator: found at every threshold
   assert.ok(rows.every((x: { found: number }) => x.found >= 1));
 
-  const noGold = path.join(fixtureCopy('load/base', { 'concordance.json': json((o) => delete o.gold) }), 'concordance.json');
+  const noGold = path.join(
+    fixtureCopy('load/base', { 'concordance.json': json((o) => delete o.gold) }),
+    'concordance.json',
+  );
   const g = cli(['sweep', noGold]);
   assert.equal(g.status, 2);
   assert.match(g.stderr, /gold: the project has no gold concordance pairs/);

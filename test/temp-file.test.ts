@@ -9,7 +9,10 @@ import { tempDir } from './helpers/fixture.js';
 const tmp = tempDir('concordat-temp-file-');
 after(() => rmSync(tmp, { recursive: true, force: true }));
 
-for (const [name, write] of [['sync', writeFileAtomically], ['async', writeFileAtomicallyAsync]] as const) {
+for (const [name, write] of [
+  ['sync', writeFileAtomically],
+  ['async', writeFileAtomicallyAsync],
+] as const) {
   test(`writeFileAtomically (${name}) replaces a file and leaves only the target`, async () => {
     const dir = path.join(tmp, `replace-${name}`);
     mkdirSync(dir);

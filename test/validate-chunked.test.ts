@@ -18,7 +18,9 @@ const { namedNode, literal, quad, blankNode } = N3.DataFactory;
 const d = (local: string) => namedNode(`https://concordance.example.org/${local}`);
 const cx = (local: string) => namedNode(iri('cx', local));
 
-/** One link with its image match; every 7th has a score above 1, every 11th lacks evidence, every 13th a blank focus. */
+/**
+ * One link with its image match; every 7th has a score above 1, every 11th lacks evidence, every 13th a blank focus.
+ */
 function linkChunk(i: number): N3.Quad[] {
   const link = i % 13 === 0 ? blankNode(`link${i}`) : d(`link-${i}`);
   const score = i % 7 === 0 ? '1.5' : '0.9';
@@ -29,7 +31,11 @@ function linkChunk(i: number): N3.Quad[] {
     quad(link, cx('relation'), namedNode(iri('owl', 'sameAs'))),
     quad(link, cx('score'), literal(score, namedNode(iri('xsd', 'decimal')))),
   ];
-  if (i % 11 !== 0) out.push(quad(link, namedNode(iri('prov', 'wasDerivedFrom')), d(`match-${i}`)), quad(d(`match-${i}`), namedNode(iri('rdf', 'type')), cx('ImageMatch')));
+  if (i % 11 !== 0)
+    out.push(
+      quad(link, namedNode(iri('prov', 'wasDerivedFrom')), d(`match-${i}`)),
+      quad(d(`match-${i}`), namedNode(iri('rdf', 'type')), cx('ImageMatch')),
+    );
   return out;
 }
 
@@ -76,7 +82,11 @@ test('the merged report is written as the same Turtle bytes each time', async ()
 });
 
 test('a shapes failure inside a worker surfaces as a user error', async () => {
-  const bad = [...shapes, quad(d('BadShape'), namedNode(iri('sh', 'targetClass')), cx('Link')), quad(d('BadShape'), namedNode(iri('sh', 'sparql')), d('query'))];
+  const bad = [
+    ...shapes,
+    quad(d('BadShape'), namedNode(iri('sh', 'targetClass')), cx('Link')),
+    quad(d('BadShape'), namedNode(iri('sh', 'sparql')), d('query')),
+  ];
   // Both engines implement SHACL Core only, so an sh:sparql constraint (SHACL §5) cannot be checked.
   const run = async (engine: BoundedOptions['engine']) => {
     const v = new BoundedValidation(bad, { inMemoryUpTo: 0, buckets: 16, workers: 2, batchTriples: 300, engine });

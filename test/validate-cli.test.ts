@@ -32,15 +32,24 @@ test('a violating file exits 1 and lists focus node, path and message of each re
   const r = run('violating.ttl', '--shapes', 'shapes');
   assert.equal(r.code, 1);
   assert.match(r.stdout, /^Does not conform: 2 violations, 0 warnings, 0 infos\.$/m);
-  assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-2> cx:objectWork: a link names exactly one object work$/m);
-  assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-2> cx:score: score: one decimal in \[0,1\] \(value "1\.5"\^\^xsd:decimal\)$/m);
+  assert.match(
+    r.stdout,
+    /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-2> cx:objectWork: a link names exactly one object work$/m,
+  );
+  assert.match(
+    r.stdout,
+    /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-2> cx:score: score: one decimal in \[0,1\] \(value "1\.5"\^\^xsd:decimal\)$/m,
+  );
 });
 
 test('warnings alone do not fail the run', () => {
   const r = run('warning-only.ttl', '--shapes', 'shapes');
   assert.equal(r.code, 0);
   assert.match(r.stdout, /^Conforms: 0 violations, 1 warning, 0 infos\.$/m);
-  assert.match(r.stdout, /^ {2}Warning: <https:\/\/concordance\.example\.org\/link-3> prov:wasDerivedFrom: a link should cite/m);
+  assert.match(
+    r.stdout,
+    /^ {2}Warning: <https:\/\/concordance\.example\.org\/link-3> prov:wasDerivedFrom: a link should cite/m,
+  );
 });
 
 test('an unparsable file exits 2 naming file and line', () => {
@@ -59,14 +68,20 @@ test('a missing data file exits 2', () => {
 test('JSON-LD input is validated like Turtle', () => {
   const r = run('link.jsonld', '--shapes', 'shapes');
   assert.equal(r.code, 1);
-  assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-5> cx:score: score: one decimal in \[0,1\] \(value "1\.20"\^\^xsd:decimal\)$/m);
+  assert.match(
+    r.stdout,
+    /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-5> cx:score: score: one decimal in \[0,1\] \(value "1\.20"\^\^xsd:decimal\)$/m,
+  );
 });
 
 test('named graphs of TriG and N-Quads input are validated as one data graph', () => {
   const r = run('graphs.trig', 'link.nq', '--shapes', 'shapes');
   assert.equal(r.code, 1);
   assert.match(r.stdout, /^Does not conform: 1 violation, 1 warning, 0 infos\.$/m);
-  assert.match(r.stdout, /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-7> cx:subjectWork: a link names exactly one subject work \(value "not an IRI"\)$/m);
+  assert.match(
+    r.stdout,
+    /^ {2}Violation: <https:\/\/concordance\.example\.org\/link-7> cx:subjectWork: a link names exactly one subject work \(value "not an IRI"\)$/m,
+  );
   assert.match(r.stdout, /^ {2}Warning: <https:\/\/concordance\.example\.org\/link-6> prov:wasDerivedFrom: /m);
 });
 
@@ -83,8 +98,14 @@ test('--json prints counts and results as JSON', () => {
   const out = JSON.parse(r.stdout);
   assert.equal(out.conforms, false);
   assert.equal(out.violations, 2);
-  assert.deepEqual(out.results.map((x: { path: string }) => x.path), [`<${iri('cx', 'objectWork')}>`, `<${iri('cx', 'score')}>`]);
-  assert.deepEqual(out.results.map((x: { component: string }) => x.component), [iri('sh', 'MinCountConstraintComponent'), iri('sh', 'MaxInclusiveConstraintComponent')]);
+  assert.deepEqual(
+    out.results.map((x: { path: string }) => x.path),
+    [`<${iri('cx', 'objectWork')}>`, `<${iri('cx', 'score')}>`],
+  );
+  assert.deepEqual(
+    out.results.map((x: { component: string }) => x.component),
+    [iri('sh', 'MinCountConstraintComponent'), iri('sh', 'MaxInclusiveConstraintComponent')],
+  );
 });
 
 test('--report writes the same Turtle report bytes on every run', async () => {
@@ -108,12 +129,23 @@ test('a shapes folder without .ttl files exits 2 with a clear message', () => {
   assert.match(r.stderr, /the shapes folder has no \.ttl file/);
 });
 
-
 test('--shacl-engine rdf-validate-shacl writes the same report bytes as the built-in engine', () => {
   const builtin = join(tmp, 'builtin.ttl');
   const reference = join(tmp, 'reference.ttl');
   assert.equal(run('violating.ttl', 'warning-only.ttl', '--shapes', 'shapes', '--report', builtin).code, 1);
-  assert.equal(run('violating.ttl', 'warning-only.ttl', '--shapes', 'shapes', '--report', reference, '--shacl-engine', 'rdf-validate-shacl').code, 1);
+  assert.equal(
+    run(
+      'violating.ttl',
+      'warning-only.ttl',
+      '--shapes',
+      'shapes',
+      '--report',
+      reference,
+      '--shacl-engine',
+      'rdf-validate-shacl',
+    ).code,
+    1,
+  );
   assert.equal(readFileSync(reference, 'utf8'), readFileSync(builtin, 'utf8'));
   const bad = run('violating.ttl', '--shapes', 'shapes', '--shacl-engine', 'fastest');
   assert.equal(bad.code, 2, 'a usage error');
@@ -123,12 +155,15 @@ test('--shacl-engine rdf-validate-shacl writes the same report bytes as the buil
 test('a JSON-LD document above the bounded-memory limit is refused naming the limit and what to do instead', async () => {
   const { streamDataFiles } = await import('../src/validate/files.js');
   let quads = 0;
-  await assert.rejects(streamDataFiles([join(fixtures, 'link.jsonld')], () => quads++, 100), (err: Error & { problems: Array<{ file: string; hint: string }> }) => {
-    assert.match(err.message, /JSON-LD document is read whole.*above the 0\.0 MiB/);
-    assert.match(err.problems[0].hint, /N-Quads/);
-    assert.equal(err.problems[0].file, join(fixtures, 'link.jsonld'));
-    return true;
-  });
+  await assert.rejects(
+    streamDataFiles([join(fixtures, 'link.jsonld')], () => quads++, 100),
+    (err: Error & { problems: Array<{ file: string; hint: string }> }) => {
+      assert.match(err.message, /JSON-LD document is read whole.*above the 0\.0 MiB/);
+      assert.match(err.problems[0].hint, /N-Quads/);
+      assert.equal(err.problems[0].file, join(fixtures, 'link.jsonld'));
+      return true;
+    },
+  );
   assert.equal(quads, 0);
   await streamDataFiles([join(fixtures, 'link.jsonld')], () => quads++);
   assert.ok(quads > 0);

@@ -27,11 +27,27 @@ const shapes = (await loadShapesFolder(path.join(repoRoot, 'shapes'))).quads;
 
 /** Replacement objects: wrong datatypes, ill-formed and out-of-range literals, other node kinds. */
 const POOL: N3.Quad_Object[] = [
-  literal('abc'), literal('abc', 'en'), literal('1.5', xsd('decimal')), literal('-1', xsd('integer')), literal('0', xsd('integer')),
-  literal('x', xsd('integer')), literal('0.5', xsd('double')), literal('2020-13-01', xsd('date')), literal('2020-02-30T00:00:00', xsd('dateTime')),
-  literal('2026-01-01T10:00:00Z', xsd('dateTime')), literal('true', xsd('boolean')), literal('same'), literal('conflict'),
-  namedNode(iri('owl', 'sameAs')), namedNode(iri('cx', 'Same')), namedNode(iri('cx', 'Confirmed')), namedNode('https://example.org/elsewhere'),
-  blankNode('stray'), namedNode(iri('cx', 'ImageMatch')), namedNode(iri('prov', 'Person')), namedNode(iri('cx', 'Link')),
+  literal('abc'),
+  literal('abc', 'en'),
+  literal('1.5', xsd('decimal')),
+  literal('-1', xsd('integer')),
+  literal('0', xsd('integer')),
+  literal('x', xsd('integer')),
+  literal('0.5', xsd('double')),
+  literal('2020-13-01', xsd('date')),
+  literal('2020-02-30T00:00:00', xsd('dateTime')),
+  literal('2026-01-01T10:00:00Z', xsd('dateTime')),
+  literal('true', xsd('boolean')),
+  literal('same'),
+  literal('conflict'),
+  namedNode(iri('owl', 'sameAs')),
+  namedNode(iri('cx', 'Same')),
+  namedNode(iri('cx', 'Confirmed')),
+  namedNode('https://example.org/elsewhere'),
+  blankNode('stray'),
+  namedNode(iri('cx', 'ImageMatch')),
+  namedNode(iri('prov', 'Person')),
+  namedNode(iri('cx', 'Link')),
 ];
 
 type Damage = { kind: 'drop' | 'replace' | 'add'; at: number; pick: number };
@@ -49,16 +65,24 @@ function damaged(damages: Damage[]): N3.Quad[] {
   return out;
 }
 
-const rowsBy = async (quads: N3.Quad[], engine: 'builtin' | 'rdf-validate-shacl') => (await validate(quads, shapes, { engine })).results;
+const rowsBy = async (quads: N3.Quad[], engine: 'builtin' | 'rdf-validate-shacl') =>
+  (await validate(quads, shapes, { engine })).results;
 
 test('the undamaged demo release: both engines agree, and it conforms', async () => {
   const builtin = await rowsBy(data, 'builtin');
   assert.deepEqual(builtin, await rowsBy(data, 'rdf-validate-shacl'));
-  assert.ok(builtin.every((r) => r.severity !== iri('sh', 'Violation')), JSON.stringify(builtin.slice(0, 2)));
+  assert.ok(
+    builtin.every((r) => r.severity !== iri('sh', 'Violation')),
+    JSON.stringify(builtin.slice(0, 2)),
+  );
 });
 
 test('damaged releases: the built-in engine gives the same result rows as rdf-validate-shacl', async () => {
-  const damage = fc.record({ kind: fc.constantFrom<Damage['kind']>('drop', 'replace', 'add'), at: fc.nat(), pick: fc.nat() });
+  const damage = fc.record({
+    kind: fc.constantFrom<Damage['kind']>('drop', 'replace', 'add'),
+    at: fc.nat(),
+    pick: fc.nat(),
+  });
   let violations = 0;
   await fc.assert(
     fc.asyncProperty(fc.array(damage, { minLength: 1, maxLength: 12 }), async (damages) => {
@@ -73,7 +97,11 @@ test('damaged releases: the built-in engine gives the same result rows as rdf-va
 });
 
 test('the built-in engine reads the same rows from term ids as from quads', async () => {
-  const quads = damaged([{ kind: 'replace', at: 17, pick: 5 }, { kind: 'add', at: 400, pick: 1 }, { kind: 'drop', at: 90, pick: 0 }]);
+  const quads = damaged([
+    { kind: 'replace', at: 17, pick: 5 },
+    { kind: 'add', at: 400, pick: 1 },
+    { kind: 'drop', at: 90, pick: 0 },
+  ]);
   const compiled = compileShapes(shapes);
   const ids = quads.flatMap((q) => [q.subject, q.predicate, q.object, q.graph].map((t) => N3.termToId(t)));
   assert.deepEqual(await compiled.rowsOfIds(ids), await compiled.rows(quads));
@@ -83,13 +111,21 @@ test('the built-in engine reads the same rows from term ids as from quads', asyn
 test('a shapes graph with SHACL-SPARQL is refused by both engines, by the built-in one naming the shape', async () => {
   const sparqlShapes = new N3.Parser().parse(`@prefix sh: <http://www.w3.org/ns/shacl#> .
 <urn:x:S> a sh:NodeShape ; sh:targetNode <urn:x:n> ; sh:sparql [ sh:select "SELECT $this WHERE { }" ] .`);
-  assert.throws(() => compileShapes(sparqlShapes, { shapesLabel: 'extra.ttl' }), (err: Error & { problems?: Array<{ file: string; field: string; hint: string }> }) => {
-    assert.match(err.message, /sh:sparql/);
-    assert.equal(err.problems?.[0].file, 'extra.ttl');
-    assert.equal(err.problems?.[0].field, 'urn:x:S');
-    assert.match(err.problems![0].hint, /SHACL core/);
-    return true;
-  });
+  assert.throws(
+    () => compileShapes(sparqlShapes, { shapesLabel: 'extra.ttl' }),
+    (err: Error & { problems?: Array<{ file: string; field: string; hint: string }> }) => {
+      assert.match(err.message, /sh:sparql/);
+      assert.equal(err.problems?.[0].file, 'extra.ttl');
+      assert.equal(err.problems?.[0].field, 'urn:x:S');
+      assert.match(err.problems![0].hint, /SHACL core/);
+      return true;
+    },
+  );
   // rdf-validate-shacl has no SHACL-SPARQL validator either: it fails when it meets the component
-  await assert.rejects(validate([quad(namedNode('urn:x:n'), namedNode('urn:x:p'), literal('v'))], sparqlShapes, { engine: 'rdf-validate-shacl' }), /SPARQLConstraintComponent/);
+  await assert.rejects(
+    validate([quad(namedNode('urn:x:n'), namedNode('urn:x:p'), literal('v'))], sparqlShapes, {
+      engine: 'rdf-validate-shacl',
+    }),
+    /SPARQLConstraintComponent/,
+  );
 });

@@ -13,11 +13,16 @@ import { tempDir } from './helpers/fixture.js';
 const parse = (ttl: string): Quad[] => new N3.Parser().parse(ttl);
 const PREFIXES = '@prefix sh: <http://www.w3.org/ns/shacl#> . @prefix ex: <http://example.org/> . ';
 /** Every ex:Person needs an ex:name (SHACL §4.2.1 sh:minCount). */
-const shapes = parse(PREFIXES + 'ex:PersonShape a sh:NodeShape ; sh:targetClass ex:Person ; sh:property [ sh:path ex:name ; sh:minCount 1 ] .');
+const shapes = parse(
+  PREFIXES +
+    'ex:PersonShape a sh:NodeShape ; sh:targetClass ex:Person ; sh:property [ sh:path ex:name ; sh:minCount 1 ] .',
+);
 
 function units(n: number): Unit[] {
   return Array.from({ length: n }, (_, i) => ({
-    kind: 'cluster' as const, id: `c${i}`, partners: 'all' as const,
+    kind: 'cluster' as const,
+    id: `c${i}`,
+    partners: 'all' as const,
     quads: parse(PREFIXES + `ex:p${i} a ex:Person${i % 3 === 0 ? '' : ` ; ex:name "p${i}"`} .`),
   }));
 }
@@ -32,11 +37,25 @@ for (const workers of [0, 2]) {
   test(`units pass in order and the outcome equals validating their triples as one graph (${workers} workers)`, async () => {
     const us = units(12);
     const gate = shaclGate(shapes, { workers, batchTriples: 5, inMemoryUpTo: 0, buckets: 8 });
-    assert.deepEqual(await readAll(gate.pass(us)), us.map((u) => u.id));
+    assert.deepEqual(
+      await readAll(gate.pass(us)),
+      us.map((u) => u.id),
+    );
     const outcome = await gate.outcome();
     assert.equal(outcome.conforms, false);
-    assert.deepEqual(outcome.results.map((r) => r.focusNode), ['http://example.org/p0', 'http://example.org/p3', 'http://example.org/p6', 'http://example.org/p9']);
-    assert.deepEqual(outcome.results, (await validate(us.flatMap((u) => u.quads), shapes)).results);
+    assert.deepEqual(
+      outcome.results.map((r) => r.focusNode),
+      ['http://example.org/p0', 'http://example.org/p3', 'http://example.org/p6', 'http://example.org/p9'],
+    );
+    assert.deepEqual(
+      outcome.results,
+      (
+        await validate(
+          us.flatMap((u) => u.quads),
+          shapes,
+        )
+      ).results,
+    );
   });
 }
 
@@ -48,7 +67,9 @@ test('validate: false passes every unit and gives an empty, conforming outcome',
 });
 
 test('shapes the engine refuses fail when the gate is made, before any unit passes', () => {
-  const refused = parse(PREFIXES + 'ex:S a sh:NodeShape ; sh:targetClass ex:Person ; sh:sparql [ sh:select "SELECT $this WHERE {}" ] .');
+  const refused = parse(
+    PREFIXES + 'ex:S a sh:NodeShape ; sh:targetClass ex:Person ; sh:sparql [ sh:select "SELECT $this WHERE {}" ] .',
+  );
   assert.throws(() => shaclGate(refused, { workers: 0 }), /sparql/i);
 });
 

@@ -49,7 +49,8 @@ function foldLanguage(quads: N3.Quad[]): N3.Quad[] {
 
 function list(store: N3.Store, head: N3.Term): N3.Term[] {
   const out: N3.Term[] = [];
-  for (let n = head; n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0]) out.push(store.getObjects(n, iri('rdf', 'first'), null)[0]);
+  for (let n = head; n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0])
+    out.push(store.getObjects(n, iri('rdf', 'first'), null)[0]);
   return out;
 }
 
@@ -68,7 +69,10 @@ async function roundTrip(quads: N3.Quad[], formats: RdfFormat[], expected: N3.Qu
 
 for (const suite of SUITES) {
   const manifestPath = join(rdf11, suite.folder, 'manifest.ttl');
-  const absent = reference(existsSync(manifestPath), `W3C RDF test suite not present at ../shared/reference/rdf-tests/rdf/rdf11/${suite.folder}`);
+  const absent = reference(
+    existsSync(manifestPath),
+    `W3C RDF test suite not present at ../shared/reference/rdf-tests/rdf/rdf11/${suite.folder}`,
+  );
   if (absent) {
     test(`${suite.folder} suite`, { skip: absent }, () => {});
     continue;
@@ -81,7 +85,10 @@ for (const suite of SUITES) {
 
   // Counts: shared/reference/README.md §2 (w3c/rdf-tests @ ad541a5f): 313 Turtle, 70 N-Triples, 87 N-Quads entries.
   test(`${suite.folder} manifest entries`, () => {
-    assert.equal(entries.length, ({ 'rdf-turtle': 313, 'rdf-n-triples': 70, 'rdf-n-quads': 87 } as Record<string, number>)[suite.folder]);
+    assert.equal(
+      entries.length,
+      ({ 'rdf-turtle': 313, 'rdf-n-triples': 70, 'rdf-n-quads': 87 } as Record<string, number>)[suite.folder],
+    );
   });
 
   for (const entry of entries) {

@@ -1,5 +1,6 @@
 // W3C SHACL core test suite (w3c/data-shapes, data-shapes-test-suite/tests/core) → one test per manifest entry,
-// run through both engines of src/validate/shacl.ts by the manifest runner in test/helpers/shacl-manifest.ts (comparison rules: the
+// run through both engines of src/validate/shacl.ts by the manifest runner in test/helpers/shacl-manifest.ts
+// (comparison rules: the
 // suite's own document, data-shapes-test-suite/index.html, "Validation Reports" / compliance levels).
 import { test } from 'node:test';
 import assert from 'node:assert/strict';
@@ -29,6 +30,7 @@ test('the core manifest reaches 98 test files', { skip: absent }, () => {
 for (const engine of SHACL_ENGINES) {
   for (const fileUrl of files) {
     const name = fileUrl.slice(pathToFileURL(suite).href.length + 1).replace(/\.ttl$/, '');
-    for (const c of await manifestCases(fileUrl, engine)) test(`SHACL ${name} (${engine})`, { skip: SKIP[name] ?? false }, () => c.run());
+    for (const c of await manifestCases(fileUrl, engine))
+      test(`SHACL ${name} (${engine})`, { skip: SKIP[name] ?? false }, () => c.run());
   }
 }

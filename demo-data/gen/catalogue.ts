@@ -7,13 +7,15 @@ import type { Rng } from './rng.js';
 const PHOTOGRAPHERS: Record<PartnerKey, readonly string[]> = {
   vellmar: ['H. Orrin', 'M. Castellane', 'J. Pell', 'R. Dunmore', 'A. Quist', ''],
   kessling: ['E. Rathgeb', 'L. Vosskamp', 'W. Ehrlich', 'B. Sänger', 'unbekannt', ''],
-  fontclaire: [''], brindle: [''],
+  fontclaire: [''],
+  brindle: [''],
 };
 const LOCATIONS = ['Schrank 3, Fach 12', 'Schrank 4, Fach 2', 'Mappe 17', 'Glasplattenarchiv', 'Mappe 9'];
 const REMARKS: Record<PartnerKey, readonly string[]> = {
   fontclaire: ['', '', '', 'négatif verre', 'tirage ancien, contrecollé', 'voir dossier'],
   brindle: ['', '', '', 'colour slide, scanned', 'from the 1962 survey'],
-  vellmar: [''], kessling: [''],
+  vellmar: [''],
+  kessling: [''],
 };
 
 /** The cell value of one field for one photograph of a record. */
@@ -37,7 +39,10 @@ function ordered(partner: PartnerKey, recs: readonly Rec[], rng: Rng): [Rec, num
   const rows = recs.flatMap((r) => r.images.map((_, i) => [r, i] as [Rec, number]));
   const num = (s: string) => Number(s.replace(/\D+/g, ' ').trim().split(' ').join('.'));
   const table: Record<'work' | 'image' | 'shuffled', () => [Rec, number][]> = {
-    work: () => rows.sort(([a, i], [b, j]) => num(a.work) - num(b.work) || (a.work < b.work ? -1 : a.work > b.work ? 1 : 0) || i - j),
+    work: () =>
+      rows.sort(
+        ([a, i], [b, j]) => num(a.work) - num(b.work) || (a.work < b.work ? -1 : a.work > b.work ? 1 : 0) || i - j,
+      ),
     image: () => rows.sort(([a, i], [b, j]) => num(a.images[i].id) - num(b.images[j].id)),
     shuffled: () => rng.shuffle(recs).flatMap((r) => r.images.map((_, i) => [r, i] as [Rec, number])),
   };
@@ -52,5 +57,9 @@ export function catalogueText(partner: PartnerKey, recs: readonly Rec[], rng: Rn
   if (spec.format.delimiter === '\t' && rows.some((row) => row.some((v) => /[\t\n\r"]/.test(v)))) {
     throw new Error(`${partner}: a TSV cell would need quoting`);
   }
-  return delimited(spec.columns.map(([h]) => h), rows, spec.format);
+  return delimited(
+    spec.columns.map(([h]) => h),
+    rows,
+    spec.format,
+  );
 }

@@ -6,8 +6,15 @@ export type Convention = 'ordinal' | 'iso' | 'unknown';
 
 /** The written forms partners use; every rendering of year y is an interval that contains y. */
 export type DateStyle =
-  | 'year' | 'ca' | 'range' | 'century' | 'century-abbr' | 'late-century'
-  | 'edtf-decade' | 'edtf-approx' | 'edtf-interval';
+  | 'year'
+  | 'ca'
+  | 'range'
+  | 'century'
+  | 'century-abbr'
+  | 'late-century'
+  | 'edtf-decade'
+  | 'edtf-approx'
+  | 'edtf-interval';
 
 /** English ordinal: 15 → "15th", 21 → "21st". */
 export function ordinal(n: number): string {
@@ -33,8 +40,8 @@ const RENDER: Record<DateStyle, (y: number, c: Convention) => string | null> = {
   century: (y, c) => `${ordinal(centuryOf(y, c))} century`,
   'century-abbr': (y, c) => `${ordinal(centuryOf(y, c))} c.`,
   // "late" is only written where nobody would argue: the last quarter of the century
-  'late-century': (y, c) => (positionInCentury(y, c) >= 75 && positionInCentury(y, c) <= 97
-    ? `late ${ordinal(centuryOf(y, c))} century` : null),
+  'late-century': (y, c) =>
+    positionInCentury(y, c) >= 75 && positionInCentury(y, c) <= 97 ? `late ${ordinal(centuryOf(y, c))} century` : null,
   'edtf-decade': (y) => `${Math.floor(y / 10)}X`,
   'edtf-approx': (y) => `${y}~`,
   'edtf-interval': (y) => `${y - 10}/${y + 10}`,
@@ -42,9 +49,19 @@ const RENDER: Record<DateStyle, (y: number, c: Convention) => string | null> = {
 
 /** Roman numeral for a century number (French catalogues write XVe siècle). */
 export function roman(n: number): string {
-  const parts: [number, string][] = [[10, 'X'], [9, 'IX'], [5, 'V'], [4, 'IV'], [1, 'I']];
+  const parts: [number, string][] = [
+    [10, 'X'],
+    [9, 'IX'],
+    [5, 'V'],
+    [4, 'IV'],
+    [1, 'I'],
+  ];
   let out = '';
-  for (const [v, r] of parts) while (n >= v) { out += r; n -= v; }
+  for (const [v, r] of parts)
+    while (n >= v) {
+      out += r;
+      n -= v;
+    }
   return out;
 }
 
@@ -66,7 +83,8 @@ const IN_LANGUAGE: Partial<Record<Lang, Partial<Record<DateStyle, (y: number, c:
     range: (y) => `entre ${y - 10} et ${y + 10}`,
     century: (y, c) => `${roman(centuryOf(y, c))}e siècle`,
     'century-abbr': (y, c) => `${roman(centuryOf(y, c))}e s.`,
-    'late-century': (y, c) => (RENDER['late-century'](y, c) === null ? null : `fin du ${roman(centuryOf(y, c))}e siècle`),
+    'late-century': (y, c) =>
+      RENDER['late-century'](y, c) === null ? null : `fin du ${roman(centuryOf(y, c))}e siècle`,
   },
 };
 

@@ -27,11 +27,24 @@ export function matchesFor(pair: PairSpec, rng: Rng, kind: PairKind = pair.kind,
   const range = RANGES[kind];
   return pair.imagePairs.map(([i, j], n) => {
     const old = previous?.[n];
-    const score = within(old && kind === pair.kind ? old.score + rng.real(-0.03, 0.03) : rng.real(...range.score), range.score, 3);
-    const overlap = old ? old.overlap : rng.chance(range.blank) ? null : within(rng.real(...range.overlap), range.overlap, 2);
+    const score = within(
+      old && kind === pair.kind ? old.score + rng.real(-0.03, 0.03) : rng.real(...range.score),
+      range.score,
+      3,
+    );
+    const overlap = old
+      ? old.overlap
+      : rng.chance(range.blank)
+        ? null
+        : within(rng.real(...range.overlap), range.overlap, 2);
     // the matcher writes the detail photo of a partial match as image_a (the input contract): parts never swap
     const swap = rng.chance(0.5) && kind !== 'part' && kind !== 'small-part';
-    return { a: imageRef(swap ? pair.b : pair.a, swap ? j : i), b: imageRef(swap ? pair.a : pair.b, swap ? i : j), score, overlap };
+    return {
+      a: imageRef(swap ? pair.b : pair.a, swap ? j : i),
+      b: imageRef(swap ? pair.a : pair.b, swap ? i : j),
+      score,
+      overlap,
+    };
   });
 }
 
@@ -46,12 +59,14 @@ export function noise(recs: readonly Rec[], count: number, rng: Rng, taken: Read
   const out: Match[] = [];
   const seen = new Set(taken);
   while (out.length < count) {
-    const a = rng.pick(recs), b = rng.pick(recs);
+    const a = rng.pick(recs),
+      b = rng.pick(recs);
     const key = [a.partner + ':' + a.work, b.partner + ':' + b.work].sort().join('|');
     if (a === b || !unrelated(a, b) || seen.has(key)) continue;
     seen.add(key);
     out.push({
-      a: imageRef(a, rng.int(0, a.images.length - 1)), b: imageRef(b, rng.int(0, b.images.length - 1)),
+      a: imageRef(a, rng.int(0, a.images.length - 1)),
+      b: imageRef(b, rng.int(0, b.images.length - 1)),
       score: within(rng.real(0.05, 0.45), [0.05, 0.45], 3),
       overlap: rng.chance(0.2) ? null : within(rng.real(0.05, 1), [0.05, 1], 2),
     });
@@ -66,6 +81,8 @@ export function pairKeys(pairs: readonly PairSpec[]): Set<string> {
 
 /** The evidence file: header, rows in the run's (shuffled) output order. */
 export function evidenceText(matches: readonly Match[], rng: Rng): string {
-  const rows = rng.shuffle(matches).map((m) => [m.a, m.b, m.score.toFixed(3), m.overlap === null ? '' : m.overlap.toFixed(2)]);
+  const rows = rng
+    .shuffle(matches)
+    .map((m) => [m.a, m.b, m.score.toFixed(3), m.overlap === null ? '' : m.overlap.toFixed(2)]);
   return delimited(['image_a', 'image_b', 'score', 'overlap'], rows, PLAIN_CSV);
 }

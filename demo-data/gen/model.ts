@@ -41,10 +41,13 @@ export interface Rec {
 
 /** Kinds of matched work pairs the matcher run reports. */
 export type PairKind =
-  | 'same' | 'weak' | 'bridge' | 'false-bridge' | 'part' | 'small-part' | 'replica' | 'duplicate' | 'fading' | 'faded';
+  'same' | 'weak' | 'bridge' | 'false-bridge' | 'part' | 'small-part' | 'replica' | 'duplicate' | 'fading' | 'faded';
 
 /** Score and overlap ranges per kind, and the share of rows with a blank overlap (blank = 1). */
-export const RANGES: Record<PairKind, { score: [number, number]; overlap: [number, number]; blank: number; maxImages: number }> = {
+export const RANGES: Record<
+  PairKind,
+  { score: [number, number]; overlap: [number, number]; blank: number; maxImages: number }
+> = {
   same: { score: [0.76, 0.99], overlap: [0.8, 1], blank: 0.15, maxImages: 3 },
   duplicate: { score: [0.85, 0.99], overlap: [0.85, 1], blank: 0.15, maxImages: 2 },
   weak: { score: [0.3, 0.48], overlap: [0.75, 1], blank: 0, maxImages: 1 },
@@ -84,38 +87,66 @@ export class Builder {
   readonly recs: Rec[] = [];
   readonly pairs: PairSpec[] = [];
 
-  constructor(readonly rng: Rng, readonly ids: IdMint, firstArt = 1) {
+  constructor(
+    readonly rng: Rng,
+    readonly ids: IdMint,
+    firstArt = 1,
+  ) {
     this.nextArt = firstArt;
   }
 
   private nextArt: number;
 
   /** A new artwork; details and replicas borrow their subject from `of`. */
-  art(opts: { kind?: Art['kind']; of?: Art; year?: number; narrow?: boolean; subject?: number; qualifier?: number } = {}): Art {
+  art(
+    opts: { kind?: Art['kind']; of?: Art; year?: number; narrow?: boolean; subject?: number; qualifier?: number } = {},
+  ): Art {
     const { rng } = this;
     const of = opts.of;
     const art: Art = {
-      id: this.nextArt++, kind: opts.kind ?? 'work',
+      id: this.nextArt++,
+      kind: opts.kind ?? 'work',
       subject: opts.subject ?? (of ? of.subject : rng.int(0, SUBJECTS.length - 1)),
       qualifier: opts.qualifier ?? (of ? of.qualifier : rng.chance(0.35) ? rng.int(1, QUALIFIERS.length - 1) : 0),
       year: opts.year ?? (of ? of.year : plainYear(rng)),
-      of, detailPart: rng.int(0, DETAIL_PARTS.length - 1), labelled: rng.chance(0.5), narrow: opts.narrow ?? false,
+      of,
+      detailPart: rng.int(0, DETAIL_PARTS.length - 1),
+      labelled: rng.chance(0.5),
+      narrow: opts.narrow ?? false,
     };
     this.arts.push(art);
     return art;
   }
 
   /** A partner record of an artwork, with 1–4 photographs. */
-  rec(partner: PartnerKey, art: Art, opts: { date?: string; title?: string; work?: string; images?: number } = {}): Rec {
+  rec(
+    partner: PartnerKey,
+    art: Art,
+    opts: { date?: string; title?: string; work?: string; images?: number } = {},
+  ): Rec {
     const { rng } = this;
     const work = opts.work ?? this.ids.work(partner);
-    const count = opts.images ?? rng.weighted([[1, 25], [2, 40], [3, 25], [4, 10]] as const);
+    const count =
+      opts.images ??
+      rng.weighted([
+        [1, 25],
+        [2, 40],
+        [3, 25],
+        [4, 10],
+      ] as const);
     const images = this.ids.images(partner, work, count).map((id) => ({
-      id, width: rng.int(1600, 4200), height: rng.int(1600, 4200),
+      id,
+      width: rng.int(1600, 4200),
+      height: rng.int(1600, 4200),
     }));
     const rec: Rec = {
-      partner, work, art, images, photographer: rng.int(0, 5),
-      title: opts.title ?? this.title(partner, art), date: opts.date ?? this.date(partner, art),
+      partner,
+      work,
+      art,
+      images,
+      photographer: rng.int(0, 5),
+      title: opts.title ?? this.title(partner, art),
+      date: opts.date ?? this.date(partner, art),
     };
     this.recs.push(rec);
     return rec;
@@ -123,7 +154,11 @@ export class Builder {
 
   /** A second record of the same artwork at the same partner. */
   duplicate(of: Rec): Rec {
-    return this.rec(of.partner, of.art, { work: this.ids.duplicateOf(of.partner, of.work), title: of.title, date: of.date });
+    return this.rec(of.partner, of.art, {
+      work: this.ids.duplicateOf(of.partner, of.work),
+      title: of.title,
+      date: of.date,
+    });
   }
 
   /** The matcher reports this work pair; which photographs matched is drawn here. */
@@ -138,7 +173,8 @@ export class Builder {
 
   private title(partner: PartnerKey, art: Art): string {
     const lang = PARTNERS[partner].lang;
-    if (art.kind === 'detail' && art.of) return detailTitle(baseTitle(art.subject, art.qualifier, lang), art.detailPart, lang);
+    if (art.kind === 'detail' && art.of)
+      return detailTitle(baseTitle(art.subject, art.qualifier, lang), art.detailPart, lang);
     return replicaTitle(baseTitle(art.subject, art.qualifier, lang), art.kind === 'replica' && art.labelled, lang);
   }
 
@@ -147,7 +183,8 @@ export class Builder {
     const spec = PARTNERS[partner];
     const convention = spec.convention ?? 'unknown';
     const styles: readonly (readonly [DateStyle, number])[] = art.narrow
-      ? spec.narrow.map((s) => [s, 1] as const) : spec.styles;
+      ? spec.narrow.map((s) => [s, 1] as const)
+      : spec.styles;
     for (;;) {
       const text = renderDate(year, this.rng.weighted(styles), convention, spec.lang);
       if (text !== null) return text;

@@ -56,18 +56,34 @@ export function phenomena1(b: Builder): Phenomena {
     }
   });
   for (let i = 0; i < charts.length; i++)
-    for (let j = i + 1; j < charts.length; j++) matches.push({ a: charts[i], b: charts[j], score: r3(rng.real(0.8, 0.97)), overlap: null });
+    for (let j = i + 1; j < charts.length; j++)
+      matches.push({ a: charts[i], b: charts[j], score: r3(rng.real(0.8, 0.97)), overlap: null });
 
   // look-alike works: distinct objects whose photographs match moderately and share nothing else
   const plate = b.art();
-  const prints = PARTNERS.map((p) => b.rec(p, b.art({ subject: plate.subject, qualifier: plate.qualifier, year: plate.year }), { images: rng.int(1, 2) }));
+  const prints = PARTNERS.map((p) =>
+    b.rec(p, b.art({ subject: plate.subject, qualifier: plate.qualifier, year: plate.year }), {
+      images: rng.int(1, 2),
+    }),
+  );
   for (let i = 0; i < prints.length; i++)
-    for (let j = i + 1; j < prints.length; j++) matches.push({ a: ref(prints[i], 0), b: ref(prints[j], 0), score: r3(rng.real(0.6, 0.72)), overlap: r2(rng.real(0.85, 1)) });
+    for (let j = i + 1; j < prints.length; j++)
+      matches.push({
+        a: ref(prints[i], 0),
+        b: ref(prints[j], 0),
+        score: r3(rng.real(0.6, 0.72)),
+        overlap: r2(rng.real(0.85, 1)),
+      });
   const pendants = Array.from({ length: PLAN_PHENOMENA.pendants }, (_, i): [Rec, Rec] => {
     const left = b.art();
     const right = b.art({ subject: left.subject, year: left.year });
     const pair: [Rec, Rec] = [b.rec(PARTNERS[i], left), b.rec(PARTNERS[(i + 1) % 3], right)];
-    matches.push({ a: ref(pair[0], 0), b: ref(pair[1], 0), score: r3(rng.real(0.58, 0.7)), overlap: r2(rng.real(0.8, 1)) });
+    matches.push({
+      a: ref(pair[0], 0),
+      b: ref(pair[1], 0),
+      score: r3(rng.real(0.58, 0.7)),
+      overlap: r2(rng.real(0.8, 1)),
+    });
     return pair;
   });
   return { mountBacks, charts, prints, pendants, matches };

@@ -5,13 +5,23 @@ import { PARTNERS, type Field, type PartnerKey } from './partners.js';
 export const RUNS = {
   first: {
     file: 'evidence/matcher-2026-10.csv',
-    run: { id: 'matcher-2026-10', software: 'lanternfield-matcher', version: '1.8.2', started: '2026-10-04T09:00:00Z',
-      parameters: { features: 2000, ratioTest: 0.8, minInliers: 12 } },
+    run: {
+      id: 'matcher-2026-10',
+      software: 'lanternfield-matcher',
+      version: '1.8.2',
+      started: '2026-10-04T09:00:00Z',
+      parameters: { features: 2000, ratioTest: 0.8, minInliers: 12 },
+    },
   },
   rerun: {
     file: 'evidence/matcher-2027-04.csv',
-    run: { id: 'matcher-2027-04', software: 'lanternfield-matcher', version: '2.0.1', started: '2027-04-12T08:30:00Z',
-      parameters: { features: 4000, ratioTest: 0.75, minInliers: 15 } },
+    run: {
+      id: 'matcher-2027-04',
+      software: 'lanternfield-matcher',
+      version: '2.0.1',
+      started: '2027-04-12T08:30:00Z',
+      parameters: { features: 4000, ratioTest: 0.75, minInliers: 15 },
+    },
   },
 } as const;
 
@@ -22,7 +32,9 @@ function partner(key: PartnerKey, prefix: string) {
   const p = PARTNERS[key];
   const columns = Object.fromEntries(MAPPED.flatMap((f) => p.columns.filter(([, g]) => g === f).map(([h]) => [f, h])));
   return {
-    key, name: p.name, homepage: `https://${p.host}/`,
+    key,
+    name: p.name,
+    homepage: `https://${p.host}/`,
     workIri: `https://${p.host}/${p.paths.work}{work}`,
     imageIri: `https://${p.host}/${p.paths.image}{image}`,
     recordPage: `https://${p.host}/${p.paths.page}{work}`,
@@ -59,7 +71,10 @@ export function project2(): object {
   return {
     title: 'Lanternfield concordance of late medieval panel paintings',
     ...COMMON,
-    partners: [...(['vellmar', 'kessling', 'fontclaire'] as const).map((k) => partner(k, '../')), partner('brindle', '')],
+    partners: [
+      ...(['vellmar', 'kessling', 'fontclaire'] as const).map((k) => partner(k, '../')),
+      partner('brindle', ''),
+    ],
     evidence: [RUNS.rerun],
     decisions: ['../decisions/curators.csv', 'decisions/curators-2027.csv'],
     gold: 'gold/hand-made-concordance.csv',

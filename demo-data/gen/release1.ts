@@ -8,12 +8,28 @@ const V: PartnerKey = 'vellmar';
 const K: PartnerKey = 'kessling';
 const F: PartnerKey = 'fontclaire';
 /** Partner pairs in turn, so every pair of archives gets its share. */
-const PAIRINGS: readonly [PartnerKey, PartnerKey][] = [[V, K], [K, F], [V, F]];
+const PAIRINGS: readonly [PartnerKey, PartnerKey][] = [
+  [V, K],
+  [K, F],
+  [V, F],
+];
 
 /** How many of each difficulty release 1 holds; the story below follows this table. */
 export const PLAN1 = {
-  triangles: 10, chains: 8, pairs: 30, hardConflicts: 4, missed: 5, weak: 3, details: 10, replicas: 8,
-  fadingReplicas: 2, duplicates: 4, splitArtworks: 2, singletons: 50, noise: 80, smallImages: 5,
+  triangles: 10,
+  chains: 8,
+  pairs: 30,
+  hardConflicts: 4,
+  missed: 5,
+  weak: 3,
+  details: 10,
+  replicas: 8,
+  fadingReplicas: 2,
+  duplicates: 4,
+  splitArtworks: 2,
+  singletons: 50,
+  noise: 80,
+  smallImages: 5,
 } as const;
 
 /** Release 1 as told: the builder plus handles on every deliberate difficulty. */
@@ -53,10 +69,22 @@ function conflictingDate(partner: PartnerKey, year: number): string {
 
 /** Same year 1500, different century words: compatible once each partner's convention is applied. */
 const CONVENTION_ONLY: readonly [[PartnerKey, string], [PartnerKey, string]][] = [
-  [[V, '15th century'], [K, '1500']],
-  [[V, '1500'], [K, '16. Jh.']],
-  [[V, '15th century'], [K, '16. Jh.']],
-  [[F, 'XVe s.'], [K, '1500']],
+  [
+    [V, '15th century'],
+    [K, '1500'],
+  ],
+  [
+    [V, '1500'],
+    [K, '16. Jh.'],
+  ],
+  [
+    [V, '15th century'],
+    [K, '16. Jh.'],
+  ],
+  [
+    [F, 'XVe s.'],
+    [K, '1500'],
+  ],
 ];
 
 /** Tells the release-1 story with its own random streams. */
@@ -70,7 +98,9 @@ export function release1(): Release1 {
     const t: [Rec, Rec, Rec] = [b.rec(V, art), b.rec(K, art), b.rec(F, art)];
     if (i === 0) t[2].title = 'Vierge à l\'Enfant, dite "de Fontclaire"';
     if (i === 1) t[2].title = 'Retable de la Passion\n(panneau central)';
-    b.link(t[0], t[1], 'same'); b.link(t[1], t[2], 'same'); b.link(t[0], t[2], 'same');
+    b.link(t[0], t[1], 'same');
+    b.link(t[1], t[2], 'same');
+    b.link(t[0], t[2], 'same');
     return t;
   });
 
@@ -84,7 +114,8 @@ export function release1(): Release1 {
     const m = b.rec(mid, art, i === 0 ? { date: '' } : {});
     const c = b.rec(e2, art, i === 0 ? { date: conflictingDate(e2, art.year + 130) } : {});
     if (i === 0) conflicts.push({ a, b: c, implied: true });
-    b.link(a, m, 'same'); b.link(m, c, 'same');
+    b.link(a, m, 'same');
+    b.link(m, c, 'same');
     return { ends: [a, c] as [Rec, Rec], mid: m };
   });
 
@@ -93,7 +124,10 @@ export function release1(): Release1 {
     const conv = CONVENTION_ONLY[i - PLAN1.hardConflicts];
     if (conv) {
       const art = b.art({ year: 1500 });
-      const pair: [Rec, Rec] = [b.rec(conv[0][0], art, { date: conv[0][1] }), b.rec(conv[1][0], art, { date: conv[1][1] })];
+      const pair: [Rec, Rec] = [
+        b.rec(conv[0][0], art, { date: conv[0][1] }),
+        b.rec(conv[1][0], art, { date: conv[1][1] }),
+      ];
       conventionOnly.push(pair);
       b.link(pair[0], pair[1], 'same');
       return pair;
@@ -158,23 +192,68 @@ export function release1(): Release1 {
 
   // a correct cluster whose halves meet only through one weak-ish link
   const z = b.art();
-  const zv = b.rec(V, z), zk = b.rec(K, z), zk2 = b.duplicate(zk), zf = b.rec(F, z);
-  b.link(zv, zk, 'same'); b.link(zk2, zf, 'same'); b.link(zk, zf, 'bridge');
-  const trueBridge = { sides: [[zv, zk], [zk2, zf]] as [Rec[], Rec[]], link: [zk, zf] as [Rec, Rec] };
+  const zv = b.rec(V, z),
+    zk = b.rec(K, z),
+    zk2 = b.duplicate(zk),
+    zf = b.rec(F, z);
+  b.link(zv, zk, 'same');
+  b.link(zk2, zf, 'same');
+  b.link(zk, zf, 'bridge');
+  const trueBridge = {
+    sides: [
+      [zv, zk],
+      [zk2, zf],
+    ] as [Rec[], Rec[]],
+    link: [zk, zf] as [Rec, Rec],
+  };
 
   // two distinct works (an original and its replica) joined by one look-alike link
   const x = b.art();
   const xr = b.art({ kind: 'replica', of: x });
-  const xv = b.rec(V, x), xk = b.rec(K, x), rf = b.rec(F, xr), rk = b.rec(K, xr);
-  b.link(xv, xk, 'same'); b.link(rf, rk, 'same'); b.link(xk, rf, 'false-bridge');
-  const falseBridge = { sides: [[xv, xk], [rf, rk]] as [Rec[], Rec[]], link: [xk, rf] as [Rec, Rec] };
+  const xv = b.rec(V, x),
+    xk = b.rec(K, x),
+    rf = b.rec(F, xr),
+    rk = b.rec(K, xr);
+  b.link(xv, xk, 'same');
+  b.link(rf, rk, 'same');
+  b.link(xk, rf, 'false-bridge');
+  const falseBridge = {
+    sides: [
+      [xv, xk],
+      [rf, rk],
+    ] as [Rec[], Rec[]],
+    link: [xk, rf] as [Rec, Rec],
+  };
 
   // one artwork, two clusters that nothing joins yet (a partner holds it twice under unrelated numbers)
-  const m1 = b.art(), m2 = b.art();
-  const m1v = b.rec(V, m1), m1k = b.rec(K, m1), m1f = b.rec(F, m1), m1k2 = b.rec(K, m1);
-  const m2v = b.rec(V, m2), m2f = b.rec(F, m2), m2k = b.rec(K, m2), m2f2 = b.rec(F, m2);
-  b.link(m1v, m1k, 'same'); b.link(m1f, m1k2, 'same'); b.link(m2v, m2f, 'same'); b.link(m2k, m2f2, 'same');
-  const splitArtworks = [{ sides: [[m1v, m1k], [m1f, m1k2]] as [Rec[], Rec[]] }, { sides: [[m2v, m2f], [m2k, m2f2]] as [Rec[], Rec[]] }];
+  const m1 = b.art(),
+    m2 = b.art();
+  const m1v = b.rec(V, m1),
+    m1k = b.rec(K, m1),
+    m1f = b.rec(F, m1),
+    m1k2 = b.rec(K, m1);
+  const m2v = b.rec(V, m2),
+    m2f = b.rec(F, m2),
+    m2k = b.rec(K, m2),
+    m2f2 = b.rec(F, m2);
+  b.link(m1v, m1k, 'same');
+  b.link(m1f, m1k2, 'same');
+  b.link(m2v, m2f, 'same');
+  b.link(m2k, m2f2, 'same');
+  const splitArtworks = [
+    {
+      sides: [
+        [m1v, m1k],
+        [m1f, m1k2],
+      ] as [Rec[], Rec[]],
+    },
+    {
+      sides: [
+        [m2v, m2f],
+        [m2k, m2f2],
+      ] as [Rec[], Rec[]],
+    },
+  ];
 
   const special: Record<number, { subject: number; qualifier: number; title?: string }> = {
     1: { subject: 4, qualifier: 0, title: 'Kreuzigung; Fragment eines Altarflügels' },
@@ -184,7 +263,9 @@ export function release1(): Release1 {
   const singletons = Array.from({ length: PLAN1.singletons }, (_, i) => {
     const partner = ([V, K, F] as const)[i % 3];
     const s = special[i];
-    const r = b.rec(partner, b.art(s ? { subject: s.subject, qualifier: s.qualifier } : {}), { images: i === 7 ? 3 : undefined });
+    const r = b.rec(partner, b.art(s ? { subject: s.subject, qualifier: s.qualifier } : {}), {
+      images: i === 7 ? 3 : undefined,
+    });
     if (s?.title) r.title = s.title;
     return r;
   });
@@ -197,11 +278,29 @@ export function release1(): Release1 {
   const smallImages: string[] = [];
   for (const r of rng.shuffle(b.recs.filter((r) => r.partner === V)).slice(0, PLAN1.smallImages)) {
     const img = r.images[0];
-    if (rng.chance(0.5)) img.width = rng.int(180, 290); else img.height = rng.int(180, 290);
+    if (rng.chance(0.5)) img.width = rng.int(180, 290);
+    else img.height = rng.int(180, 290);
     smallImages.push(`${r.partner}:${img.id}`);
   }
   smallImages.sort();
 
-  return { b, triangles, chains, pairs, missed, weak, details, replicas, duplicates, trueBridge, falseBridge,
-    splitArtworks, singletons, conflicts, conventionOnly, rowDates, smallImages };
+  return {
+    b,
+    triangles,
+    chains,
+    pairs,
+    missed,
+    weak,
+    details,
+    replicas,
+    duplicates,
+    trueBridge,
+    falseBridge,
+    splitArtworks,
+    singletons,
+    conflicts,
+    conventionOnly,
+    rowDates,
+    smallImages,
+  };
 }

@@ -1,4 +1,5 @@
-// The release-2 story (Brindle joins, the matcher is rerun, curators review) → new records, pairs and the changes they cause.
+// The release-2 story (Brindle joins, the matcher is rerun, curators review) → new records, pairs and the changes they
+// cause.
 import { Builder, type PairSpec, type Rec } from './model.js';
 import { IdMint } from './partners.js';
 import type { Release1 } from './release1.js';
@@ -6,7 +7,14 @@ import { Rng } from './rng.js';
 
 /** How many of each difficulty the new partner brings. */
 export const PLAN2 = {
-  extendTriangles: 6, extendPairs: 6, newPairs: 2, details: 2, replicas: 2, duplicates: 1, missed: 1, singletons: 17,
+  extendTriangles: 6,
+  extendPairs: 6,
+  newPairs: 2,
+  details: 2,
+  replicas: 2,
+  duplicates: 1,
+  missed: 1,
+  singletons: 17,
   noise: 90,
 } as const;
 
@@ -34,7 +42,9 @@ export function release2(r1: Release1): Release2 {
   const b = new Builder(Rng.of('release-2/world'), new IdMint(Rng.of('release-2/ids')), r1.b.arts.length + 1);
 
   const extended = [
-    ...r1.triangles.slice(0, PLAN2.extendTriangles).map((t, i) => ({ art: t[0].art, linked: [t[i % 3], t[(i + 1) % 3]] })),
+    ...r1.triangles
+      .slice(0, PLAN2.extendTriangles)
+      .map((t, i) => ({ art: t[0].art, linked: [t[i % 3], t[(i + 1) % 3]] })),
     ...r1.pairs.slice(14, 14 + PLAN2.extendPairs).map((p) => ({ art: p[0].art, linked: [p[0]] })),
   ].map(({ art, linked }) => {
     const brindle = b.rec(B, art);
@@ -81,5 +91,18 @@ export function release2(r1: Release1): Release2 {
   const singletons = Array.from({ length: PLAN2.singletons }, () => b.rec(B, b.art()));
   singletons[3].date = 'undated';
 
-  return { r1, b, extended, newPairs, details, replicas, duplicates, missed, singletons, conflict, mergeViaBrindle, mergeByRerun };
+  return {
+    r1,
+    b,
+    extended,
+    newPairs,
+    details,
+    replicas,
+    duplicates,
+    missed,
+    singletons,
+    conflict,
+    mergeViaBrindle,
+    mergeByRerun,
+  };
 }

@@ -62,7 +62,12 @@ const DETAIL: Record<Lang, (title: string, part: string) => string> = {
   en2: (t, part) => `${t} - detail of ${part}`,
 };
 
-const REPLICA: Phrase = p(' (workshop replica)', ' (Werkstattwiederholung)', " (réplique d'atelier)", ', workshop version');
+const REPLICA: Phrase = p(
+  ' (workshop replica)',
+  ' (Werkstattwiederholung)',
+  " (réplique d'atelier)",
+  ', workshop version',
+);
 
 /** The base title of a work in one language. */
 export function baseTitle(subject: number, qualifier: number, lang: Lang): string {

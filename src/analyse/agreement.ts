@@ -18,7 +18,8 @@ export function agreement(model: Model, linkSet: LinkSet, clustering: Clustering
   const gold = new UnionFind(n);
   const inGold = new Uint8Array(n);
   const seen = new Set<number>();
-  let goldPairs = 0, found = 0;
+  let goldPairs = 0,
+    found = 0;
   const missed: MissedPair[] = [];
   for (const g of model.gold) {
     inGold[g.a] = inGold[g.b] = 1;
@@ -28,12 +29,21 @@ export function agreement(model: Model, linkSet: LinkSet, clustering: Clustering
     seen.add(k);
     goldPairs++;
     const ca = clustering.clusterOf[g.a];
-    if (ca >= 0 && ca === clustering.clusterOf[g.b]) { found++; continue; }
+    if (ca >= 0 && ca === clustering.clusterOf[g.b]) {
+      found++;
+      continue;
+    }
     const li = linkSet.byPair.get(k);
     const l = li === undefined ? undefined : linkSet.links[li];
-    missed.push({ a: g.a, b: g.b, line: g.line, link: l && { kind: l.kind, status: l.status, best: l.best, support: l.support } });
+    missed.push({
+      a: g.a,
+      b: g.b,
+      line: g.line,
+      link: l && { kind: l.kind, status: l.status, best: l.best, support: l.support },
+    });
   }
-  let claimedPairs = 0, correctPairs = 0;
+  let claimedPairs = 0,
+    correctPairs = 0;
   for (const c of clustering.clusters) {
     const tally = new Map<number, number>();
     let k = 0;
@@ -48,7 +58,12 @@ export function agreement(model: Model, linkSet: LinkSet, clustering: Clustering
   }
   const recall = goldPairs ? found / goldPairs : null;
   const precision = claimedPairs ? correctPairs / claimedPairs : null;
-  const f1 = recall !== null && precision !== null && recall + precision > 0 ? (2 * precision * recall) / (precision + recall) : recall === null || precision === null ? null : 0;
+  const f1 =
+    recall !== null && precision !== null && recall + precision > 0
+      ? (2 * precision * recall) / (precision + recall)
+      : recall === null || precision === null
+        ? null
+        : 0;
   let goldWorks = 0;
   for (let w = 0; w < n; w++) goldWorks += inGold[w];
   return { goldPairs, found, recall, goldWorks, claimedPairs, correctPairs, precision, f1, missed };

@@ -1,4 +1,5 @@
-// Clusters, part links and catalogued dates → the records whose date is far from what their artwork's other records give.
+// Clusters, part links and catalogued dates → the records whose date is far from what their artwork's other records
+// give.
 import { workRef, type Model } from '../model.js';
 import type { Clustering } from '../cluster/types.js';
 import type { LinkSet } from '../link/types.js';
@@ -12,7 +13,10 @@ import type { DateConflict } from './types.js';
  */
 export const DATE_TOLERANCE = 25;
 
-/** Years between two intervals: 0 when they share a year, else the difference between their nearer ends (1465, 1500: 35). */
+/**
+ * Years between two intervals: 0 when they share a year, else the difference between their nearer ends (1465, 1500:
+ * 35).
+ */
 export function yearsApart(a: YearSpan, b: YearSpan): number {
   return Math.max(b.start - a.end, a.start - b.end, 0);
 }
@@ -41,7 +45,12 @@ interface Consensus {
  * pair) there is no majority: each record is listed against the other group, the earliest and the latest group
  * standing for the rest. A record is listed once, with the larger distance when it fails both checks.
  */
-export function dateConflicts(model: Model, linkSet: LinkSet, clustering: Clustering, read: (w: number) => DateReading): DateConflict[] {
+export function dateConflicts(
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  read: (w: number) => DateReading,
+): DateConflict[] {
   const tolerance = model.project.policy.dateTolerance ?? DATE_TOLERANCE;
   const byWork = new Map<number, DateConflict>();
   const consensusOf: (Consensus | undefined)[] = new Array(clustering.clusters.length);
@@ -65,31 +74,70 @@ export function dateConflicts(model: Model, linkSet: LinkSet, clustering: Cluste
       if (inFirst && (!runs.tie || covers(r, runs.last, tolerance))) continue;
       const ref = inFirst ? last : first;
       const apart = yearsApart(r, ref.span);
-      if (apart > tolerance) keep({ cluster: ci, work: w, reading: r, against: 'cluster', anchor: ref.anchor, consensus: ref.span, support: ref.support, dated: dated.length, tie: runs.tie, apart });
+      if (apart > tolerance)
+        keep({
+          cluster: ci,
+          work: w,
+          reading: r,
+          against: 'cluster',
+          anchor: ref.anchor,
+          consensus: ref.span,
+          support: ref.support,
+          dated: dated.length,
+          tie: runs.tie,
+          apart,
+        });
     }
   });
 
   for (const l of linkSet.links) {
     if (l.kind !== 'part' || l.part === undefined || (l.status !== 'confirmed' && l.status !== 'proposed')) continue;
-    const detail = l.part, whole = l.part === l.a ? l.b : l.a;
+    const detail = l.part,
+      whole = l.part === l.a ? l.b : l.a;
     const r = read(detail);
     if (r.kind !== 'interval') continue;
     const wc = clustering.clusterOf[whole];
     const agreed = wc >= 0 ? consensusOf[wc] : undefined;
     const own = read(whole);
-    const ref = agreed !== undefined && !agreed.tie ? { span: agreed.span, anchor: agreed.anchor, support: agreed.support, dated: clusterDated(clustering, wc, read) }
-      : own.kind === 'interval' ? { span: own as YearSpan, anchor: whole, support: 1, dated: 1 } : undefined;
+    const ref =
+      agreed !== undefined && !agreed.tie
+        ? {
+            span: agreed.span,
+            anchor: agreed.anchor,
+            support: agreed.support,
+            dated: clusterDated(clustering, wc, read),
+          }
+        : own.kind === 'interval'
+          ? { span: own as YearSpan, anchor: whole, support: 1, dated: 1 }
+          : undefined;
     if (ref === undefined) continue;
     const apart = yearsApart(r, ref.span);
     if (apart <= tolerance) continue;
     const dc = clustering.clusterOf[detail];
-    keep({ cluster: dc >= 0 ? dc : wc, work: detail, reading: r, against: 'whole', whole, anchor: ref.anchor, consensus: ref.span, support: ref.support, dated: ref.dated, tie: false, apart });
+    keep({
+      cluster: dc >= 0 ? dc : wc,
+      work: detail,
+      reading: r,
+      against: 'whole',
+      whole,
+      anchor: ref.anchor,
+      consensus: ref.span,
+      support: ref.support,
+      dated: ref.dated,
+      tie: false,
+      apart,
+    });
   }
 
   const refs = new Map<number, string>();
   const ref = (w: number) => refs.get(w) ?? (refs.set(w, workRef(model, w)), refs.get(w)!);
   const clusterOrder = (x: DateConflict) => (x.cluster < 0 ? Infinity : x.cluster);
-  return [...byWork.values()].sort((x, y) => y.apart - x.apart || clusterOrder(x) - clusterOrder(y) || (ref(x.work) < ref(y.work) ? -1 : ref(x.work) > ref(y.work) ? 1 : 0));
+  return [...byWork.values()].sort(
+    (x, y) =>
+      y.apart - x.apart ||
+      clusterOrder(x) - clusterOrder(y) ||
+      (ref(x.work) < ref(y.work) ? -1 : ref(x.work) > ref(y.work) ? 1 : 0),
+  );
 }
 
 function clusterDated(clustering: Clustering, ci: number, read: (w: number) => DateReading): number {
@@ -109,9 +157,14 @@ function covers(r: YearSpan, at: number, tolerance: number): boolean {
  * year share a common one (Helly's theorem in one dimension), so the deepest point of the sweep is the largest group.
  * Returns the first year of the earliest and of the latest run at the greatest depth, and whether there are two runs.
  */
-function largestGroups(dated: number[], read: (w: number) => DateReading, tolerance: number): { first: number; last: number; tie: boolean } {
+function largestGroups(
+  dated: number[],
+  read: (w: number) => DateReading,
+  tolerance: number,
+): { first: number; last: number; tie: boolean } {
   const n = dated.length;
-  const starts = new Float64Array(n), ends = new Float64Array(n);
+  const starts = new Float64Array(n),
+    ends = new Float64Array(n);
   dated.forEach((w, i) => {
     const r = read(w) as IntervalReading;
     starts[i] = r.start;
@@ -119,20 +172,49 @@ function largestGroups(dated: number[], read: (w: number) => DateReading, tolera
   });
   starts.sort();
   ends.sort();
-  let depth = 0, best = 0, first = 0, last = 0, runs = 0, i = 0, j = 0, atBest = false;
+  let depth = 0,
+    best = 0,
+    first = 0,
+    last = 0,
+    runs = 0,
+    i = 0,
+    j = 0,
+    atBest = false;
   while (i < n) {
-    if (ends[j] <= starts[i]) { depth--; j++; atBest = false; continue; }
+    if (ends[j] <= starts[i]) {
+      depth--;
+      j++;
+      atBest = false;
+      continue;
+    }
     const at = starts[i];
-    depth++; i++;
-    if (depth > best) { best = depth; first = last = at; runs = 1; atBest = true; }
-    else if (depth === best && !atBest) { last = at; runs++; atBest = true; }
+    depth++;
+    i++;
+    if (depth > best) {
+      best = depth;
+      first = last = at;
+      runs = 1;
+      atBest = true;
+    } else if (depth === best && !atBest) {
+      last = at;
+      runs++;
+      atBest = true;
+    }
   }
   return { first, last, tie: runs > 1 };
 }
 
 /** The group holding year `at` (widened as in largestGroups): its span, its most common reading, its size. */
-function consensus(dated: number[], read: (w: number) => DateReading, tolerance: number, at: number, tie: boolean): Consensus {
-  let start = Infinity, end = -Infinity, support = 0;
+function consensus(
+  dated: number[],
+  read: (w: number) => DateReading,
+  tolerance: number,
+  at: number,
+  tie: boolean,
+): Consensus {
+  let start = Infinity,
+    end = -Infinity,
+    support = 0;
   const counts = new Map<string, { n: number; w: number }>();
   for (const w of dated) {
     const r = read(w) as IntervalReading;
@@ -145,7 +227,12 @@ function consensus(dated: number[], read: (w: number) => DateReading, tolerance:
     if (c === undefined) counts.set(text, { n: 1, w });
     else c.n++;
   }
-  let anchor = -1, most = 0;
-  for (const { n, w } of counts.values()) if (n > most) { most = n; anchor = w; }
+  let anchor = -1,
+    most = 0;
+  for (const { n, w } of counts.values())
+    if (n > most) {
+      most = n;
+      anchor = w;
+    }
   return { span: { start, end }, anchor, support, tie };
 }

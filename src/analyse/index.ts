@@ -9,7 +9,17 @@ import { reviewQueue } from './review.js';
 import { dateReader } from './readings.js';
 import type { Analysis } from './types.js';
 
-export type { Analysis, Agreement, CenturyCell, DateConflict, MissedPair, OverlapCell, OverlapStats, ReviewQueue, ReviewReason } from './types.js';
+export type {
+  Analysis,
+  Agreement,
+  CenturyCell,
+  DateConflict,
+  MissedPair,
+  OverlapCell,
+  OverlapStats,
+  ReviewQueue,
+  ReviewReason,
+} from './types.js';
 export { REVIEW_REASONS } from './types.js';
 export { agreement } from './agreement.js';
 export { DATE_TOLERANCE, yearsApart } from './conflicts.js';
@@ -27,7 +37,12 @@ export interface AnalyseOptions {
  * The analyse stage (design, pipeline step 4): date conflicts inside clusters, overlap per partner pair and century,
  * agreement with the gold concordance (null without one), and the ranked review queue.
  */
-export function analyse(model: Model, linkSet: LinkSet, clustering: Clustering, options: AnalyseOptions = {}): Analysis {
+export function analyse(
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  options: AnalyseOptions = {},
+): Analysis {
   const read = dateReader(model);
   return {
     conflicts: dateConflicts(model, linkSet, clustering, read),

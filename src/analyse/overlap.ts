@@ -15,12 +15,25 @@ const share = (matched: number, works: number) => (works === 0 ? 0 : matched / w
  * or `part` link to it, or membership of one cluster — and that number as a share of P's works (design, pipeline
  * step 4, "overlap statistics"). Per century too, by the midpoint of the work's date interval.
  */
-export function overlapStats(model: Model, linkSet: LinkSet, clustering: Clustering, read: (w: number) => DateReading): OverlapStats {
-  const np = model.project.partners.length, n = model.works.length;
+export function overlapStats(
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  read: (w: number) => DateReading,
+): OverlapStats {
+  const np = model.project.partners.length,
+    n = model.works.length;
   const links = linkSet.links;
   const claimEdges: number[] = [];
-  links.forEach((l, i) => { if ((l.kind === 'same' || l.kind === 'part') && isClaim(l)) claimEdges.push(i); });
-  const g = adjacency(n, claimEdges, (e) => links[e].a, (e) => links[e].b);
+  links.forEach((l, i) => {
+    if ((l.kind === 'same' || l.kind === 'part') && isClaim(l)) claimEdges.push(i);
+  });
+  const g = adjacency(
+    n,
+    claimEdges,
+    (e) => links[e].a,
+    (e) => links[e].b,
+  );
 
   const works = new Int32Array(np);
   const matched = new Int32Array(np * np);
@@ -47,8 +60,17 @@ export function overlapStats(model: Model, linkSet: LinkSet, clustering: Cluster
   const pairs: OverlapCell[] = [];
   for (let p = 0; p < np; p++)
     for (let q = 0; q < np; q++)
-      if (p !== q) pairs.push({ from: p, to: q, works: works[p], matched: matched[p * np + q], share: share(matched[p * np + q], works[p]) });
-  const order = [...byCentury.keys()].sort((x, y) => (x === UNDATED ? 1 : y === UNDATED ? -1 : parseInt(x) - parseInt(y)));
+      if (p !== q)
+        pairs.push({
+          from: p,
+          to: q,
+          works: works[p],
+          matched: matched[p * np + q],
+          share: share(matched[p * np + q], works[p]),
+        });
+  const order = [...byCentury.keys()].sort((x, y) =>
+    x === UNDATED ? 1 : y === UNDATED ? -1 : parseInt(x) - parseInt(y),
+  );
   const centuries: CenturyCell[] = [];
   for (let p = 0; p < np; p++)
     for (let q = 0; q < np; q++) {

@@ -1,4 +1,5 @@
-// Clusters and part claims + an answer key (work → artwork, detail → whole) → pair, B-cubed and part-of precision/recall/F1.
+// Clusters and part claims + an answer key (work → artwork, detail → whole) → pair, B-cubed and part-of
+// precision/recall/F1.
 import type { Model } from '../model.js';
 import { isClaim } from '../link/index.js';
 import { pairKey, type LinkSet } from '../link/types.js';
@@ -18,7 +19,9 @@ export interface Prf {
 }
 
 export interface Quality {
-  /** Pairs of works put in one cluster (the published same-work claims, direct or implied) against same-artwork pairs. */
+  /**
+   * Pairs of works put in one cluster (the published same-work claims, direct or implied) against same-artwork pairs.
+   */
   pair: Prf & { claimed: number; correct: number; truePairs: number };
   /** B-cubed over every work (Bagga & Baldwin 1998; Amigó et al., Information Retrieval 12(4), 2009). */
   bcubed: Prf;
@@ -44,38 +47,64 @@ export function quality(model: Model, linkSet: LinkSet, clustering: Clustering, 
   const artSize = new Map<string, number>();
   for (const a of art) artSize.set(a, (artSize.get(a) ?? 0) + 1);
   // pairs and B-cubed from cluster × artwork tallies
-  let claimed = 0, correct = 0, truePairs = 0, bp = 0, br = 0;
+  let claimed = 0,
+    correct = 0,
+    truePairs = 0,
+    bp = 0,
+    br = 0;
   for (const s of artSize.values()) truePairs += (s * (s - 1)) / 2;
   const inCluster = new Uint8Array(n);
   for (const c of clustering.clusters) {
     const k = c.members.length;
     claimed += (k * (k - 1)) / 2;
     const tally = new Map<string, number>();
-    for (const w of c.members) { inCluster[w] = 1; tally.set(art[w], (tally.get(art[w]) ?? 0) + 1); }
+    for (const w of c.members) {
+      inCluster[w] = 1;
+      tally.set(art[w], (tally.get(art[w]) ?? 0) + 1);
+    }
     for (const t of tally.values()) correct += (t * (t - 1)) / 2;
-    for (const w of c.members) { const t = tally.get(art[w])!; bp += t / k; br += t / artSize.get(art[w])!; }
+    for (const w of c.members) {
+      const t = tally.get(art[w])!;
+      bp += t / k;
+      br += t / artSize.get(art[w])!;
+    }
   }
-  for (let w = 0; w < n; w++) if (!inCluster[w]) { bp += 1; br += 1 / artSize.get(art[w])!; }
+  for (let w = 0; w < n; w++)
+    if (!inCluster[w]) {
+      bp += 1;
+      br += 1 / artSize.get(art[w])!;
+    }
 
   // part-of: each part claim asserts (detail, whole) for every member of both works' clusters
-  const members = (w: number) => (clustering.clusterOf[w] >= 0 ? clustering.clusters[clustering.clusterOf[w]].members : [w]);
+  const members = (w: number) =>
+    clustering.clusterOf[w] >= 0 ? clustering.clusters[clustering.clusterOf[w]].members : [w];
   const asserted = new Set<number>();
   let partCorrect = 0;
   for (const l of linkSet.links) {
     if (l.kind !== 'part' || !isClaim(l) || l.part === undefined) continue;
     const whole = l.part === l.a ? l.b : l.a;
-    for (const d of members(l.part)) for (const x of members(whole)) {
-      const k = pairKey(d, x) * 2 + (d < x ? 0 : 1);
-      if (d === x || asserted.has(k)) continue;
-      asserted.add(k);
-      if (truth.partOf.get(art[d]) === art[x]) partCorrect++;
-    }
+    for (const d of members(l.part))
+      for (const x of members(whole)) {
+        const k = pairKey(d, x) * 2 + (d < x ? 0 : 1);
+        if (d === x || asserted.has(k)) continue;
+        asserted.add(k);
+        if (truth.partOf.get(art[d]) === art[x]) partCorrect++;
+      }
   }
   let partTruth = 0;
   for (const [detail, whole] of truth.partOf) partTruth += (artSize.get(detail) ?? 0) * (artSize.get(whole) ?? 0);
   return {
     pair: { ...prf(correct, claimed, truePairs), claimed, correct, truePairs },
-    bcubed: (() => { const p = bp / n, r = br / n; return { precision: p, recall: r, f1: p + r ? (2 * p * r) / (p + r) : 0 }; })(),
-    partOf: { ...prf(partCorrect, asserted.size, partTruth), claimed: asserted.size, correct: partCorrect, truePairs: partTruth },
+    bcubed: (() => {
+      const p = bp / n,
+        r = br / n;
+      return { precision: p, recall: r, f1: p + r ? (2 * p * r) / (p + r) : 0 };
+    })(),
+    partOf: {
+      ...prf(partCorrect, asserted.size, partTruth),
+      claimed: asserted.size,
+      correct: partCorrect,
+      truePairs: partTruth,
+    },
   };
 }

@@ -30,7 +30,9 @@ export function formatInterval(r: DateReading): string {
   return r.start === r.end ? y(r.start) : `${y(r.start)}/${y(r.end)}`;
 }
 
-/** Century bucket of a reading: hundreds of its midpoint year (`1400-1499`), `undated` when empty, unreadable or open. */
+/**
+ * Century bucket of a reading: hundreds of its midpoint year (`1400-1499`), `undated` when empty, unreadable or open.
+ */
 export function centuryOf(r: DateReading): string {
   if (r.kind !== 'interval' || !Number.isFinite(r.start) || !Number.isFinite(r.end)) return UNDATED;
   const h = Math.floor((r.start + r.end) / 2 / 100) * 100;

@@ -28,19 +28,48 @@ const tier = (r: ReviewReason) => REVIEW_REASONS.indexOf(r);
  * A link reviewed by a curator is never queued again. For a `part` link the detail work comes first, so that a
  * curator who writes `part` states it the right way round (design: decisions file, work_a part of work_b).
  */
-export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clustering, highScoreAt = HIGH_SCORE_AT, limit = model.project.policy.reviewLimit): ReviewQueue {
+export function reviewQueue(
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  highScoreAt = HIGH_SCORE_AT,
+  limit = model.project.policy.reviewLimit,
+): ReviewQueue {
   const links = linkSet.links;
   const isBridge = new Uint8Array(links.length); // bridges joining two groups that would each stay a cluster
-  clustering.bridges.forEach((li, k) => { if (clustering.bridgeMinSide[k] >= 2) isBridge[li] = 1; });
-  const a = int32(), b = int32(), reason = int32(), link = int32(), scores = float64();
+  clustering.bridges.forEach((li, k) => {
+    if (clustering.bridgeMinSide[k] >= 2) isBridge[li] = 1;
+  });
+  const a = int32(),
+    b = int32(),
+    reason = int32(),
+    link = int32(),
+    scores = float64();
   const add = (x: number, y: number, r: ReviewReason, li: number) => {
-    a.push(x); b.push(y); reason.push(tier(r)); link.push(li);
+    a.push(x);
+    b.push(y);
+    reason.push(tier(r));
+    link.push(li);
     scores.push(li >= 0 ? links[li].best : -1);
   };
-  const HELD: Record<string, ReviewReason> = { split: 'split', indiscriminate: 'indiscriminate', 'look-alike': 'look-alike' };
+  const HELD: Record<string, ReviewReason> = {
+    split: 'split',
+    indiscriminate: 'indiscriminate',
+    'look-alike': 'look-alike',
+  };
   links.forEach((l, i) => {
     if (l.decision !== undefined || !(isClaim(l) || l.held)) return;
-    const r: ReviewReason | undefined = l.held ? HELD[l.held] : isBridge[i] ? 'bridge' : l.setAside > 0 ? 'indiscriminate' : l.best >= highScoreAt ? 'high-score' : l.status === 'proposed' ? 'proposed' : undefined;
+    const r: ReviewReason | undefined = l.held
+      ? HELD[l.held]
+      : isBridge[i]
+        ? 'bridge'
+        : l.setAside > 0
+          ? 'indiscriminate'
+          : l.best >= highScoreAt
+            ? 'high-score'
+            : l.status === 'proposed'
+              ? 'proposed'
+              : undefined;
     if (r === undefined) return; // confirmed by score (autoConfirmAt) below highScoreAt: the policy settled it
     const [x, y] = l.kind === 'part' && l.part === l.b ? [l.b, l.a] : [l.a, l.b];
     add(x, y, r, i);
@@ -50,12 +79,24 @@ export function reviewQueue(model: Model, linkSet: LinkSet, clustering: Clusteri
     const li = linkSet.byPair.get(pairKey(im.a[k], im.b[k])) ?? -1;
     const l = li >= 0 ? links[li] : undefined;
     if (l?.decision !== undefined && l.status !== 'rejected') continue; // a curator already called it part or related
-    add(im.a[k], im.b[k], l?.status === 'rejected' ? 'contradicts-distinct' : im.throughThird[k] ? 'implied-third-archive' : 'implied', li);
+    add(
+      im.a[k],
+      im.b[k],
+      l?.status === 'rejected' ? 'contradicts-distinct' : im.throughThird[k] ? 'implied-third-archive' : 'implied',
+      li,
+    );
   }
 
-  const A = a.trim(), B = b.trim(), R = reason.trim(), L = link.trim(), score = scores.trim();
+  const A = a.trim(),
+    B = b.trim(),
+    R = reason.trim(),
+    L = link.trim(),
+    score = scores.trim();
   const queued = new Set<number>();
-  for (let i = 0; i < A.length; i++) { queued.add(A[i]); queued.add(B[i]); }
+  for (let i = 0; i < A.length; i++) {
+    queued.add(A[i]);
+    queued.add(B[i]);
+  }
   const byRef = refRank(model, [...queued]);
   // split and bridge share one tier; score highest first; then references
   const band = Uint8Array.from(R, (r) => (r === tier('split') ? tier('bridge') : r));

@@ -17,9 +17,14 @@ export interface SweepRow {
 
 /** `from`, `from + step`, … up to `to` (inclusive, within rounding), rounded to 6 decimals; refuses bad ranges. */
 export function sweepValues(from: number, to: number, step: number): number[] {
-  const bad = (field: string, message: string, hint: string) => new UserError({ file: 'concordat sweep', line: 0, field, message, hint });
-  for (const [field, v] of [['--from', from], ['--to', to]] as const)
-    if (!Number.isFinite(v) || v < 0 || v > 1) throw bad(field, `${v} is not a score between 0 and 1`, 'scores run from 0 to 1');
+  const bad = (field: string, message: string, hint: string) =>
+    new UserError({ file: 'concordat sweep', line: 0, field, message, hint });
+  for (const [field, v] of [
+    ['--from', from],
+    ['--to', to],
+  ] as const)
+    if (!Number.isFinite(v) || v < 0 || v > 1)
+      throw bad(field, `${v} is not a score between 0 and 1`, 'scores run from 0 to 1');
   if (!Number.isFinite(step) || step <= 0) throw bad('--step', `${step} is not a positive step`, 'e.g. --step 0.05');
   if (from > to) throw bad('--from', `--from ${from} is above --to ${to}`, 'swap them');
   const count = Math.floor((to - from) / step + 1e-9) + 1;
@@ -32,10 +37,23 @@ export function sweepValues(from: number, to: number, step: number): number[] {
  */
 export function sweep(model: Model, values: number[]): SweepRow[] {
   if (model.gold.length === 0)
-    throw new UserError({ file: model.projectFile, line: 0, field: 'gold', message: 'the project has no gold concordance pairs', hint: 'name a gold file of work_a,work_b pairs in concordance.json' });
+    throw new UserError({
+      file: model.projectFile,
+      line: 0,
+      field: 'gold',
+      message: 'the project has no gold concordance pairs',
+      hint: 'name a gold file of work_a,work_b pairs in concordance.json',
+    });
   return values.map((proposeAt) => {
     const links = link(model, { ...model.project.policy, proposeAt });
     const a = agreement(model, links, cluster(model, links));
-    return { proposeAt, claimedPairs: a.claimedPairs, found: a.found, precision: a.precision, recall: a.recall, f1: a.f1 };
+    return {
+      proposeAt,
+      claimedPairs: a.claimedPairs,
+      found: a.found,
+      precision: a.precision,
+      recall: a.recall,
+      f1: a.f1,
+    };
   });
 }

@@ -7,7 +7,9 @@ import type { LinkKind, LinkStatus } from '../link/types.js';
  * (`against: 'cluster'`), or a detail whose date lies that far from the work it is part of (`against: 'whole'`).
  */
 export interface DateConflict {
-  /** Index into Clustering.clusters: the record's cluster (for a detail in none, its whole's); -1 when neither has one. */
+  /**
+   * Index into Clustering.clusters: the record's cluster (for a detail in none, its whole's); -1 when neither has one.
+   */
   cluster: number;
   /** The record (work number) whose date disagrees. */
   work: number;
@@ -81,7 +83,17 @@ export interface Agreement {
  * Why a pair is in the review queue, most urgent first (the order is the ranking tier; `split` and `bridge` share one):
  * what a decision would change most comes first (see review.ts).
  */
-export const REVIEW_REASONS = ['contradicts-distinct', 'split', 'bridge', 'indiscriminate', 'look-alike', 'high-score', 'implied-third-archive', 'implied', 'proposed'] as const;
+export const REVIEW_REASONS = [
+  'contradicts-distinct',
+  'split',
+  'bridge',
+  'indiscriminate',
+  'look-alike',
+  'high-score',
+  'implied-third-archive',
+  'implied',
+  'proposed',
+] as const;
 export type ReviewReason = (typeof REVIEW_REASONS)[number];
 
 /** The review queue as columns, in rank order. `reason` indexes REVIEW_REASONS; `link` is -1 when there is none. */

@@ -1,4 +1,5 @@
-// A citation → CSL-JSON: one item per claim (URL = the claim's link IRI), plus one for a cited cluster with its date conflicts.
+// A citation → CSL-JSON: one item per claim (URL = the claim's link IRI), plus one for a cited cluster with its date
+// conflicts.
 import type { Citation, CitedClaim, CitedRelease } from './types.js';
 import { assertedBy, claimPhrase, conflictLine, sentence } from './text.js';
 
@@ -7,7 +8,9 @@ function dateParts(iso: string): { 'date-parts': number[][] } {
   return { 'date-parts': [iso.slice(0, 10).split('-').map(Number)] };
 }
 
-/** Only variables of csl-data.json; what has no variable of its own goes into `custom` (the schema's key-value object). */
+/**
+ * Only variables of csl-data.json; what has no variable of its own goes into `custom` (the schema's key-value object).
+ */
 export interface CslItem {
   id: string;
   type: 'dataset';
@@ -23,7 +26,9 @@ export interface CslItem {
   custom: Record<string, unknown>;
 }
 
-/** Fields every item shares: the release as the container, its version and date, the consortium as author and publisher. */
+/**
+ * Fields every item shares: the release as the container, its version and date, the consortium as author and publisher.
+ */
 function releaseFields(r: CitedRelease) {
   return {
     ...(r.title ? { 'container-title': r.title } : {}),
@@ -36,7 +41,11 @@ function releaseFields(r: CitedRelease) {
 function claimItem(c: CitedClaim, r: CitedRelease): CslItem {
   const who = assertedBy(c);
   const pages = [c.subject.page, c.object.page].filter((p): p is string => !!p);
-  const note = [sentence(c, r), ...(pages.length ? [`Records: ${pages.join(' ; ')}`] : []), `Dataset: ${r.dataset}`].join('\n');
+  const note = [
+    sentence(c, r),
+    ...(pages.length ? [`Records: ${pages.join(' ; ')}`] : []),
+    `Dataset: ${r.dataset}`,
+  ].join('\n');
   return {
     id: c.link,
     type: 'dataset',
@@ -46,9 +55,15 @@ function claimItem(c: CitedClaim, r: CitedRelease): CslItem {
     URL: c.link,
     note,
     custom: {
-      kind: c.kind, status: c.status, ...(c.score !== undefined ? { score: c.score } : {}), assertedBy: who,
+      kind: c.kind,
+      status: c.status,
+      ...(c.score !== undefined ? { score: c.score } : {}),
+      assertedBy: who,
       ...(c.review?.date ? { decided: c.review.date } : {}),
-      works: [c.subject.iri, c.object.iri], related: pages, dataset: r.dataset, ...(r.license ? { license: r.license } : {}),
+      works: [c.subject.iri, c.object.iri],
+      related: pages,
+      dataset: r.dataset,
+      ...(r.license ? { license: r.license } : {}),
     },
   };
 }
@@ -74,8 +89,14 @@ export function citationCsl(c: Citation): CslItem[] {
       note: [...conflicts.map((x) => `Date ${conflictLine(x)}`), `Dataset: ${r.dataset}`].join('\n'),
       custom: {
         claims: c.claims.map((x) => x.link),
-        dateConflicts: conflicts.map((x) => ({ iri: x.iri, severity: x.severity, works: [x.a.iri, x.b.iri], dates: [x.a.date ?? '', x.b.date ?? ''] })),
-        dataset: r.dataset, ...(r.license ? { license: r.license } : {}),
+        dateConflicts: conflicts.map((x) => ({
+          iri: x.iri,
+          severity: x.severity,
+          works: [x.a.iri, x.b.iri],
+          dates: [x.a.date ?? '', x.b.date ?? ''],
+        })),
+        dataset: r.dataset,
+        ...(r.license ? { license: r.license } : {}),
       },
     });
   }

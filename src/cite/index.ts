@@ -1,4 +1,5 @@
-// Cite stage: a target (`partner:work`, work, link or cluster IRI) + a release or store folder → a citation, in four formats.
+// Cite stage: a target (`partner:work`, work, link or cluster IRI) + a release or store folder → a citation, in four
+// formats.
 import { UserError, EXIT } from '../errors.js';
 import { readSource, type CiteSource } from './source.js';
 import { findTarget } from './find.js';
@@ -36,12 +37,35 @@ export async function cite(query: string, source: CiteSource): Promise<Citation>
   const store = await readSource(source);
   const found = findTarget(store, query);
   if (!found.ok)
-    throw new UserError({ file: source.release ?? source.store!, line: 0, field: 'target', message: found.message, hint: found.nearest.length ? `nearest: ${found.nearest.join(', ')}` : 'check the reference: partnerKey:workId, or a work, link or cluster IRI' }, EXIT.failure);
+    throw new UserError(
+      {
+        file: source.release ?? source.store!,
+        line: 0,
+        field: 'target',
+        message: found.message,
+        hint: found.nearest.length
+          ? `nearest: ${found.nearest.join(', ')}`
+          : 'check the reference: partnerKey:workId, or a work, link or cluster IRI',
+      },
+      EXIT.failure,
+    );
   const r = new Reader(store);
   const release = citedRelease(r);
-  if (!release) throw new UserError({ file: source.release ?? source.store!, line: 0, field: 'dcat:version', message: 'no dataset description (dcat:Dataset with dcat:version) found', hint: 'load the whole release, including its dataset graph' });
+  if (!release)
+    throw new UserError({
+      file: source.release ?? source.store!,
+      line: 0,
+      field: 'dcat:version',
+      message: 'no dataset description (dcat:Dataset with dcat:version) found',
+      hint: 'load the whole release, including its dataset graph',
+    });
   const claims = found.links.map((l) => citedClaim(r, l));
-  claims.sort((x, y) => STATUS_ORDER[x.status] - STATUS_ORDER[y.status] || (y.score ?? -1) - (x.score ?? -1) || (x.link < y.link ? -1 : 1));
+  claims.sort(
+    (x, y) =>
+      STATUS_ORDER[x.status] - STATUS_ORDER[y.status] ||
+      (y.score ?? -1) - (x.score ?? -1) ||
+      (x.link < y.link ? -1 : 1),
+  );
   const conflicts = found.kind === 'cluster' ? citedConflicts(r, found.iri) : [];
   return { query, target: { kind: found.kind, iri: found.iri }, release, claims, conflicts, quads: r.quads() };
 }

@@ -11,6 +11,8 @@ const key = (q: Quad) => `${q.subject.value}\u0000${q.predicate.value}\u0000${q.
  */
 export async function citationJsonLd(c: Citation): Promise<object> {
   const seen = new Set<string>();
-  const quads = [...c.quads].sort((x, y) => (key(x) < key(y) ? -1 : 1)).filter((q) => !seen.has(key(q)) && !!seen.add(key(q)));
+  const quads = [...c.quads]
+    .sort((x, y) => (key(x) < key(y) ? -1 : 1))
+    .filter((q) => !seen.has(key(q)) && !!seen.add(key(q)));
   return compactQuads(quads, JSONLD_CONTEXT, 'citation');
 }

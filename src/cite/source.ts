@@ -18,18 +18,40 @@ export interface CiteSource {
  */
 export async function readSource(src: CiteSource): Promise<N3.Store> {
   if (!!src.release === !!src.store)
-    throw new UserError({ file: 'command line', line: 0, field: '--release', message: 'give exactly one of --release <folder> or --store <folder>', hint: 'e.g. --release releases/2026.1' });
+    throw new UserError({
+      file: 'command line',
+      line: 0,
+      field: '--release',
+      message: 'give exactly one of --release <folder> or --store <folder>',
+      hint: 'e.g. --release releases/2026.1',
+    });
   const store = new N3.Store();
   if (src.release) {
     const file = path.join(src.release, RELEASE_FILES.nquads);
-    if (!existsSync(file)) throw new UserError({ file, line: 0, field: '--release', message: `not a release folder (no ${RELEASE_FILES.nquads})`, hint: 'name a folder written by concordat build' });
+    if (!existsSync(file))
+      throw new UserError({
+        file,
+        line: 0,
+        field: '--release',
+        message: `not a release folder (no ${RELEASE_FILES.nquads})`,
+        hint: 'name a folder written by concordat build',
+      });
     store.addQuads(await readRdfFile(file));
     return store;
   }
   const folder = src.store!;
   const manifest = await readManifest(folder);
-  const files = Object.keys(manifest.graphs).sort().map((g) => path.join(folder, manifest.graphs[g].file));
-  if (files.length === 0) throw new UserError({ file: folder, line: 0, field: '--store', message: 'the store folder holds no graphs', hint: 'load a release first: concordat load <release> --store <folder>' });
+  const files = Object.keys(manifest.graphs)
+    .sort()
+    .map((g) => path.join(folder, manifest.graphs[g].file));
+  if (files.length === 0)
+    throw new UserError({
+      file: folder,
+      line: 0,
+      field: '--store',
+      message: 'the store folder holds no graphs',
+      hint: 'load a release first: concordat load <release> --store <folder>',
+    });
   for (const f of files) store.addQuads(await readRdfFile(f));
   return store;
 }

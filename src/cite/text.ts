@@ -14,7 +14,10 @@ const VERB: Record<string, (s: string, o: string) => string> = {
   'related/confirmed': (s, o) => `${s} and ${o} show related but distinct works`,
   'related/proposed': (s, o) => `${s} and ${o} probably show related works`,
 };
-const verb = (c: CitedClaim) => (c.status === 'rejected' ? (s: string, o: string) => `${s} and ${o} do not show the same work` : VERB[`${c.kind}/${c.status}`]);
+const verb = (c: CitedClaim) =>
+  c.status === 'rejected'
+    ? (s: string, o: string) => `${s} and ${o} do not show the same work`
+    : VERB[`${c.kind}/${c.status}`];
 
 /** "A and B show the same work" (the claim without its basis and release). */
 export const claimPhrase = (c: CitedClaim) => verb(c)(name(c.subject), name(c.object));
@@ -23,57 +26,111 @@ export const claimPhrase = (c: CitedClaim) => verb(c)(name(c.subject), name(c.ob
 export function assertedBy(c: CitedClaim): { kind: 'curator' | 'run'; name: string } {
   if (c.review) return { kind: 'curator', name: c.review.curatorName ?? c.review.curator };
   const run = c.runs[0];
-  return { kind: 'run', name: run ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})` : 'a matcher' };
+  return {
+    kind: 'run',
+    name: run ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})` : 'a matcher',
+  };
 }
 
 function basis(c: CitedClaim): string {
   const r = c.review;
-  if (r) return `${c.status === 'rejected' ? 'as judged by' : c.status === 'confirmed' ? 'confirmed by' : 'reviewed by'} ${r.curatorName ?? r.curator}${r.date ? ` on ${r.date.slice(0, 10)}` : ''}`;
+  if (r)
+    return `${c.status === 'rejected' ? 'as judged by' : c.status === 'confirmed' ? 'confirmed by' : 'reviewed by'} ${r.curatorName ?? r.curator}${r.date ? ` on ${r.date.slice(0, 10)}` : ''}`;
   const run = c.runs[0];
-  const who = run ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})` : 'a matcher';
+  const who = run
+    ? `${run.software ?? 'a matcher'}${run.version ? ` ${run.version}` : ''} (run ${run.id})`
+    : 'a matcher';
   return c.status === 'confirmed' ? `confirmed automatically on the score of ${who}` : `proposed by ${who}`;
 }
 
 const evidence = (c: CitedClaim) =>
-  c.matches.length ? `on the evidence of ${plural(c.matches.length, 'image match')}${c.score !== undefined ? ` (best score ${c.score})` : ''}` : 'without image-match evidence';
+  c.matches.length
+    ? `on the evidence of ${plural(c.matches.length, 'image match')}${c.score !== undefined ? ` (best score ${c.score})` : ''}`
+    : 'without image-match evidence';
 
 export function releaseLine(r: CitedRelease): string {
-  return [r.title, `release ${r.version}${r.issued ? ` (${r.issued})` : ''}`, r.publisher, r.license ? `licence ${r.license}` : undefined].filter(Boolean).join(', ');
+  return [
+    r.title,
+    `release ${r.version}${r.issued ? ` (${r.issued})` : ''}`,
+    r.publisher,
+    r.license ? `licence ${r.license}` : undefined,
+  ]
+    .filter(Boolean)
+    .join(', ');
 }
 
-/** "A and B show the same work, confirmed by C on D, on the evidence of N image matches (best score S). Title, release V (date), publisher, licence L, <link>." */
+/**
+ * "A and B show the same work, confirmed by C on D, on the evidence of N image matches (best score S). Title, release V
+ * (date), publisher, licence L, <link>."
+ */
 export function sentence(c: CitedClaim, r: CitedRelease): string {
   return `${verb(c)(name(c.subject), name(c.object))}, ${basis(c)}, ${evidence(c)}. ${releaseLine(r)}, ${c.link}.`;
 }
 
 function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): string[] {
-  const out = [item(`claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`)];
-  c.matches.forEach((m) => out.push(item(`image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`)));
+  const out = [
+    item(
+      `claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`,
+    ),
+  ];
+  c.matches.forEach((m) =>
+    out.push(
+      item(
+        `image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`,
+      ),
+    ),
+  );
   for (const run of c.runs) {
     const params = run.parameters.map((p) => `${p.name}=${p.value}`).join(', ');
-    out.push(item(`run ${run.id}: ${run.software ?? '?'} ${run.version ?? ''}${run.started ? `, started ${run.started}` : ''}${params ? `; parameters ${params}` : ''} <${run.iri}>`));
+    out.push(
+      item(
+        `run ${run.id}: ${run.software ?? '?'} ${run.version ?? ''}${run.started ? `, started ${run.started}` : ''}${params ? `; parameters ${params}` : ''} <${run.iri}>`,
+      ),
+    );
   }
   const v = c.review;
-  if (v) out.push(item(`curator: ${v.curatorName ? `${v.curatorName} ` : ''}<${v.curator}>${v.date ? `, ${v.date}` : ''}${v.verdict ? `, verdict ${v.verdict}` : ''}${v.note ? `, note "${v.note}"` : ''} <${v.iri}>`));
-  out.push(item(`release: ${r.version}${r.issued ? `, issued ${r.issued}` : ''}${r.license ? `, licence <${r.license}>` : ''}, dataset <${r.dataset}>`));
+  if (v)
+    out.push(
+      item(
+        `curator: ${v.curatorName ? `${v.curatorName} ` : ''}<${v.curator}>${v.date ? `, ${v.date}` : ''}${v.verdict ? `, verdict ${v.verdict}` : ''}${v.note ? `, note "${v.note}"` : ''} <${v.iri}>`,
+      ),
+    );
+  out.push(
+    item(
+      `release: ${r.version}${r.issued ? `, issued ${r.issued}` : ''}${r.license ? `, licence <${r.license}>` : ''}, dataset <${r.dataset}>`,
+    ),
+  );
   return out;
 }
 
-/** A date conflict in words: the record whose date disagrees (work A), then a record giving the cluster's date (work B). */
+/**
+ * A date conflict in words: the record whose date disagrees (work A), then a record giving the cluster's date (work B).
+ */
 export function conflictLine(x: CitedConflict): string {
   return `${x.severity ?? 'conflict'}: ${name(x.a)} dated "${x.a.date ?? ''}", where ${name(x.b)} gives the date most of the cluster gives, "${x.b.date ?? ''}" <${x.iri}>`;
 }
 
-const heading = (c: Citation) => `${c.claims.length} claim${c.claims.length === 1 ? '' : 's'} about ${c.query} in release ${c.release.version}`;
+const heading = (c: Citation) =>
+  `${c.claims.length} claim${c.claims.length === 1 ? '' : 's'} about ${c.query} in release ${c.release.version}`;
 
 /** Plain text: per claim, the sentence, then "Evidence:" and one indented line per fact. */
 export function citationText(c: Citation): string {
-  const blocks = c.claims.map((x) => [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`)].join('\n'));
-  const conflicts = c.conflicts?.length ? ['', `Date conflicts in this cluster (${c.conflicts.length}):`, ...c.conflicts.map((x) => `  - ${conflictLine(x)}`)] : [];
+  const blocks = c.claims.map((x) =>
+    [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`)].join('\n'),
+  );
+  const conflicts = c.conflicts?.length
+    ? [
+        '',
+        `Date conflicts in this cluster (${c.conflicts.length}):`,
+        ...c.conflicts.map((x) => `  - ${conflictLine(x)}`),
+      ]
+    : [];
   return [heading(c), '', blocks.join('\n\n'), ...conflicts, ''].join('\n');
 }
 
-/** Escapes Markdown punctuation (CommonMark §2.4) and `<` that would open an HTML tag; keeps `<https://…>` autolinks. */
+/**
+ * Escapes Markdown punctuation (CommonMark §2.4) and `<` that would open an HTML tag; keeps `<https://…>` autolinks.
+ */
 const md = (s: string) => s.replace(/([\\`*_[\]|])/g, '\\$1').replace(/<(?=[A-Za-z/!?])(?!https?:)/g, '\\<');
 
 /** Markdown: a heading, then per claim the sentence as a paragraph, an evidence table and a list of the rest. */
@@ -83,11 +140,15 @@ export function citationMarkdown(c: Citation): string {
     out.push(`## ${md(x.subject.ref)} – ${md(x.object.ref)}`, '', md(sentence(x, c.release)), '');
     if (x.matches.length) {
       out.push('| source image | target image | score | overlap | run |', '|---|---|---:|---:|---|');
-      for (const m of x.matches) out.push(`| <${m.source}> | <${m.target}> | ${m.score} | ${m.overlap} | ${md(m.run?.replace(/^.*\//, '') ?? '')} |`);
+      for (const m of x.matches)
+        out.push(
+          `| <${m.source}> | <${m.target}> | ${m.score} | ${m.overlap} | ${md(m.run?.replace(/^.*\//, '') ?? '')} |`,
+        );
       out.push('');
     }
     out.push(...details(x, c.release, (s) => `- ${md(s)}`).filter((l) => !l.startsWith('- image match')), '');
   }
-  if (c.conflicts?.length) out.push('## Date conflicts in this cluster', '', ...c.conflicts.map((x) => `- ${md(conflictLine(x))}`), '');
+  if (c.conflicts?.length)
+    out.push('## Date conflicts in this cluster', '', ...c.conflicts.map((x) => `- ${md(conflictLine(x))}`), '');
   return out.join('\n');
 }

@@ -1,4 +1,5 @@
-// A citation as data: the claims a release holds about a work, pair or cluster, with their evidence chain and the release.
+// A citation as data: the claims a release holds about a work, pair or cluster, with their evidence chain and the
+// release.
 import type { Quad } from '@rdfjs/types';
 import type { ClaimKind, ClaimStatus } from '../history/types.js';
 

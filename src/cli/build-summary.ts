@@ -21,7 +21,8 @@ export interface ReleaseSummary {
 const PREFIXES = Object.entries(prefixMap());
 /** A predicate IRI as a prefixed name of the publishing prefixes when one fits, else the IRI. */
 const short = (iri: string) => {
-  for (const [p, ns] of PREFIXES) if (iri.startsWith(ns) && iri.length > ns.length) return `${p}:${iri.slice(ns.length)}`;
+  for (const [p, ns] of PREFIXES)
+    if (iri.startsWith(ns) && iri.length > ns.length) return `${p}:${iri.slice(ns.length)}`;
   return iri;
 };
 
@@ -34,7 +35,9 @@ export function releaseSummary(r: BuildResult): ReleaseSummary {
   }
   const claimTriples: Record<string, number> = {};
   for (const [p, n] of Object.entries(r.publish.claims).sort()) claimTriples[short(p)] = n;
-  const ex = r.links.links.filter((l) => l.kind === 'same' && l.status === 'confirmed' && l.support > 0).sort((a, b) => b.best - a.best)[0];
+  const ex = r.links.links
+    .filter((l) => l.kind === 'same' && l.status === 'confirmed' && l.support > 0)
+    .sort((a, b) => b.best - a.best)[0];
   return {
     version: r.model.project.release.version,
     works: r.model.works.length,
@@ -46,20 +49,37 @@ export function releaseSummary(r: BuildResult): ReleaseSummary {
     triples: r.publish.triples,
     violations: r.publish.validation.violations,
     warnings: r.publish.validation.warnings,
-    example: ex && (() => {
-      const [s, o] = claimEnds(ex);
-      // the predicate the release holds for this claim, from the vocab map (owl:sameAs, or e.g. skos:exactMatch)
-      const predicate = r.vocab.predicate(ex.kind, ex.status);
-      return { subject: workRef(r.model, s), predicate: predicate ? short(predicate) : '(no claim triple)', object: workRef(r.model, o), score: ex.best, support: ex.support, status: ex.status };
-    })(),
+    example:
+      ex &&
+      (() => {
+        const [s, o] = claimEnds(ex);
+        // the predicate the release holds for this claim, from the vocab map (owl:sameAs, or e.g. skos:exactMatch)
+        const predicate = r.vocab.predicate(ex.kind, ex.status);
+        return {
+          subject: workRef(r.model, s),
+          predicate: predicate ? short(predicate) : '(no claim triple)',
+          object: workRef(r.model, o),
+          score: ex.best,
+          support: ex.support,
+          status: ex.status,
+        };
+      })(),
   };
 }
 
 export function releaseSummaryText(s: ReleaseSummary, where: string): string {
-  const lines = [`release ${s.version} written to ${where}`, `  ${s.triples} triples; SHACL: ${s.violations} violations, ${s.warnings} warnings`, `  clusters: ${s.clusters}, implied pairs: ${s.impliedPairs}, bridges: ${s.bridges}`, '  claim triples:'];
+  const lines = [
+    `release ${s.version} written to ${where}`,
+    `  ${s.triples} triples; SHACL: ${s.violations} violations, ${s.warnings} warnings`,
+    `  clusters: ${s.clusters}, implied pairs: ${s.impliedPairs}, bridges: ${s.bridges}`,
+    '  claim triples:',
+  ];
   for (const [p, n] of Object.entries(s.claimTriples)) lines.push(`    ${p.padEnd(18)} ${n}`);
   lines.push('  links by kind/status:');
   for (const [k, n] of Object.entries(s.links)) lines.push(`    ${k.padEnd(18)} ${n}`);
-  if (s.example) lines.push(`  example claim: ${s.example.subject} ${s.example.predicate} ${s.example.object} (score ${s.example.score}, ${s.example.support} image pair${s.example.support === 1 ? "" : "s"}, ${s.example.status})`);
+  if (s.example)
+    lines.push(
+      `  example claim: ${s.example.subject} ${s.example.predicate} ${s.example.object} (score ${s.example.score}, ${s.example.support} image pair${s.example.support === 1 ? '' : 's'}, ${s.example.status})`,
+    );
   return lines.join('\n') + '\n';
 }

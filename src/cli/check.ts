@@ -7,7 +7,10 @@ export function register(program: Command): void {
     .description('read the project file and every input it names; report problems or print a summary')
     .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
     .option('--json', 'print the summary as JSON on stdout')
-    .addHelpText('after', '\nExample:\n  concordat check demo-data/concordance.json\n\nExit codes: 0 clean (warnings allowed), 2 bad input (each problem as file:line: field: message (hint)).')
+    .addHelpText(
+      'after',
+      '\nExample:\n  concordat check demo-data/concordance.json\n\nExit codes: 0 clean (warnings allowed), 2 bad input (each problem as file:line: field: message (hint)).',
+    )
     .action(async (project: string, opts: { json?: boolean }) => {
       const { load } = await import('../load/index.js'); // loaded on use: keeps --help fast
       const { summarise, summaryText } = await import('../load/summary.js');

@@ -15,4 +15,17 @@ import { register as serve } from './serve.js';
 
 export type Register = (program: Command) => void;
 
-export const commands: Register[] = [check, build, validate, load, query, sweep, diff, cite, init, addPartner, site, serve];
+export const commands: Register[] = [
+  check,
+  build,
+  validate,
+  load,
+  query,
+  sweep,
+  diff,
+  cite,
+  init,
+  addPartner,
+  site,
+  serve,
+];

@@ -17,9 +17,14 @@ interface LoadOpts {
 export function register(program: Command): void {
   program
     .command('load')
-    .description('load a release into a store: each named graph of concordance.nq under its own IRI, a partner slice, or everything into one graph')
+    .description(
+      'load a release into a store: each named graph of concordance.nq under its own IRI, a partner slice, or everything into one graph',
+    )
     .argument('<release>', 'a release folder, e.g. releases/2026.1')
-    .option('--store <folder>', 'embedded store folder (created if missing; one N-Quads file per graph + manifest.json)')
+    .option(
+      '--store <folder>',
+      'embedded store folder (created if missing; one N-Quads file per graph + manifest.json)',
+    )
     .option('--endpoint <url>', 'remote SPARQL 1.1 Graph Store Protocol URL')
     .option('--update <url>', 'remote SPARQL 1.1 Update URL')
     .option('--query-endpoint <url>', 'remote SPARQL 1.1 Query URL (as in concordat query)')
@@ -39,15 +44,28 @@ export function register(program: Command): void {
       const { openStore } = await import('../store/open.js');
       const { loadRelease, planRelease } = await import('../store/release.js');
       if (opts.query) deprecated('--query', '--query-endpoint');
-      const store = await openStore({ store: opts.store, endpoint: opts.endpoint, update: opts.update, query: opts.queryEndpoint ?? opts.query });
+      const store = await openStore({
+        store: opts.store,
+        endpoint: opts.endpoint,
+        update: opts.update,
+        query: opts.queryEndpoint ?? opts.query,
+      });
       try {
         const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
         const t0 = performance.now();
         const { loads: done, dropped } = await loadRelease(store, plan, { graph: opts.graph });
         const graphs = done.map((d) => ({ graph: d.graph, triples: d.triples }));
-        for (const d of dropped) process.stderr.write(`concordat: removed <${d.graph}> from the store: it held ${d.release ? `release ${d.release}` : 'no release version'}, not the one loaded\n`);
-        process.stdout.write(opts.json ? JSON.stringify({ release, graphs, dropped }, null, 2) + '\n' : graphs.map((g) => `${g.graph}\t${g.triples}\n`).join(''));
-        if (process.stderr.isTTY) process.stderr.write(`loaded ${done.length} graph(s) in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
+        for (const d of dropped)
+          process.stderr.write(
+            `concordat: removed <${d.graph}> from the store: it held ${d.release ? `release ${d.release}` : 'no release version'}, not the one loaded\n`,
+          );
+        process.stdout.write(
+          opts.json
+            ? JSON.stringify({ release, graphs, dropped }, null, 2) + '\n'
+            : graphs.map((g) => `${g.graph}\t${g.triples}\n`).join(''),
+        );
+        if (process.stderr.isTTY)
+          process.stderr.write(`loaded ${done.length} graph(s) in ${((performance.now() - t0) / 1000).toFixed(1)} s\n`);
       } finally {
         await store.close();
       }

@@ -1,5 +1,6 @@
 #!/usr/bin/env -S node --max-semi-space-size=64 --heap-growing-percent=30
-// Command-line entry: registers one subcommand per file in src/cli/ and maps errors to exit codes. The shebang gives V8 a
+// Command-line entry: registers one subcommand per file in src/cli/ and maps errors to exit codes. The shebang gives V8
+// a
 // larger young generation: the build makes many short-lived objects (measured: a 10k-work build ran about 30% faster);
 // and lets the old generation grow by 30% over what survived the last full collection instead of V8's own, larger
 // factor (measured at 1M works: peak RSS 4.4 → 3.3 GiB at the same build time).
@@ -10,7 +11,9 @@ import { commands } from './commands.js';
 import { osUserError } from '../util/os-error.js';
 
 const program = new Command('concordat')
-  .description('Publish a validated linked-data concordance of artworks from image-match evidence across partner photo archives.')
+  .description(
+    'Publish a validated linked-data concordance of artworks from image-match evidence across partner photo archives.',
+  )
   .version('0.1.0')
   .exitOverride()
   .showHelpAfterError('(add --help for usage)');

@@ -1,17 +1,26 @@
-// Option values shared by commands: numbers checked as they are parsed (the message names the option), deprecated aliases.
+// Option values shared by commands: numbers checked as they are parsed (the message names the option), deprecated
+// aliases.
 import { InvalidArgumentError } from 'commander';
 
 /**
- * A commander argument parser for a number in [min, max] ((min, max] when `above`; whole when `integer`). Commander reports a refusal as
+ * A commander argument parser for a number in [min, max] ((min, max] when `above`; whole when `integer`). Commander
+ * reports a refusal as
  * `option '--from <score>' argument 'abc' is invalid. "abc" is not a number …`, so the message names the option.
  */
-export function numberIn(min: number, max: number, { integer = false, example, above = false }: { integer?: boolean; example: string; above?: boolean }): (value: string) => number {
+export function numberIn(
+  min: number,
+  max: number,
+  { integer = false, example, above = false }: { integer?: boolean; example: string; above?: boolean },
+): (value: string) => number {
   const what = `a ${integer ? 'whole ' : ''}number ${above ? `above ${min} and at most` : `from ${min} to`} ${max}`;
   return (value) => {
     const n = Number(value.trim().replace(/^(\d*),(\d+)$/, '$1.$2')); // a decimal comma is read as a decimal point
-    if (value.trim() === '' || !Number.isFinite(n)) throw new InvalidArgumentError(`"${value}" is not a number: give ${what}, e.g. ${example}.`);
-    if (integer && !Number.isInteger(n)) throw new InvalidArgumentError(`${value} is not a whole number: give ${what}, e.g. ${example}.`);
-    if (n < min || n > max || (above && n === min)) throw new InvalidArgumentError(`${value} is out of range: give ${what}, e.g. ${example}.`);
+    if (value.trim() === '' || !Number.isFinite(n))
+      throw new InvalidArgumentError(`"${value}" is not a number: give ${what}, e.g. ${example}.`);
+    if (integer && !Number.isInteger(n))
+      throw new InvalidArgumentError(`${value} is not a whole number: give ${what}, e.g. ${example}.`);
+    if (n < min || n > max || (above && n === min))
+      throw new InvalidArgumentError(`${value} is out of range: give ${what}, e.g. ${example}.`);
     return n;
   };
 }

@@ -20,8 +20,18 @@ export function register(program: Command): void {
     .option('--store <folder>', 'embedded store folder written by concordat load')
     .option('--query-endpoint <url>', 'remote SPARQL 1.1 Query URL')
     .option('--named <name>', 'a query shipped in queries/, e.g. cluster-members')
-    .option('--param <key=value>', 'value for a parameter the query header declares (repeatable)', (v: string, all: string[]) => [...all, v], [] as string[])
-    .addOption(new Option('--format <format>', 'SELECT output: aligned table (default on a terminal), SPARQL JSON, CSV or TSV (default otherwise)').choices(['table', 'json', 'csv', 'tsv']))
+    .option(
+      '--param <key=value>',
+      'value for a parameter the query header declares (repeatable)',
+      (v: string, all: string[]) => [...all, v],
+      [] as string[],
+    )
+    .addOption(
+      new Option(
+        '--format <format>',
+        'SELECT output: aligned table (default on a terminal), SPARQL JSON, CSV or TSV (default otherwise)',
+      ).choices(['table', 'json', 'csv', 'tsv']),
+    )
     .option('--json', 'SELECT and ASK results as SPARQL 1.1 Query Results JSON (the same as --format json)')
     .addHelpText(
       'after',
@@ -31,14 +41,21 @@ export function register(program: Command): void {
         'Parameters are bound as escaped terms, never pasted as text. Exit codes: 0 ran, 1 the store failed, 2 bad query or usage.',
     )
     .action(async (arg: string | undefined, opts: QueryOpts) => {
-      if (opts.json && opts.format && opts.format !== 'json') throw new UserError({ file: 'command line', line: 0, field: '--json', message: `cannot be combined with --format ${opts.format}`, hint: 'give one of them' });
+      if (opts.json && opts.format && opts.format !== 'json')
+        throw new UserError({
+          file: 'command line',
+          line: 0,
+          field: '--json',
+          message: `cannot be combined with --format ${opts.format}`,
+          hint: 'give one of them',
+        });
       const { formatResult } = await import('../store/format.js');
       const { openStore, parseParams, queryText } = await import('../store/open.js');
       const sparql = await queryText(arg, opts.named, parseParams(opts.param));
       const store = await openStore({ store: opts.store, query: opts.queryEndpoint, existing: true });
       try {
         const result = await store.query(sparql);
-        const format = opts.json ? 'json' : opts.format ?? (process.stdout.isTTY ? 'table' : 'tsv');
+        const format = opts.json ? 'json' : (opts.format ?? (process.stdout.isTTY ? 'table' : 'tsv'));
         process.stdout.write(formatResult(result, format));
       } finally {
         await store.close();

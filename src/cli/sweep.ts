@@ -9,9 +9,17 @@ export function register(program: Command): void {
     .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
     .option('--from <score>', 'lowest proposeAt (0 to 1)', score('0.4'), 0.3)
     .option('--to <score>', 'highest proposeAt (0 to 1)', score('0.9'), 0.95)
-    .option('--step <score>', 'distance between thresholds (above 0, at most 1)', numberIn(0, 1, { above: true, example: '0.05' }), 0.05)
+    .option(
+      '--step <score>',
+      'distance between thresholds (above 0, at most 1)',
+      numberIn(0, 1, { above: true, example: '0.05' }),
+      0.05,
+    )
     .option('--json', 'print the rows as JSON on stdout')
-    .addHelpText('after', '\nExample:\n  concordat sweep demo-data/concordance.json --from 0.4 --to 0.9 --step 0.1\n\nExit codes: 0 measured, 2 bad input or no gold concordance.')
+    .addHelpText(
+      'after',
+      '\nExample:\n  concordat sweep demo-data/concordance.json --from 0.4 --to 0.9 --step 0.1\n\nExit codes: 0 measured, 2 bad input or no gold concordance.',
+    )
     .action(async (project: string, opts: { from: number; to: number; step: number; json?: boolean }) => {
       const { load } = await import('../load/index.js');
       const { sweep, sweepValues, sweepTable } = await import('../analyse/index.js');

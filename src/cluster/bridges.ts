@@ -39,7 +39,8 @@ export function findBridges(n: number, g: Adjacency, edgeCount: number): Bridges
       const v = stack[sp - 1];
       if (next[v] < g.offset[v + 1]) {
         const i = next[v]++;
-        const w = g.target[i], e = g.edge[i];
+        const w = g.target[i],
+          e = g.edge[i];
         if (e === parentEdge[v]) continue;
         if (disc[w] === -1) {
           disc[w] = low[w] = time++;
@@ -54,7 +55,10 @@ export function findBridges(n: number, g: Adjacency, edgeCount: number): Bridges
           const u = stack[sp - 1];
           if (low[v] < low[u]) low[u] = low[v];
           size[u] += size[v];
-          if (low[v] > disc[u]) { here.push(parentEdge[v]); minSide[parentEdge[v]] = size[v]; }
+          if (low[v] > disc[u]) {
+            here.push(parentEdge[v]);
+            minSide[parentEdge[v]] = size[v];
+          }
         }
       }
     }
@@ -64,8 +68,16 @@ export function findBridges(n: number, g: Adjacency, edgeCount: number): Bridges
     }
     count += here.length;
   }
-  const out: Bridges = { edges: new Int32Array(count), minSide: new Int32Array(count), component: new Int32Array(count) };
+  const out: Bridges = {
+    edges: new Int32Array(count),
+    minSide: new Int32Array(count),
+    component: new Int32Array(count),
+  };
   for (let e = 0, k = 0; e < edgeCount; e++)
-    if (minSide[e] > 0) { out.edges[k] = e; out.minSide[k] = minSide[e]; out.component[k++] = component[e]; }
+    if (minSide[e] > 0) {
+      out.edges[k] = e;
+      out.minSide[k] = minSide[e];
+      out.component[k++] = component[e];
+    }
   return out;
 }

@@ -39,28 +39,46 @@ export function coherentClaims(model: Model, linkSet: LinkSet, sameEdges: readon
   const n = model.works.length;
   const curator = (e: number) => links[e].decision !== undefined;
   // sort keys read once into typed arrays (links are records over columns: a getter per read)
-  const cur = Uint8Array.from(sameEdges, (e) => Number(curator(e))), conf = Float64Array.from(sameEdges, (e) => links[e].confidence);
-  const order = Int32Array.from(sameEdges.keys()).sort((x, y) => cur[y] - cur[x] || conf[y] - conf[x] || sameEdges[x] - sameEdges[y]).map((k) => sameEdges[k]);
+  const cur = Uint8Array.from(sameEdges, (e) => Number(curator(e))),
+    conf = Float64Array.from(sameEdges, (e) => links[e].confidence);
+  const order = Int32Array.from(sameEdges.keys())
+    .sort((x, y) => cur[y] - cur[x] || conf[y] - conf[x] || sameEdges[x] - sameEdges[y])
+    .map((k) => sameEdges[k]);
   const uf = new UnionFind(n);
   const size = new Int32Array(n).fill(1);
-  const kept: number[] = [], cut: number[] = [], reason: number[] = [];
+  const kept: number[] = [],
+    cut: number[] = [],
+    reason: number[] = [];
   for (const e of order) {
-    const ra = uf.find(links[e].a), rb = uf.find(links[e].b);
+    const ra = uf.find(links[e].a),
+      rb = uf.find(links[e].b);
     if (ra !== rb) {
-      if (!curator(e) && size[ra] + size[rb] > cap) { cut.push(e); reason.push(0); continue; }
+      if (!curator(e) && size[ra] + size[rb] > cap) {
+        cut.push(e);
+        reason.push(0);
+        continue;
+      }
       uf.union(ra, rb);
       size[uf.find(ra)] = size[ra] + size[rb];
     }
     kept.push(e);
   }
   kept.sort((x, y) => x - y);
-  const g = adjacency(n, kept, (e) => links[e].a, (e) => links[e].b);
+  const g = adjacency(
+    n,
+    kept,
+    (e) => links[e].a,
+    (e) => links[e].b,
+  );
   const bridges = findBridges(n, g, links.length);
   const weak = new Set<number>();
   bridges.edges.forEach((e, k) => {
     if (bridges.minSide[k] >= 2 && !curator(e) && links[e].confidence < BRIDGE_KEEP_AT) weak.add(e);
   });
-  for (const e of weak) { cut.push(e); reason.push(1); }
+  for (const e of weak) {
+    cut.push(e);
+    reason.push(1);
+  }
   const byLink = Array.from(cut.keys()).sort((x, y) => cut[x] - cut[y]);
   return {
     kept: weak.size ? kept.filter((e) => !weak.has(e)) : kept,
@@ -95,7 +113,9 @@ export function unweighed(model: Model, linkSet: LinkSet): Unweighed {
   }
   const size = new Int32Array(n);
   for (let w = 0; w < n; w++) size[uf.find(w)]++;
-  let clusters = 0, largest = 0, pairs = 0;
+  let clusters = 0,
+    largest = 0,
+    pairs = 0;
   for (let w = 0; w < n; w++) {
     if (size[w] < 2) continue;
     clusters++;

@@ -8,7 +8,12 @@ export interface Adjacency {
 }
 
 /** Builds CSR adjacency over `n` vertices from the links whose indexes are in `edges` (each link gives two entries). */
-export function adjacency(n: number, edges: ArrayLike<number>, a: (e: number) => number, b: (e: number) => number): Adjacency {
+export function adjacency(
+  n: number,
+  edges: ArrayLike<number>,
+  a: (e: number) => number,
+  b: (e: number) => number,
+): Adjacency {
   const offset = new Int32Array(n + 1);
   for (let i = 0; i < edges.length; i++) {
     offset[a(edges[i]) + 1]++;
@@ -19,9 +24,13 @@ export function adjacency(n: number, edges: ArrayLike<number>, a: (e: number) =>
   const target = new Int32Array(offset[n]);
   const edge = new Int32Array(offset[n]);
   for (let i = 0; i < edges.length; i++) {
-    const e = edges[i], x = a(e), y = b(e);
-    target[fill[x]] = y; edge[fill[x]++] = e;
-    target[fill[y]] = x; edge[fill[y]++] = e;
+    const e = edges[i],
+      x = a(e),
+      y = b(e);
+    target[fill[x]] = y;
+    edge[fill[x]++] = e;
+    target[fill[y]] = x;
+    edge[fill[y]++] = e;
   }
   return { offset, target, edge };
 }

@@ -1,4 +1,5 @@
-// New clusters (as member refs) + the previous release's ID registry → stable opaque IDs and retired IDs with successors.
+// New clusters (as member refs) + the previous release's ID registry → stable opaque IDs and retired IDs with
+// successors.
 import type { ClusterRegistry, RetiredId } from './types.js';
 
 const ID = /^c(\d+)$/;
@@ -66,7 +67,10 @@ export function assignIds(clusters: readonly (readonly string[])[], previous?: C
   const final = ids.map((id) => id ?? formatClusterId(++highest));
   for (const id of oldIds) {
     if (kept.has(id)) continue;
-    const succ = overlaps.get(id)!.map(([ci, n]) => [final[ci], n] as const).sort((x, y) => y[1] - x[1] || byNumber(x[0], y[0]));
+    const succ = overlaps
+      .get(id)!
+      .map(([ci, n]) => [final[ci], n] as const)
+      .sort((x, y) => y[1] - x[1] || byNumber(x[0], y[0]));
     retired.push({ id, replacedBy: succ.map((s) => s[0]) });
   }
   retired.sort((x, y) => byNumber(x.id, y.id));

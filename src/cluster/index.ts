@@ -30,17 +30,28 @@ export const PAIRWISE_LIMIT = 64;
 /**
  * Clusters = connected components of ≥ 2 works over `same` links that are confirmed or proposed (design, pipeline
  * step 3), found by union-find over work numbers in typed arrays. Diagnostics: implied pairs, bridges (Tarjan 1974)
- * in clusters of three or more works with the size of their smaller side, oversized clusters. IDs stay stable against `previous` (see assignIds; standards digest §9).
+ * in clusters of three or more works with the size of their smaller side, oversized clusters. IDs stay stable against
+ * `previous` (see assignIds; standards digest §9).
  */
-export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegistry, options: ClusterOptions = {}): Clustering {
+export function cluster(
+  model: Model,
+  linkSet: LinkSet,
+  previous?: ClusterRegistry,
+  options: ClusterOptions = {},
+): Clustering {
   const n = model.works.length;
   const links = linkSet.links;
   const oversizeAt = options.oversizeAt ?? OVERSIZE_PER_PARTNER * model.project.partners.length;
   const before = unweighed(model, linkSet);
   const claims: number[] = [];
-  links.forEach((l, i) => { if (l.kind === 'same' && isClaim(l)) claims.push(i); });
+  links.forEach((l, i) => {
+    if (l.kind === 'same' && isClaim(l)) claims.push(i);
+  });
   // coherent clusters (coherence.ts): the cut links are withheld from the release and go to review
-  const coherence = options.coherence === false ? { kept: claims, cut: new Int32Array(0), cutReason: new Uint8Array(0) } : coherentClaims(model, linkSet, claims, oversizeAt);
+  const coherence =
+    options.coherence === false
+      ? { kept: claims, cut: new Int32Array(0), cutReason: new Uint8Array(0) }
+      : coherentClaims(model, linkSet, claims, oversizeAt);
   for (const e of coherence.cut) linkSet.hold(e, 'split');
   const sameEdges = coherence.kept;
   const uf = new UnionFind(n);
@@ -54,13 +65,20 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   for (let w = 0; w < n; w++) {
     if (!inEdge[w]) continue;
     const r = uf.find(w);
-    if (tempOf[r] === -1) { tempOf[r] = memberCount.length; memberCount.push(0); }
+    if (tempOf[r] === -1) {
+      tempOf[r] = memberCount.length;
+      memberCount.push(0);
+    }
     memberCount[tempOf[r]]++;
   }
   const t = memberCount.length;
   const members = memberCount.map((c) => new Int32Array(c));
   const fill = new Int32Array(t);
-  for (let w = 0; w < n; w++) if (inEdge[w]) { const ti = tempOf[uf.find(w)]; members[ti][fill[ti]++] = w; }
+  for (let w = 0; w < n; w++)
+    if (inEdge[w]) {
+      const ti = tempOf[uf.find(w)];
+      members[ti][fill[ti]++] = w;
+    }
   const edgeLists: number[][] = members.map(() => []);
   for (const e of sameEdges) edgeLists[tempOf[uf.find(links[e].a)]].push(e);
 
@@ -70,7 +88,10 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   for (const m of members) m.sort((x, y) => rank[x] - rank[y]);
   const order = [...members.keys()].sort((x, y) => rank[members[x][0]] - rank[members[y][0]]);
 
-  const { ids, retired } = assignIds(order.map((ti) => Array.from(members[ti], (w) => workRef(model, w))), previous);
+  const { ids, retired } = assignIds(
+    order.map((ti) => Array.from(members[ti], (w) => workRef(model, w))),
+    previous,
+  );
   const clusters: Cluster[] = order.map((ti, k) => ({
     id: ids[k],
     members: members[ti],
@@ -82,7 +103,12 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
 
   const clusterOf = new Int32Array(n).fill(-1);
   clusters.forEach((c, ci) => c.members.forEach((w) => (clusterOf[w] = ci)));
-  const g = adjacency(n, sameEdges, (e) => links[e].a, (e) => links[e].b);
+  const g = adjacency(
+    n,
+    sameEdges,
+    (e) => links[e].a,
+    (e) => links[e].b,
+  );
   // the one link of a two-work cluster is trivially a bridge: only links of larger clusters are listed
   const found = findBridges(n, g, links.length);
   const keep = Array.from(found.edges.keys()).filter((i) => found.component[i] >= 3);
@@ -91,11 +117,32 @@ export function cluster(model: Model, linkSet: LinkSet, previous?: ClusterRegist
   const pairwiseLimit = options.pairwiseLimit ?? PAIRWISE_LIMIT;
   const { implied, total } = impliedPairs(model, linkSet, clusters, pairwiseLimit);
   const splits = splitsOf(model, linkSet, claims, coherence.cut, clusters, clusterOf);
-  return { clusters, clusterOf, implied, impliedTotal: total, bridges, bridgeMinSide, oversizeAt, pairwiseLimit, retired, cut: coherence.cut, cutReason: coherence.cutReason, splits, before };
+  return {
+    clusters,
+    clusterOf,
+    implied,
+    impliedTotal: total,
+    bridges,
+    bridgeMinSide,
+    oversizeAt,
+    pairwiseLimit,
+    retired,
+    cut: coherence.cut,
+    cutReason: coherence.cutReason,
+    splits,
+    before,
+  };
 }
 
 /** The components the claims would have formed that the cuts split, with the clusters made of them (by first ID). */
-function splitsOf(model: Model, linkSet: LinkSet, claims: number[], cut: Int32Array, clusters: Cluster[], clusterOf: Int32Array): Split[] {
+function splitsOf(
+  model: Model,
+  linkSet: LinkSet,
+  claims: number[],
+  cut: Int32Array,
+  clusters: Cluster[],
+  clusterOf: Int32Array,
+): Split[] {
   if (cut.length === 0) return [];
   const uf = new UnionFind(model.works.length);
   for (const e of claims) uf.union(linkSet.links[e].a, linkSet.links[e].b);

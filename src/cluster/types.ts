@@ -75,7 +75,10 @@ export interface Clustering {
    * or more works (the one link of a pair is trivially a bridge and is not listed).
    */
   bridges: Int32Array;
-  /** Parallel to `bridges`: works on the smaller side. ≥ 2 means the link joins two groups that would each stay a cluster. */
+  /**
+   * Parallel to `bridges`: works on the smaller side. ≥ 2 means the link joins two groups that would each stay a
+   * cluster.
+   */
   bridgeMinSide: Int32Array;
   oversizeAt: number;
   pairwiseLimit: number;

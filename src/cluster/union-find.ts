@@ -21,7 +21,8 @@ export class UnionFind {
 
   /** Joins the sets of x and y; returns false when they were already one. */
   union(x: number, y: number): boolean {
-    let rx = this.find(x), ry = this.find(y);
+    let rx = this.find(x),
+      ry = this.find(y);
     if (rx === ry) return false;
     if (this.rank[rx] < this.rank[ry]) [rx, ry] = [ry, rx];
     this.parent[ry] = rx;

@@ -17,12 +17,27 @@ export function daysInMonth(month: number, leap: boolean): number {
  * June–August (south); quarters, quadrimesters and semesters follow the calendar.
  */
 export const SUB_YEAR: Readonly<Record<number, readonly [number, number]>> = {
-  21: [3, 5], 22: [6, 8], 23: [9, 11], 24: [12, 12],
-  25: [3, 5], 26: [6, 8], 27: [9, 11], 28: [12, 12],
-  29: [9, 11], 30: [12, 12], 31: [3, 5], 32: [6, 8],
-  33: [1, 3], 34: [4, 6], 35: [7, 9], 36: [10, 12],
-  37: [1, 4], 38: [5, 8], 39: [9, 12],
-  40: [1, 6], 41: [7, 12],
+  21: [3, 5],
+  22: [6, 8],
+  23: [9, 11],
+  24: [12, 12],
+  25: [3, 5],
+  26: [6, 8],
+  27: [9, 11],
+  28: [12, 12],
+  29: [9, 11],
+  30: [12, 12],
+  31: [3, 5],
+  32: [6, 8],
+  33: [1, 3],
+  34: [4, 6],
+  35: [7, 9],
+  36: [10, 12],
+  37: [1, 4],
+  38: [5, 8],
+  39: [9, 12],
+  40: [1, 6],
+  41: [7, 12],
 };
 
 /**
@@ -36,7 +51,9 @@ export function tolerance(spanYears: number): number {
 }
 export const SUB_YEAR_TOLERANCE = 1;
 
-/** Width in years of "before Y" (Y−50 … Y) and "after Y" (Y … Y+50), boundary year included. Common practice, no source. */
+/**
+ * Width in years of "before Y" (Y−50 … Y) and "after Y" (Y … Y+50), boundary year included. Common practice, no source.
+ */
 export const BEFORE_AFTER_WIDTH = 50;
 
 /**
@@ -45,12 +62,26 @@ export const BEFORE_AFTER_WIDTH = 50;
  * Common practice, no source.
  */
 export const CENTURY_PARTS: Readonly<Record<string, readonly [number, number]>> = {
-  early: [0, 32], mid: [33, 66], middle: [33, 66], late: [67, 99],
-  'first half': [0, 49], '1st half': [0, 49], 'second half': [50, 99], '2nd half': [50, 99],
-  'first quarter': [0, 24], '1st quarter': [0, 24], 'second quarter': [25, 49], '2nd quarter': [25, 49],
-  'third quarter': [50, 74], '3rd quarter': [50, 74], 'fourth quarter': [75, 99], '4th quarter': [75, 99],
+  early: [0, 32],
+  mid: [33, 66],
+  middle: [33, 66],
+  late: [67, 99],
+  'first half': [0, 49],
+  '1st half': [0, 49],
+  'second half': [50, 99],
+  '2nd half': [50, 99],
+  'first quarter': [0, 24],
+  '1st quarter': [0, 24],
+  'second quarter': [25, 49],
+  '2nd quarter': [25, 49],
+  'third quarter': [50, 74],
+  '3rd quarter': [50, 74],
+  'fourth quarter': [75, 99],
+  '4th quarter': [75, 99],
   'last quarter': [75, 99],
-  'first third': [0, 32], 'second third': [33, 66], 'last third': [67, 99],
+  'first third': [0, 32],
+  'second third': [33, 66],
+  'last third': [67, 99],
 };
 
 /** Whether a two-character EDTF month/day token (digits or `X`, EDTF Level 1/2 "Unspecified digit") can be `n`. */

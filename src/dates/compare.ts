@@ -25,7 +25,9 @@ export function compareDates(a: DateReading, b: DateReading): DateAgreement {
   if (a.kind !== 'interval' || b.kind !== 'interval') return 'unknown';
   if (!overlaps(a, b)) return 'conflict';
   if (a.byConvention === undefined && b.byConvention === undefined) return 'agree';
-  return overlaps(strict(a, 'ordinal'), strict(b, 'ordinal')) && overlaps(strict(a, 'iso'), strict(b, 'iso')) ? 'agree' : 'soft';
+  return overlaps(strict(a, 'ordinal'), strict(b, 'ordinal')) && overlaps(strict(a, 'iso'), strict(b, 'iso'))
+    ? 'agree'
+    : 'soft';
 }
 
 function strict(r: IntervalReading, convention: 'ordinal' | 'iso'): YearSpan {

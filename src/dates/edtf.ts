@@ -34,7 +34,13 @@ export function parseEdtf(text: string): DateReading | null {
   return reading(p.minYear - w, p.maxYear + w, p.approx || p.significant, p.uncertain, p.century);
 }
 
-function reading(start: number, end: number, approximate: boolean, uncertain: boolean, century: number): IntervalReading {
+function reading(
+  start: number,
+  end: number,
+  approximate: boolean,
+  uncertain: boolean,
+  century: number,
+): IntervalReading {
   return century > 0
     ? { kind: 'interval', start, end, form: 'edtf', approximate, uncertain, century: { ordinal: century } }
     : { kind: 'interval', start, end, form: 'edtf', approximate, uncertain };
@@ -46,14 +52,22 @@ function century(n: number, qual: string | undefined): DateReading {
   if (start > LATEST_YEAR) return impossible(`impossible century ${n}: in the future (after ${LATEST_YEAR})`, HINT);
   const approximate = qual === '~' || qual === '%';
   const w = approximate ? tolerance(100) : 0;
-  return { kind: 'interval', start: start - w, end: start + 99 + w, form: 'century', approximate,
-    uncertain: qual === '?' || qual === '%', century: { ordinal: n + 1 } };
+  return {
+    kind: 'interval',
+    start: start - w,
+    end: start + 99 + w,
+    form: 'century',
+    approximate,
+    uncertain: qual === '?' || qual === '%',
+    century: { ordinal: n + 1 },
+  };
 }
 
 /** EDTF Level 0 "Time Interval" and Level 1 "Extended Interval": start/end, `..` open, empty unknown. */
 function interval(text: string, slash: number): DateReading | null {
   if (text.indexOf('/', slash + 1) >= 0) return null;
-  const a = text.slice(0, slash), b = text.slice(slash + 1);
+  const a = text.slice(0, slash),
+    b = text.slice(slash + 1);
   if (a === '' && b === '') return unread('no date on either side of "/"', HINT);
   const p = a === '' || a === '..' ? undefined : parsePoint(a, false);
   const q = b === '' || b === '..' ? undefined : parsePoint(b, false);
@@ -63,27 +77,40 @@ function interval(text: string, slash: number): DateReading | null {
   if (p !== undefined && q !== undefined && p.minKey > q.maxKey) {
     return impossible(`impossible interval ${text}: ends before it starts`, 'put the earlier date first');
   }
-  return reading(p === undefined ? -Infinity : p.minYear - widen(p), q === undefined ? Infinity : q.maxYear + widen(q),
-    estimated(p) || estimated(q), (p?.uncertain ?? false) || (q?.uncertain ?? false), 0);
+  return reading(
+    p === undefined ? -Infinity : p.minYear - widen(p),
+    q === undefined ? Infinity : q.maxYear + widen(q),
+    estimated(p) || estimated(q),
+    (p?.uncertain ?? false) || (q?.uncertain ?? false),
+    0,
+  );
 }
 
 /** EDTF Level 2 "Set representation": one of `[...]` or all of `{...}`; both read as the hull of their members. */
 function set(body: string): DateReading | null {
   if (body === '') return null;
   const parts = body.split(',');
-  let start = Infinity, end = -Infinity, approx = false, uncertain = false;
+  let start = Infinity,
+    end = -Infinity,
+    approx = false,
+    uncertain = false;
   for (let i = 0; i < parts.length; i++) {
     const part = parts[i];
     const dots = part.indexOf('..');
     const left = dots < 0 ? part : part.slice(0, dots);
     const right = dots < 0 ? part : part.slice(dots + 2);
-    if (dots >= 0 && (left === '' && i > 0 || right === '' && i < parts.length - 1 || left === '' && right === '')) return null;
+    if (
+      dots >= 0 &&
+      ((left === '' && i > 0) || (right === '' && i < parts.length - 1) || (left === '' && right === ''))
+    )
+      return null;
     const p = left === '' ? undefined : parsePoint(left, false);
     const q = right === '' ? undefined : dots < 0 ? p : parsePoint(right, false);
     if (p === null || q === null) return null;
     if (typeof p === 'string') return impossible(p, HINT);
     if (typeof q === 'string') return impossible(q, HINT);
-    if (p !== undefined && q !== undefined && p.minKey > q.maxKey) return impossible(`impossible set member ${part}: ends before it starts`, HINT);
+    if (p !== undefined && q !== undefined && p.minKey > q.maxKey)
+      return impossible(`impossible set member ${part}: ends before it starts`, HINT);
     start = Math.min(start, p === undefined ? -Infinity : p.minYear - widen(p));
     end = Math.max(end, q === undefined ? Infinity : q.maxYear + widen(q));
     approx ||= estimated(p) || estimated(q);

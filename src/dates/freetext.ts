@@ -13,10 +13,17 @@ const RANGE = new RegExp(`^(?:between )?(${A} ?)?(\\d{3,4})('?s)? ?(?:-|to|until
 const BOUND = /^(before|by|not after|earlier than|after|not before|later than) (\d{3,4})$/;
 const AFTER_WORDS = new Set(['after', 'not before', 'later than']);
 
-export const HINT = 'write a year (1475), ca. 1480, a range (1470-1490), a decade (1470s), a century (15th century), ' +
+export const HINT =
+  'write a year (1475), ca. 1480, a range (1470-1490), a decade (1470s), a century (15th century), ' +
   'before/after 1500, or EDTF (147X, 1470/1490)';
 
-export function interval(start: number, end: number, form: DateForm, approximate: boolean, uncertain: boolean): IntervalReading {
+export function interval(
+  start: number,
+  end: number,
+  form: DateForm,
+  approximate: boolean,
+  uncertain: boolean,
+): IntervalReading {
   return { kind: 'interval', start, end, form, approximate, uncertain };
 }
 
@@ -34,9 +41,11 @@ function future(y: number): DateReading {
 export function parseYearForms(s: string, approx: boolean, uncertain: boolean): DateReading | null {
   let m = YEAR.exec(s);
   if (m !== null) {
-    const n = Number(m[1]), era = m[2];
+    const n = Number(m[1]),
+      era = m[2];
     if (era === undefined && m[1].length < 3) return null; // "90" is not a year we dare read
-    if (n === 0 && era !== undefined) return impossible('impossible year 0: AD/BC counting has no year 0', 'write 1 BC or 1 AD');
+    if (n === 0 && era !== undefined)
+      return impossible('impossible year 0: AD/BC counting has no year 0', 'write 1 BC or 1 AD');
     const y = era !== undefined && era.startsWith('b') ? 1 - n : n;
     if (y > LATEST_YEAR) return future(y);
     const w = approx ? tolerance(1) : 0;
@@ -47,7 +56,10 @@ export function parseYearForms(s: string, approx: boolean, uncertain: boolean): 
     const start = Number(m[1]) * 100;
     if (start > LATEST_YEAR) return future(start);
     const w = approx ? tolerance(100) : 0;
-    return { ...interval(start - w, start + 99 + w, 'century', approx, uncertain), century: { ordinal: start / 100 + 1 } };
+    return {
+      ...interval(start - w, start + 99 + w, 'century', approx, uncertain),
+      century: { ordinal: start / 100 + 1 },
+    };
   }
   m = DECADE.exec(s);
   if (m !== null) {
@@ -73,10 +85,16 @@ function range(m: RegExpExecArray, approx: boolean, uncertain: boolean): DateRea
   const [, a1, startText, s1, a2, endText, s2] = m;
   const start = Number(startText);
   let end = Number(endText);
-  if (endText.length < startText.length) { const unit = 10 ** endText.length; end += start - (start % unit); }
+  if (endText.length < startText.length) {
+    const unit = 10 ** endText.length;
+    end += start - (start % unit);
+  }
   const endLast = s2 !== undefined ? end + 9 : end;
   if (endLast < start) {
-    return impossible(`impossible range ${startText}-${endText}: ends before it starts`, 'put the earlier year first (1470-1490)');
+    return impossible(
+      `impossible range ${startText}-${endText}: ends before it starts`,
+      'put the earlier year first (1470-1490)',
+    );
   }
   if (start > LATEST_YEAR || endLast > LATEST_YEAR) return future(Math.max(start, endLast));
   const w1 = approx || a1 !== undefined ? tolerance(s1 !== undefined ? 10 : 1) : 0;

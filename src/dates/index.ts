@@ -1,11 +1,29 @@
 // Catalogued date text → an interval of astronomical years (or empty / impossible / unread); two readings → agreement.
-import { type CenturyConvention, type DateReading, type IntervalReading, EMPTY, LATEST_YEAR, impossible, unread } from './types.js';
+import {
+  type CenturyConvention,
+  type DateReading,
+  type IntervalReading,
+  EMPTY,
+  LATEST_YEAR,
+  impossible,
+  unread,
+} from './types.js';
 import { parseEdtf } from './edtf.js';
 import { APPROX_PREFIX, HINT, interval, parseYearForms } from './freetext.js';
 import { parseCentury } from './century.js';
 import { type DateLanguage, DATE_LANGUAGES, canonicalPhrase } from './languages.js';
 
-export type { CenturyConvention, DateForm, DateReading, EmptyReading, IntervalReading, ImpossibleReading, InvalidReading, UnreadReading, YearSpan } from './types.js';
+export type {
+  CenturyConvention,
+  DateForm,
+  DateReading,
+  EmptyReading,
+  IntervalReading,
+  ImpossibleReading,
+  InvalidReading,
+  UnreadReading,
+  YearSpan,
+} from './types.js';
 export { LATEST_YEAR } from './types.js';
 export { DATE_LANGUAGES, type DateLanguage } from './languages.js';
 export { type DateAgreement, compareDates } from './compare.js';
@@ -23,10 +41,12 @@ const APPROX_SUFFIX = / (?:approx\.?|approximately|circa|ca\.?)$/;
  * open or unknown EDTF ends are ±Infinity. Order: blank → empty; EDTF (LoC EDTF 2019, Levels 0–2, and ISO 8601-2
  * centuries `14`; see parseEdtf); then free text (case and spacing ignored, en dashes read as hyphens): year forms
  * (parseYearForms) and century labels (parseCentury, where `convention` applies), each optionally prefixed with
- * ca./c./circa/about/approx. or followed by approx./approximately (widened by `tolerance`) and suffixed with `?` (uncertain). `YYYY-NN` with NN greater
+ * ca./c./circa/about/approx. or followed by approx./approximately (widened by `tolerance`) and suffixed with `?`
+ * (uncertain). `YYYY-NN` with NN greater
  * than YYYY's last two digits (`1520-22`, `1910-30`) is read as the abbreviated range, which also covers the EDTF
  * month or season reading. Impossible dates (month 13, 31 June, 29 February 1475, range ending before its start,
- * year after LATEST_YEAR, 0th century) are `impossible` with a reason naming the broken rule; text we cannot read is `unread`
+ * year after LATEST_YEAR, 0th century) are `impossible` with a reason naming the broken rule; text we cannot read is
+ * `unread`
  * with reason "not a date form we can read". Free text that is not canonical English is then read in the partner's
  * `language` (canonicalPhrase), or, when the partner names none, in every language of DATE_LANGUAGES: one reading
  * if they agree, the hull of the readings if a phrase means different things in different languages (`v. 1480`:
@@ -37,7 +57,8 @@ export function parseDate(text: string, convention: CenturyConvention, language?
   if (t === '') return EMPTY;
   if (YEAR4.test(t)) {
     const y = Number(t);
-    return y > LATEST_YEAR ? impossible(`impossible year ${t}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error')
+    return y > LATEST_YEAR
+      ? impossible(`impossible year ${t}: in the future (after ${LATEST_YEAR})`, 'check the year for a typing error')
       : interval(y, y, 'year', false, false);
   }
   const yd = YEAR_DASH_TWO.exec(t);
@@ -46,7 +67,9 @@ export function parseDate(text: string, convention: CenturyConvention, language?
     if (e !== null) return e;
   }
   const s = t.toLowerCase().replace(WHITESPACE, ' ').replace(DASHES, '-');
-  return parseCanonical(s, convention) ?? parsePhrase(s, convention, language) ?? unread('not a date form we can read', HINT);
+  return (
+    parseCanonical(s, convention) ?? parsePhrase(s, convention, language) ?? unread('not a date form we can read', HINT)
+  );
 }
 
 /** Distinct phrases read through the language tables, by convention, language and text (bounded; cleared when full). */
@@ -64,7 +87,10 @@ function parsePhrase(s: string, convention: CenturyConvention, language: DateLan
     if (c === s) continue;
     const r = parseCanonical(c, convention);
     if (r === null) continue;
-    if (r.kind !== 'interval') { impossible ??= r; continue; }
+    if (r.kind !== 'interval') {
+      impossible ??= r;
+      continue;
+    }
     found = found === undefined ? r : hull(found, r);
   }
   const out = found ?? impossible ?? null;
@@ -75,19 +101,35 @@ function parsePhrase(s: string, convention: CenturyConvention, language: DateLan
 /** The smallest interval holding both readings (a phrase read differently in two languages). */
 function hull(a: IntervalReading, b: IntervalReading): IntervalReading {
   if (a.start === b.start && a.end === b.end) return a;
-  return { kind: 'interval', start: Math.min(a.start, b.start), end: Math.max(a.end, b.end), form: a.form === b.form ? a.form : 'range',
-    approximate: true, uncertain: a.uncertain || b.uncertain };
+  return {
+    kind: 'interval',
+    start: Math.min(a.start, b.start),
+    end: Math.max(a.end, b.end),
+    form: a.form === b.form ? a.form : 'range',
+    approximate: true,
+    uncertain: a.uncertain || b.uncertain,
+  };
 }
 
 function parseCanonical(text: string, convention: CenturyConvention): DateReading | null {
   let s = text;
-  let uncertain = false, approx = false;
+  let uncertain = false,
+    approx = false;
   const u = UNCERTAIN_SUFFIX.exec(s);
-  if (u !== null) { uncertain = true; s = s.slice(0, u.index); }
+  if (u !== null) {
+    uncertain = true;
+    s = s.slice(0, u.index);
+  }
   const a = APPROX_PREFIX.exec(s);
-  if (a !== null) { approx = true; s = s.slice(a[0].length); }
+  if (a !== null) {
+    approx = true;
+    s = s.slice(a[0].length);
+  }
   const z = APPROX_SUFFIX.exec(s);
-  if (z !== null) { approx = true; s = s.slice(0, z.index); }
+  if (z !== null) {
+    approx = true;
+    s = s.slice(0, z.index);
+  }
   if (s.startsWith('the ')) s = s.slice(4);
   return parseYearForms(s, approx, uncertain) ?? parseCentury(s, convention, approx, uncertain);
 }

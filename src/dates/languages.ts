@@ -19,7 +19,8 @@ export function numeral(token: string): number {
   if (/^\d+$/.test(token)) return Number(token);
   let n = 0;
   for (let i = 0; i < token.length; i++) {
-    const v = ROMAN[token[i]], next = ROMAN[token[i + 1]] ?? 0;
+    const v = ROMAN[token[i]],
+      next = ROMAN[token[i + 1]] ?? 0;
     n += v < next ? -v : v;
   }
   return n;
@@ -27,11 +28,19 @@ export function numeral(token: string): number {
 
 const th = (n: number): string => `${n}th`;
 /** `Nth century`, or `Nth-Mth century` for a second numeral. */
-const century: Replacer = (_m, a, b) => (b === undefined ? `${th(numeral(a!))} century` : `${th(numeral(a!))}-${th(numeral(b))} century`);
+const century: Replacer = (_m, a, b) =>
+  b === undefined ? `${th(numeral(a!))} century` : `${th(numeral(a!))}-${th(numeral(b))} century`;
 /** A decade named inside a century: the seventies of the 15th century = 1470s (the same under either counting). */
 const decadeOf = (decade: number, centuryNo: number): string => `${(centuryNo - 1) * 100 + decade}s`;
 const TENS: Readonly<Record<string, number>> = {
-  venti: 20, trenta: 30, quaranta: 40, cinquanta: 50, sessanta: 60, settanta: 70, ottanta: 80, novanta: 90,
+  venti: 20,
+  trenta: 30,
+  quaranta: 40,
+  cinquanta: 50,
+  sessanta: 60,
+  settanta: 70,
+  ottanta: 80,
+  novanta: 90,
 };
 
 /** Era words, the same in every pass: written before any `v.`/`n.`/`a.` rule can take them for another word. */
@@ -50,8 +59,35 @@ const ERA: readonly Rule[] = [
 const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
   en: [
     [/\b(\d{1,2}(?:st|nd|rd|th))-century\b/g, '$1 century'],
-    [/\b(first|second|third|fourth|fifth|sixth|seventh|eighth|ninth|tenth|eleventh|twelfth|thirteenth|fourteenth|fifteenth|sixteenth|seventeenth|eighteenth|nineteenth|twentieth|twenty-first)(?=[ -]cent)/g,
-      (w) => th(['first', 'second', 'third', 'fourth', 'fifth', 'sixth', 'seventh', 'eighth', 'ninth', 'tenth', 'eleventh', 'twelfth', 'thirteenth', 'fourteenth', 'fifteenth', 'sixteenth', 'seventeenth', 'eighteenth', 'nineteenth', 'twentieth', 'twenty-first'].indexOf(w) + 1)],
+    [
+      /\b(first|second|third|fourth|fifth|sixth|seventh|eighth|ninth|tenth|eleventh|twelfth|thirteenth|fourteenth|fifteenth|sixteenth|seventeenth|eighteenth|nineteenth|twentieth|twenty-first)(?=[ -]cent)/g,
+      (w) =>
+        th(
+          [
+            'first',
+            'second',
+            'third',
+            'fourth',
+            'fifth',
+            'sixth',
+            'seventh',
+            'eighth',
+            'ninth',
+            'tenth',
+            'eleventh',
+            'twelfth',
+            'thirteenth',
+            'fourteenth',
+            'fifteenth',
+            'sixteenth',
+            'seventeenth',
+            'eighteenth',
+            'nineteenth',
+            'twentieth',
+            'twenty-first',
+          ].indexOf(w) + 1,
+        ),
+    ],
     [/\b(?:the )?(?:beginning|start) of (?:the )?/g, 'early '],
     [/\b(?:the )?middle of (?:the )?/g, 'mid '],
     [/\b(?:the )?end of (?:the )?/g, 'late '],
@@ -60,7 +96,10 @@ const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
     [/\bfinal quarter\b/g, 'fourth quarter'],
   ],
   de: [
-    [/\b(\d)0 ?-?er(?: jahre)?(?: des| im)? (\d{1,2})\. ?(?:jh|jhs|jhdts?|jahrhunderts?)\b\.?/g, (_m, d, c) => decadeOf(Number(d) * 10, Number(c))],
+    [
+      /\b(\d)0 ?-?er(?: jahre)?(?: des| im)? (\d{1,2})\. ?(?:jh|jhs|jhdts?|jahrhunderts?)\b\.?/g,
+      (_m, d, c) => decadeOf(Number(d) * 10, Number(c)),
+    ],
     [/\b(\d{3}0) ?-?er(?: jahre)?\b/g, (_m, y) => `${y}s`],
     [/\b(\d{1,2})\.? ?(?:\/|-|bis) ?(\d{1,2})\. ?(?:jh|jhs|jhdts?|jahrhunderts?)\b\.?/g, century],
     [/\b(\d{1,2})\. ?(?:jh|jhs|jhdts?|jahrhunderts?)\b\.?/g, century],
@@ -87,8 +126,10 @@ const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
   ],
   fr: [
     [/\b(?:les )?annees (\d{3}0)\b/g, '$1s'],
-    [new RegExp(`\\bannees (\\d)0 (?:du )?(?:(\\d{1,2})|${R})(?:e|eme|ieme)\\b(?: ?(?:siecle\\b|s\\.))?`, 'g'),
-      (_m, d, a, r) => decadeOf(Number(d) * 10, numeral(a ?? r!))],
+    [
+      new RegExp(`\\bannees (\\d)0 (?:du )?(?:(\\d{1,2})|${R})(?:e|eme|ieme)\\b(?: ?(?:siecle\\b|s\\.))?`, 'g'),
+      (_m, d, a, r) => decadeOf(Number(d) * 10, numeral(a ?? r!)),
+    ],
     [/\b(\d{1,2})(?:e|eme|ieme)? ?- ?(\d{1,2})(?:e|eme|ieme) ?(?:siecles?\b|s\.)/g, century],
     [/\b(\d{1,2})(?:e|eme|ieme|er|re) ?(?:siecles?\b|s\.)/g, century],
     [new RegExp(`\\b${R}(?:e|eme|ieme|er|re)\\b(?: ?(?:siecles?\\b|s\\.))?`, 'g'), century],
@@ -117,16 +158,31 @@ const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
     [/\b(?:apres|ap\.) ?(?=\d)/g, 'after '],
   ],
   it: [
-    [/\b(?:il )?(due|tre|quattro|cinque|sei|sette|otto|nove)cento\b/g,
-      (_m, w) => `${['due', 'tre', 'quattro', 'cinque', 'sei', 'sette', 'otto', 'nove'].indexOf(w!) + 12}00s`],
+    [
+      /\b(?:il )?(due|tre|quattro|cinque|sei|sette|otto|nove)cento\b/g,
+      (_m, w) => `${['due', 'tre', 'quattro', 'cinque', 'sei', 'sette', 'otto', 'nove'].indexOf(w!) + 12}00s`,
+    ],
     [/'(\d)00\b/g, (_m, h) => `1${h}00s`],
-    [new RegExp(`\\b(?:secc?\\.|secoli|secolo|sec\\b|s\\.) ?(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:°|o)?)?\\b`, 'g'),
-      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2)],
-    [new RegExp(`\\b(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:°|o)?)? ?(?:secolo|secoli|secc?\\.|sec\\b)`, 'g'),
-      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2)],
+    [
+      new RegExp(
+        `\\b(?:secc?\\.|secoli|secolo|sec\\b|s\\.) ?(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:°|o)?)?\\b`,
+        'g',
+      ),
+      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2),
+    ],
+    [
+      new RegExp(
+        `\\b(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:°|o)?)? ?(?:secolo|secoli|secc?\\.|sec\\b)`,
+        'g',
+      ),
+      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2),
+    ],
     [/\banni (\d{3}0)\b/g, '$1s'],
-    [/\banni (?:'?(\d)0|(venti|trenta|quaranta|cinquanta|sessanta|settanta|ottanta|novanta)) (?:del |dell'|nel )?(?:(\d{1,2})th century|1(\d)00s)/g,
-      (_m, d, w, c, h) => decadeOf(d !== undefined ? Number(d) * 10 : TENS[w!], c !== undefined ? Number(c) : Number(h) + 11)],
+    [
+      /\banni (?:'?(\d)0|(venti|trenta|quaranta|cinquanta|sessanta|settanta|ottanta|novanta)) (?:del |dell'|nel )?(?:(\d{1,2})th century|1(\d)00s)/g,
+      (_m, d, w, c, h) =>
+        decadeOf(d !== undefined ? Number(d) * 10 : TENS[w!], c !== undefined ? Number(c) : Number(h) + 11),
+    ],
     [/\b(?:tra|fra) (?:il )?(\d{3,4}) e (?:il )?(\d{1,4})\b/g, 'between $1 and $2'],
     [/\bdal (\d{3,4}) al (\d{1,4})\b/g, '$1-$2'],
     [/\b(?:del|dello|della|dei|degli|nel|nella|il|lo|la|al|all')(?= |\b)|\b(?:dell'|l')/g, ''],
@@ -147,8 +203,13 @@ const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
     [/\b(?:dopo|post|dal) ?(?=\d)/g, 'after '],
   ],
   es: [
-    [new RegExp(`\\b(?:siglos?|s\\.) ?(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?(?:-|y|al?) ?(?:${R}|(\\d{1,2}))(?:°|o)?)?\\b`, 'g'),
-      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2)],
+    [
+      new RegExp(
+        `\\b(?:siglos?|s\\.) ?(?:${R}|(\\d{1,2}))(?:°|o)?(?: ?(?:-|y|al?) ?(?:${R}|(\\d{1,2}))(?:°|o)?)?\\b`,
+        'g',
+      ),
+      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2),
+    ],
     [/\b(?:decada de|anos) (?:los )?(\d{3}0)\b/g, '$1s'],
     [/\bentre (?:el )?(\d{3,4}) y (?:el )?(\d{1,4})\b/g, 'between $1 and $2'],
     [/\b(?:de|desde) (\d{3,4}) (?:a|hasta) (\d{1,4})\b/g, '$1-$2'],
@@ -171,8 +232,10 @@ const RULES: Readonly<Record<DateLanguage, readonly Rule[]>> = {
   ],
   nl: [
     [/\b(vroeg|laat|midden)?-?(\d{1,2})(?:e|de|ste)-eeuws\b/g, (_m, p, n) => `${p ?? ''} ${n}th century`],
-    [new RegExp(`\\b(?:${R}|(\\d{1,2}))(?:e|de|ste)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:e|de|ste)?)? ?eeuw(?:en)?\\b`, 'g'),
-      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2)],
+    [
+      new RegExp(`\\b(?:${R}|(\\d{1,2}))(?:e|de|ste)?(?: ?- ?(?:${R}|(\\d{1,2}))(?:e|de|ste)?)? ?eeuw(?:en)?\\b`, 'g'),
+      (_m, r1, a1, r2, a2) => century('', r1 ?? a1, r2 ?? a2),
+    ],
     [/\b(?:de )?jaren (\d{3}0)\b/g, '$1s'],
     [/\btussen (\d{3,4}) en (\d{1,4})\b/g, 'between $1 and $2'],
     [/\b(?:van )?(\d{3,4}) ?(?:tot(?: en met)?|-) ?(\d{1,4})\b/g, '$1-$2'],
@@ -213,7 +276,8 @@ export function canonicalPhrase(s: string, language: DateLanguage): string {
   let t = s.normalize('NFD').replace(MARKS, '').replace(/º/g, '°');
   for (const [re, to] of ERA) t = t.replace(re, to as string);
   for (const [re, to] of RULES[language]) {
-    const next = typeof to === 'string' ? t.replace(re, to) : t.replace(re, (...args: unknown[]) => to(...groupsOf(args)));
+    const next =
+      typeof to === 'string' ? t.replace(re, to) : t.replace(re, (...args: unknown[]) => to(...groupsOf(args)));
     if (next !== t) t = next.replace(SPACES, ' ').trim();
   }
   return t.replace(/ ?- ?/g, '-');

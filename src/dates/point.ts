@@ -46,14 +46,25 @@ export function parsePoint(text: string, allowTime: boolean): Point | string | n
     if (!validTime(m)) return 'impossible time of day or time zone';
   }
   if (sig !== undefined && month !== undefined) return null;
-  let lo = 0, hi = 0, masked = false;
+  let lo = 0,
+    hi = 0,
+    masked = false;
   for (let i = 0; i < 4; i++) {
     const c = yearTok.charCodeAt(i);
-    if (c === 88) { masked = true; lo = lo * 10; hi = hi * 10 + 9; } else { lo = lo * 10 + c - 48; hi = hi * 10 + c - 48; }
+    if (c === 88) {
+      masked = true;
+      lo = lo * 10;
+      hi = hi * 10 + 9;
+    } else {
+      lo = lo * 10 + c - 48;
+      hi = hi * 10 + c - 48;
+    }
   }
   if (minus !== undefined) {
     if (hi === 0) return 'impossible year -0000: minus zero is not a year';
-    const t = lo; lo = -hi; hi = -t;
+    const t = lo;
+    lo = -hi;
+    hi = -t;
   }
   if (lo > LATEST_YEAR) return `impossible year ${yearTok}: in the future (after ${LATEST_YEAR})`;
   let span = hi - lo + 1;
@@ -68,8 +79,10 @@ export function parsePoint(text: string, allowTime: boolean): Point | string | n
   if (month !== undefined) span = 0;
   const quals = (q1 ?? '') + (q2 ?? '') + (q3 ?? '') + (q4 ?? '') + (q5 ?? '') + (q6 ?? '');
   return {
-    minYear: lo, maxYear: hi,
-    minKey: lo * 10000 + scratch.m0 * 100 + scratch.d0, maxKey: hi * 10000 + scratch.m1 * 100 + scratch.d1,
+    minYear: lo,
+    maxYear: hi,
+    minKey: lo * 10000 + scratch.m0 * 100 + scratch.d0,
+    maxKey: hi * 10000 + scratch.m1 * 100 + scratch.d1,
     span,
     approx: quals.includes('~') || quals.includes('%'),
     significant: sig !== undefined,
@@ -85,14 +98,25 @@ function letterYear(text: string): Point | string | null {
   const abs = Number(digits) * 10 ** Number(exp ?? 0);
   if (abs < 10000) return null; // Y is for years of five or more digits (EDTF Level 1)
   const y = minus === undefined ? abs : -abs;
-  let lo = y, hi = y;
+  let lo = y,
+    hi = y;
   if (sig !== undefined) {
-    const n = String(abs).length, s = Number(sig);
+    const n = String(abs).length,
+      s = Number(sig);
     if (s < 1 || s > n) return 'impossible significant digits';
     [lo, hi] = significant(y, n, s);
   }
-  return { minYear: lo, maxYear: hi, minKey: lo * 10000 + 101, maxKey: hi * 10000 + 1231, span: hi - lo + 1,
-    approx: false, significant: sig !== undefined, uncertain: false, century: 0 };
+  return {
+    minYear: lo,
+    maxYear: hi,
+    minKey: lo * 10000 + 101,
+    maxKey: hi * 10000 + 1231,
+    span: hi - lo + 1,
+    approx: false,
+    significant: sig !== undefined,
+    uncertain: false,
+    century: 0,
+  };
 }
 
 /** Years sharing the first `s` of the `n` digits of `y` (EDTF Level 2 "Significant digits": 1950S2 → 1900–1999). */
@@ -102,28 +126,53 @@ function significant(y: number, n: number, s: number): [number, number] {
   return y >= 0 ? [base, base + unit - 1] : [-(base + unit - 1), -base];
 }
 
-/** Checks month (or sub-year group) and day against the calendar; fills `scratch` with the earliest/latest month-day. */
+/**
+ * Checks month (or sub-year group) and day against the calendar; fills `scratch` with the earliest/latest month-day.
+ */
 function monthDay(leap: boolean, month: string | undefined, day: string | undefined): string | null {
-  if (month === undefined) { scratch.m0 = 1; scratch.d0 = 1; scratch.m1 = 12; scratch.d1 = 31; return null; }
-  let first = 0, last = 0;
+  if (month === undefined) {
+    scratch.m0 = 1;
+    scratch.d0 = 1;
+    scratch.m1 = 12;
+    scratch.d1 = 31;
+    return null;
+  }
+  let first = 0,
+    last = 0;
   if (!month.includes('X')) {
     const mv = Number(month);
     const group = SUB_YEAR[mv];
-    if (mv >= 1 && mv <= 12) { first = mv; last = mv; }
-    else if (group !== undefined) {
+    if (mv >= 1 && mv <= 12) {
+      first = mv;
+      last = mv;
+    } else if (group !== undefined) {
       if (day !== undefined) return `impossible date: sub-year group ${month} cannot take a day`;
-      scratch.m0 = group[0]; scratch.d0 = 1; scratch.m1 = group[1]; scratch.d1 = daysInMonth(group[1], leap);
+      scratch.m0 = group[0];
+      scratch.d0 = 1;
+      scratch.m1 = group[1];
+      scratch.d1 = daysInMonth(group[1], leap);
       return null;
     } else return `impossible month ${month}`;
   } else {
-    for (let mv = 1; mv <= 12; mv++) if (maskAllows(month, mv)) { if (first === 0) first = mv; last = mv; }
+    for (let mv = 1; mv <= 12; mv++)
+      if (maskAllows(month, mv)) {
+        if (first === 0) first = mv;
+        last = mv;
+      }
     if (first === 0) return `impossible month ${month}`;
   }
-  if (day === undefined) { scratch.m0 = first; scratch.d0 = 1; scratch.m1 = last; scratch.d1 = daysInMonth(last, leap); return null; }
+  if (day === undefined) {
+    scratch.m0 = first;
+    scratch.d0 = 1;
+    scratch.m1 = last;
+    scratch.d1 = daysInMonth(last, leap);
+    return null;
+  }
   if (first === last && !day.includes('X')) {
     const dv = Number(day);
     if (dv < 1 || dv > daysInMonth(first, leap)) return dayReason(month, day);
-    scratch.m0 = scratch.m1 = first; scratch.d0 = scratch.d1 = dv;
+    scratch.m0 = scratch.m1 = first;
+    scratch.d0 = scratch.d1 = dv;
     return null;
   }
   let found = false;
@@ -131,19 +180,29 @@ function monthDay(leap: boolean, month: string | undefined, day: string | undefi
     if (!maskAllows(month, mv)) continue;
     for (let dv = 1, n = daysInMonth(mv, leap); dv <= n; dv++) {
       if (!maskAllows(day, dv)) continue;
-      if (!found) { scratch.m0 = mv; scratch.d0 = dv; found = true; }
-      scratch.m1 = mv; scratch.d1 = dv;
+      if (!found) {
+        scratch.m0 = mv;
+        scratch.d0 = dv;
+        found = true;
+      }
+      scratch.m1 = mv;
+      scratch.d1 = dv;
     }
   }
   return found ? null : dayReason(month, day);
 }
 
 function dayReason(month: string, day: string): string {
-  return month === '02' && day === '29' ? 'impossible day 29 February: not a leap year' : `impossible day ${day} in month ${month}`;
+  return month === '02' && day === '29'
+    ? 'impossible day 29 February: not a leap year'
+    : `impossible day ${day} in month ${month}`;
 }
 
 function validTime(m: RegExpExecArray): boolean {
-  const h = Number(m[12]), min = Number(m[13]), s = Number(m[14]), tz = m[15];
+  const h = Number(m[12]),
+    min = Number(m[13]),
+    s = Number(m[14]),
+    tz = m[15];
   if (h > 23 && !(h === 24 && min === 0 && s === 0)) return false;
   if (min > 59 || s > 60) return false; // 60: leap second (ISO 8601-1 §4.3.2)
   if (tz === undefined || tz === 'Z') return true;

@@ -1,12 +1,12 @@
-// The shapes a catalogued date turns into: an interval of years, empty, impossible or unread (each with a reason and a hint).
+// The shapes a catalogued date turns into: an interval of years, empty, impossible or unread (each with a reason and a
+// hint).
 import type { CenturyConvention } from '../model.js';
 
 export type { CenturyConvention };
 
 /** Which written form produced a reading. EDTF strings other than a bare year or century are `edtf`. */
 export type DateForm =
-  | 'year' | 'circa' | 'range' | 'decade' | 'century' | 'century-range' | 'part-of-century'
-  | 'before' | 'after' | 'edtf';
+  'year' | 'circa' | 'range' | 'decade' | 'century' | 'century-range' | 'part-of-century' | 'before' | 'after' | 'edtf';
 
 /** Inclusive span of astronomical years (1 BC = 0, 2 BC = -1); open or unknown ends are ±Infinity. */
 export interface YearSpan {

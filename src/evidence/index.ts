@@ -1,6 +1,14 @@
 // Evidence stage: image matches → per-image statistics and the images whose matches cannot carry a link (step 1b).
 import { IMAGE_ROLES, NON_ARTWORK_ROLES, type Model, type Policy } from '../model.js';
-import { corroboratedWorks, corroboration, distinctCounts, imageRows, proposing, triangleSupport, workPairs } from './stats.js';
+import {
+  corroboratedWorks,
+  corroboration,
+  distinctCounts,
+  imageRows,
+  proposing,
+  triangleSupport,
+  workPairs,
+} from './stats.js';
 import { IMAGE_VERDICTS, type ImageVerdict, type WeighedEvidence } from './types.js';
 
 export { IMAGE_VERDICTS, type ImageStats, type ImageVerdict, type WeighedEvidence } from './types.js';
@@ -12,7 +20,10 @@ export { IMAGE_VERDICTS, type ImageStats, type ImageVerdict, type WeighedEvidenc
 export const HUB_PER_PARTNER = 2;
 /** Suspects are images at least this many (scaled) median absolute deviations above the median k-occurrence. */
 export const SUSPECT_MADS = 2;
-/** No image matching fewer works than this is a suspect: the triangle test over three works (three pairs) says too little. */
+/**
+ * No image matching fewer works than this is a suspect: the triangle test over three works (three pairs) says too
+ * little.
+ */
 export const SUSPECT_MIN = 4;
 
 const V = (v: ImageVerdict) => IMAGE_VERDICTS.indexOf(v);
@@ -77,13 +88,29 @@ export function weighEvidence(model: Model, policy: Policy = model.project.polic
   const setAside = new Uint8Array(matches.count);
   let rowsSetAside = 0;
   for (let r = 0; r < matches.count; r++)
-    if (verdict[matches.a[r]] || verdict[matches.b[r]]) { setAside[r] = 1; rowsSetAside++; }
+    if (verdict[matches.a[r]] || verdict[matches.b[r]]) {
+      setAside[r] = 1;
+      rowsSetAside++;
+    }
   const flagged: number[] = [];
   for (let i = 0; i < n; i++) if (verdict[i] && ir.offset[i + 1] > ir.offset[i]) flagged.push(i);
   flagged.sort((x, y) => works[y] - works[x] || x - y);
   return {
-    stats: { matchedImages: Int32Array.from({ length: n }, (_, i) => ir.offset[i + 1] - ir.offset[i]), works, partners, corroborated, triangles },
-    verdict, setAside, hubAbove, suspectFrom, median, mad, indiscriminate: Int32Array.from(flagged), rowsSetAside,
+    stats: {
+      matchedImages: Int32Array.from({ length: n }, (_, i) => ir.offset[i + 1] - ir.offset[i]),
+      works,
+      partners,
+      corroborated,
+      triangles,
+    },
+    verdict,
+    setAside,
+    hubAbove,
+    suspectFrom,
+    median,
+    mad,
+    indiscriminate: Int32Array.from(flagged),
+    rowsSetAside,
   };
 }
 
@@ -91,7 +118,8 @@ export function weighEvidence(model: Model, policy: Policy = model.project.polic
 function robustSpread(works: Int32Array): { median: number; mad: number } {
   const values = works.filter((x) => x > 0).sort();
   if (values.length === 0) return { median: 0, mad: 0 };
-  const mid = (v: ArrayLike<number>) => (v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2);
+  const mid = (v: ArrayLike<number>) =>
+    v.length % 2 ? v[(v.length - 1) / 2] : (v[v.length / 2 - 1] + v[v.length / 2]) / 2;
   const median = mid(values);
   const dev = Float64Array.from(values, (x) => Math.abs(x - median)).sort();
   return { median, mad: mid(dev) };

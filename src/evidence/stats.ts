@@ -26,15 +26,24 @@ export function imageRows(model: Model, use: Uint8Array): ImageRows {
   const { matches, images } = model;
   const offset = new Int32Array(images.count + 1);
   let used = 0;
-  for (let r = 0; r < matches.count; r++) if (use[r]) { used++; offset[matches.a[r] + 1]++; offset[matches.b[r] + 1]++; }
+  for (let r = 0; r < matches.count; r++)
+    if (use[r]) {
+      used++;
+      offset[matches.a[r] + 1]++;
+      offset[matches.b[r] + 1]++;
+    }
   for (let i = 0; i < images.count; i++) offset[i + 1] += offset[i];
   const fill = offset.slice(0, images.count);
-  const row = new Int32Array(2 * used), other = new Int32Array(2 * used);
+  const row = new Int32Array(2 * used),
+    other = new Int32Array(2 * used);
   for (let r = 0; r < matches.count; r++) {
     if (!use[r]) continue;
-    const a = matches.a[r], b = matches.b[r];
-    row[fill[a]] = r; other[fill[a]++] = images.work[b];
-    row[fill[b]] = r; other[fill[b]++] = images.work[a];
+    const a = matches.a[r],
+      b = matches.b[r];
+    row[fill[a]] = r;
+    other[fill[a]++] = images.work[b];
+    row[fill[b]] = r;
+    other[fill[b]++] = images.work[a];
   }
   return { offset, row, other };
 }
@@ -45,7 +54,8 @@ export function imageRows(model: Model, use: Uint8Array): ImageRows {
  */
 export function distinctCounts(model: Model, ir: ImageRows): { works: Int32Array; partners: Int32Array } {
   const n = model.images.count;
-  const works = new Int32Array(n), partners = new Int32Array(n);
+  const works = new Int32Array(n),
+    partners = new Int32Array(n);
   const sorted = Int32Array.from(ir.other);
   const stamp = new Int32Array(model.project.partners.length).fill(-1);
   for (let i = 0; i < n; i++) {
@@ -54,7 +64,10 @@ export function distinctCounts(model: Model, ir: ImageRows): { works: Int32Array
       if (k > 0 && s[k] === s[k - 1]) continue;
       works[i]++;
       const p = model.works[s[k]].partner;
-      if (stamp[p] !== i) { stamp[p] = i; partners[i]++; }
+      if (stamp[p] !== i) {
+        stamp[p] = i;
+        partners[i]++;
+      }
     }
   }
   return { works, partners };
@@ -68,9 +81,11 @@ export function distinctCounts(model: Model, ir: ImageRows): { works: Int32Array
 export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array): Uint8Array {
   const { matches, images } = model;
   const n = model.works.length;
-  const lo = new Int32Array(matches.count), hi = new Int32Array(matches.count);
+  const lo = new Int32Array(matches.count),
+    hi = new Int32Array(matches.count);
   for (let r = 0; r < matches.count; r++) {
-    const x = images.work[matches.a[r]], y = images.work[matches.b[r]];
+    const x = images.work[matches.a[r]],
+      y = images.work[matches.b[r]];
     lo[r] = x < y ? x : y;
     hi[r] = x < y ? y : x;
   }
@@ -85,7 +100,9 @@ export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array)
     // eligible rows of the group, and how many of them each image takes part in
     let eligible = 0;
     for (let k = s; k < e; k++) {
-      const r = rows[k], a = matches.a[r], b = matches.b[r];
+      const r = rows[k],
+        a = matches.a[r],
+        b = matches.b[r];
       if (ignore[a] || ignore[b] || !use[r]) continue;
       eligible++;
       tally[a]++;
@@ -96,7 +113,10 @@ export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array)
       if (eligible - tally[matches.a[r]] > 0) out[r] |= 1;
       if (eligible - tally[matches.b[r]] > 0) out[r] |= 2;
     }
-    for (let k = s; k < e; k++) { tally[matches.a[rows[k]]] = 0; tally[matches.b[rows[k]]] = 0; }
+    for (let k = s; k < e; k++) {
+      tally[matches.a[rows[k]]] = 0;
+      tally[matches.b[rows[k]]] = 0;
+    }
     s = e;
   }
   return out;
@@ -106,7 +126,13 @@ export function corroboration(model: Model, ignore: Uint8Array, use: Uint8Array)
  * Distinct matched works of image `i` with at least one corroborated row (see corroboration), and the *opportunities*:
  * matched works where both works have another usable photograph (`usable[w]` ≥ 2), so that agreement could be seen.
  */
-export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array, usable: Int32Array, i: number): { corroborated: number; opportunities: number } {
+export function corroboratedWorks(
+  model: Model,
+  ir: ImageRows,
+  corr: Uint8Array,
+  usable: Int32Array,
+  i: number,
+): { corroborated: number; opportunities: number } {
   const keys: number[] = [];
   for (let k = ir.offset[i]; k < ir.offset[i + 1]; k++) {
     const r = ir.row[k];
@@ -114,7 +140,8 @@ export function corroboratedWorks(model: Model, ir: ImageRows, corr: Uint8Array,
     keys.push(ir.other[k] * 2 + bit);
   }
   keys.sort((x, y) => x - y);
-  let count = 0, opportunities = 0;
+  let count = 0,
+    opportunities = 0;
   const own = usable[model.images.work[i]] >= 2;
   for (let k = 0; k < keys.length; k++) {
     const last = k + 1 === keys.length || keys[k + 1] >> 1 !== keys[k] >> 1;
@@ -132,7 +159,8 @@ export function workPairs(model: Model, ignore: Uint8Array, use: Uint8Array): Fl
   let k = 0;
   for (let r = 0; r < matches.count; r++) {
     if (ignore[matches.a[r]] || ignore[matches.b[r]] || !use[r]) continue;
-    const x = images.work[matches.a[r]], y = images.work[matches.b[r]];
+    const x = images.work[matches.a[r]],
+      y = images.work[matches.b[r]];
     keys[k++] = x < y ? x * 67108864 + y : y * 67108864 + x;
   }
   const sorted = keys.subarray(0, k).sort();
@@ -142,7 +170,8 @@ export function workPairs(model: Model, ignore: Uint8Array, use: Uint8Array): Fl
 }
 
 function has(keys: Float64Array, key: number): boolean {
-  let lo = 0, hi = keys.length - 1;
+  let lo = 0,
+    hi = keys.length - 1;
   while (lo <= hi) {
     const mid = (lo + hi) >>> 1;
     if (keys[mid] === key) return true;
@@ -163,8 +192,10 @@ export const TRIANGLE_SAMPLE = 16;
 export function triangleSupport(ir: ImageRows, pairs: Float64Array, i: number): number {
   const s = Int32Array.from(ir.other.subarray(ir.offset[i], ir.offset[i + 1])).sort();
   const works: number[] = [];
-  for (let k = 0; k < s.length && works.length < TRIANGLE_SAMPLE; k++) if (k === 0 || s[k] !== s[k - 1]) works.push(s[k]);
-  let pairsSeen = 0, closed = 0;
+  for (let k = 0; k < s.length && works.length < TRIANGLE_SAMPLE; k++)
+    if (k === 0 || s[k] !== s[k - 1]) works.push(s[k]);
+  let pairsSeen = 0,
+    closed = 0;
   for (let x = 0; x < works.length; x++)
     for (let y = x + 1; y < works.length; y++) {
       pairsSeen++;

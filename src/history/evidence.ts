@@ -26,14 +26,16 @@ export async function readLinkEvidence(folder: string, links: Set<string>): Prom
   await streamRdfFile(file, (q) => {
     if (q.predicate.value !== DERIVED || !links.has(q.subject.value)) return;
     const list = matches.get(q.subject.value);
-    if (list) list.push(q.object.value); else matches.set(q.subject.value, [q.object.value]);
+    if (list) list.push(q.object.value);
+    else matches.set(q.subject.value, [q.object.value]);
   });
   const wanted = new Set([...matches.values()].flat());
   if (wanted.size === 0) return { matches, quads };
   await streamRdfFile(file, (q) => {
     if (!wanted.has(q.subject.value) || !q.graph.value.endsWith('graph/evidence')) return;
     const list = quads.get(q.subject.value);
-    if (list) list.push(q); else quads.set(q.subject.value, [q]);
+    if (list) list.push(q);
+    else quads.set(q.subject.value, [q]);
   });
   return { matches, quads };
 }

@@ -37,7 +37,11 @@ export interface ReleaseHistory {
  * cluster ID (those retired now invalidated by this release, older ones keeping their recorded invalidation), and,
  * with a previous release, the changes against it and their provenance units.
  */
-export async function releaseHistory(view: ReleaseView, clustering: Clustering, previous?: PreviousRelease): Promise<ReleaseHistory> {
+export async function releaseHistory(
+  view: ReleaseView,
+  clustering: Clustering,
+  previous?: PreviousRelease,
+): Promise<ReleaseHistory> {
   const { namer } = view;
   const units: Unit[] = [];
   let attached = new Map<string, Quad[]>();
@@ -47,7 +51,13 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
   if (previous) {
     const version = view.model.project.release.version;
     if (previous.snapshot.version === version)
-      throw new UserError({ file: view.model.projectFile, line: 0, field: 'release.version', message: `"${version}" is also the version of the previous release in ${previous.folder}`, hint: 'give every release its own version: release and earlier-state IRIs are named by it' });
+      throw new UserError({
+        file: view.model.projectFile,
+        line: 0,
+        field: 'release.version',
+        message: `"${version}" is also the version of the previous release in ${previous.folder}`,
+        hint: 'give every release its own version: release and earlier-state IRIs are named by it',
+      });
     const current = snapshotOfView(view, clustering, namer);
     changes = compareSnapshots(previous.snapshot, current);
     madeBy = madeByQuads(changes, current, namer.graph('provenance'));
@@ -76,18 +86,24 @@ export async function releaseHistory(view: ReleaseView, clustering: Clustering, 
 function madeByQuads(changes: Changes, current: ReleaseSnapshot, graph: Quad['graph']): Quad[] {
   const out: Quad[] = [];
   const g = inGraph(graph, out);
-  const links = [...new Set([...changes.claims.added, ...changes.claims.status, ...changes.claims.kind].map((c) => c.link))].sort();
+  const links = [
+    ...new Set([...changes.claims.added, ...changes.claims.status, ...changes.claims.kind].map((c) => c.link)),
+  ].sort();
   const reviews = new Set<string>();
   const names = new Map<string, string>();
   for (const iri of links) {
     const l = current.links.get(iri)!;
-    for (const x of l.generatedBy) { g(nn(iri), term('prov', 'wasGeneratedBy'), nn(x)); if (current.activities.get(x)?.kind === 'review') reviews.add(x); }
+    for (const x of l.generatedBy) {
+      g(nn(iri), term('prov', 'wasGeneratedBy'), nn(x));
+      if (current.activities.get(x)?.kind === 'review') reviews.add(x);
+    }
     for (const x of l.attributedTo) g(nn(iri), term('prov', 'wasAttributedTo'), nn(x));
   }
   for (const r of [...reviews].sort()) {
     const info = current.activities.get(r) as Extract<ActivityInfo, { kind: 'review' }>;
     g(nn(r), term('prov', 'wasAssociatedWith'), nn(info.curator));
-    if (info.date) g(nn(r), info.date.includes('T') ? term('prov', 'endedAtTime') : term('dcterms', 'date'), when(info.date));
+    if (info.date)
+      g(nn(r), info.date.includes('T') ? term('prov', 'endedAtTime') : term('dcterms', 'date'), when(info.date));
     if (info.verdict) g(nn(r), term('cx', 'verdict'), str(info.verdict));
     if (info.curatorName) names.set(info.curator, info.curatorName);
   }
@@ -102,5 +118,9 @@ function madeByQuads(changes: Changes, current: ReleaseSnapshot, graph: Quad['gr
 export async function writeChanges(dir: string, history: ReleaseHistory): Promise<void> {
   if (!history.changes) return;
   await writeFile(path.join(dir, 'changes.md'), changesMarkdown(history.changes));
-  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [...history.units.flatMap((u) => u.quads), ...[...history.attached.values()].flat(), ...(history.madeBy ?? [])]);
+  await writeQuads(path.join(dir, 'changes.ttl'), 'turtle', [
+    ...history.units.flatMap((u) => u.quads),
+    ...[...history.attached.values()].flat(),
+    ...(history.madeBy ?? []),
+  ]);
 }

@@ -23,17 +23,24 @@ const STATE_WORDS: Record<string, (s: string, o: string) => string> = {
 export function stateWords(x: ClaimStateOf | undefined, c: Pick<ClaimChange, 'subject' | 'object'>): string {
   if (!x) return 'no claim';
   const other = x.subject === c.subject ? c.object : c.subject;
-  const words = STATE_WORDS[x.status === 'rejected' ? 'rejected' : `${x.kind}/${x.status}`](code(x.subject), code(other));
+  const words = STATE_WORDS[x.status === 'rejected' ? 'rejected' : `${x.kind}/${x.status}`](
+    code(x.subject),
+    code(other),
+  );
   return x.score !== undefined && x.status !== 'rejected' ? `${words.slice(0, -1)}, score ${x.score})` : words;
 }
 
-/** Who made a change, in words: the curator (name or IRI), date and verdict; the runs; or the release that dropped it. */
+/**
+ * Who made a change, in words: the curator (name or IRI), date and verdict; the runs; or the release that dropped it.
+ */
 export function madeByWords(b: MadeBy): string {
   switch (b.kind) {
     case 'curator':
       return `decided by ${b.name ?? `<${b.curator}>`}${b.date ? ` on ${b.date}` : ''}${b.verdict ? ` (verdict ${b.verdict})` : ''}`;
     case 'runs':
-      return b.runs.length ? `by ${b.runs.length === 1 ? 'run' : 'runs'} ${b.runs.map((r) => `${r.id}${r.software ? ` (${r.software}${r.version ? ` ${r.version}` : ''})` : ''}`).join(', ')}` : 'by no recorded run';
+      return b.runs.length
+        ? `by ${b.runs.length === 1 ? 'run' : 'runs'} ${b.runs.map((r) => `${r.id}${r.software ? ` (${r.software}${r.version ? ` ${r.version}` : ''})` : ''}`).join(', ')}`
+        : 'by no recorded run';
     case 'release':
       return `dropped by release ${b.version}: no evidence or decision in it supports the link`;
   }
@@ -44,7 +51,9 @@ export function claimLine(c: ClaimChange): string {
   return `${code(c.subject)} – ${code(c.object)}: ${stateWords(c.before, c)} → ${stateWords(c.after, c)}; ${madeByWords(c.by)}`;
 }
 
-/** Sections of the summary table (counts) and of the listing: a claim whose status and kind both changed is listed once. */
+/**
+ * Sections of the summary table (counts) and of the listing: a claim whose status and kind both changed is listed once.
+ */
 const CLAIM_SECTIONS: [keyof Changes['claims'], string][] = [
   ['added', 'Claims added'],
   ['removed', 'Claims removed'],
@@ -74,7 +83,12 @@ export function changesMarkdown(c: Changes): string {
   out.push(`| new clusters | ${c.clusters.new.length} |`, `| cluster IDs retired | ${c.clusters.retired.length} |`, '');
   const partners = Object.keys(c.partners);
   if (partners.length) {
-    out.push('## Per partner', '', '| partner | added | removed | new status | new kind |', '|---|---:|---:|---:|---:|');
+    out.push(
+      '## Per partner',
+      '',
+      '| partner | added | removed | new status | new kind |',
+      '|---|---:|---:|---:|---:|',
+    );
     for (const p of partners) {
       const n = c.partners[p];
       out.push(`| ${p} | ${n.added} | ${n.removed} | ${n.status} | ${n.kind} |`);
@@ -92,7 +106,12 @@ export function changesMarkdown(c: Changes): string {
     ['Clusters merged', cl.merged.map((m) => `- ${m.into} ← ${m.from.join(', ')}`)],
     ['Clusters split', cl.split.map((s) => `- ${s.from} → ${s.into.join(', ')}`)],
     ['New clusters', cl.new.length ? [`- ${cl.new.join(', ')}`] : []],
-    ['Retired cluster IDs', cl.retired.map((r) => `- ${r.id} → ${r.replacedBy.length ? `replaced by ${r.replacedBy.join(', ')}` : 'no successor'}`)],
+    [
+      'Retired cluster IDs',
+      cl.retired.map(
+        (r) => `- ${r.id} → ${r.replacedBy.length ? `replaced by ${r.replacedBy.join(', ')}` : 'no successor'}`,
+      ),
+    ],
   ];
   for (const [title, lines] of sections) if (lines.length) out.push(`## ${title}`, '', ...lines, '');
   return out.join('\n');

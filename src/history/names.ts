@@ -37,8 +37,16 @@ export const P = {
 } as const;
 
 /** cx:Same / cx:Part / cx:Related → kind; cx:Confirmed / cx:Proposed / cx:Rejected → status. */
-export const KIND_OF: Record<string, ClaimKind> = { [iri('cx', 'Same')]: 'same', [iri('cx', 'Part')]: 'part', [iri('cx', 'Related')]: 'related' };
-export const STATUS_OF: Record<string, ClaimStatus> = { [iri('cx', 'Confirmed')]: 'confirmed', [iri('cx', 'Proposed')]: 'proposed', [iri('cx', 'Rejected')]: 'rejected' };
+export const KIND_OF: Record<string, ClaimKind> = {
+  [iri('cx', 'Same')]: 'same',
+  [iri('cx', 'Part')]: 'part',
+  [iri('cx', 'Related')]: 'related',
+};
+export const STATUS_OF: Record<string, ClaimStatus> = {
+  [iri('cx', 'Confirmed')]: 'confirmed',
+  [iri('cx', 'Proposed')]: 'proposed',
+  [iri('cx', 'Rejected')]: 'rejected',
+};
 
 /**
  * `partnerKey:workId` for a work IRI made from a level-1 template `…{work}` (RFC 6570 §3.2.2: the ID is

@@ -11,12 +11,22 @@ import { RELEASE_FILES } from '../rdf/formats.js';
 
 const need = (folder: string, file: string, field: string): string => {
   const f = path.join(folder, file);
-  if (!existsSync(f)) throw new UserError({ file: f, line: 0, field, message: `the release folder has no ${file}`, hint: 'name the folder of a release built by concordat' });
+  if (!existsSync(f))
+    throw new UserError({
+      file: f,
+      line: 0,
+      field,
+      message: `the release folder has no ${file}`,
+      hint: 'name the folder of a release built by concordat',
+    });
   return f;
 };
 
 /** The dataset IRI, dcat:version and dcterms:issued of a release's dataset description (DCAT 3 §6.6, §11). */
-export function datasetIdentity(quads: Iterable<Quad>, file: string): { dataset: string; version: string; issued?: string } {
+export function datasetIdentity(
+  quads: Iterable<Quad>,
+  file: string,
+): { dataset: string; version: string; issued?: string } {
   const datasets = new Set<string>();
   const version = new Map<string, string>();
   const issued = new Map<string, string>();
@@ -26,26 +36,48 @@ export function datasetIdentity(quads: Iterable<Quad>, file: string): { dataset:
     else if (q.predicate.value === P.issued) issued.set(q.subject.value, q.object.value);
   }
   const dataset = [...datasets].filter((d) => version.has(d)).sort()[0];
-  if (!dataset) throw new UserError({ file, line: 0, field: 'dcat:version', message: 'no dcat:Dataset with a dcat:version', hint: 'the release\'s dataset description names its version' });
+  if (!dataset)
+    throw new UserError({
+      file,
+      line: 0,
+      field: 'dcat:version',
+      message: 'no dcat:Dataset with a dcat:version',
+      hint: "the release's dataset description names its version",
+    });
   return { dataset, version: version.get(dataset)!, issued: issued.get(dataset) };
 }
 
 /** What the provenance graph says about the reviews and runs that links name as prov:wasGeneratedBy (PROV-O §3.1). */
 export function activitiesOf(links: Iterable<LinkState>, provenance: Map<string, Quad[]>): Map<string, ActivityInfo> {
   const get = (s: string, p: string) => provenance.get(s)?.find((q) => q.predicate.value === p)?.object.value;
-  const is = (s: string, type: string) => !!provenance.get(s)?.some((q) => q.predicate.value === P.type && q.object.value === type);
+  const is = (s: string, type: string) =>
+    !!provenance.get(s)?.some((q) => q.predicate.value === P.type && q.object.value === type);
   const out = new Map<string, ActivityInfo>();
   for (const l of links)
     for (const g of l.generatedBy) {
       if (out.has(g)) continue;
       if (is(g, P.CuratorReview)) {
         const curator = get(g, P.associatedWith) ?? '';
-        const name = get(curator, P.label), date = get(g, P.endedAt) ?? get(g, P.date), verdict = get(g, P.verdict);
-        out.set(g, { kind: 'review', curator, ...(name ? { curatorName: name } : {}), ...(date ? { date } : {}), ...(verdict ? { verdict } : {}) });
+        const name = get(curator, P.label),
+          date = get(g, P.endedAt) ?? get(g, P.date),
+          verdict = get(g, P.verdict);
+        out.set(g, {
+          kind: 'review',
+          curator,
+          ...(name ? { curatorName: name } : {}),
+          ...(date ? { date } : {}),
+          ...(verdict ? { verdict } : {}),
+        });
       } else if (is(g, P.MatchRun)) {
         const agent = get(g, P.associatedWith);
-        const software = agent && get(agent, P.label), version = agent && get(agent, P.versionInfo);
-        out.set(g, { kind: 'run', id: decodeURIComponent(g.replace(/^.*\//, '')), ...(software ? { software } : {}), ...(version ? { version } : {}) });
+        const software = agent && get(agent, P.label),
+          version = agent && get(agent, P.versionInfo);
+        out.set(g, {
+          kind: 'run',
+          id: decodeURIComponent(g.replace(/^.*\//, '')),
+          ...(software ? { software } : {}),
+          ...(version ? { version } : {}),
+        });
       }
     }
   return out;
@@ -67,14 +99,26 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
   const links = new Map<string, Partial<LinkState> & { generatedBy: string[]; attributedTo: string[] }>();
   const skip = new Set<string>();
   const versions = new Set<string>();
-  const workPartner = new Map<string, string>(), workDataset = new Map<string, string>(), uriSpace = new Map<string, string>();
+  const workPartner = new Map<string, string>(),
+    workDataset = new Map<string, string>(),
+    uriSpace = new Map<string, string>();
   const clusters = new Set<string>();
   const inval = new Map<string, { activity?: string; time?: string }>();
   const provenance = new Map<string, Quad[]>();
   await streamRdfFile(nq, (q) => {
-    const s = q.subject.value, p = q.predicate.value, o = q.object.value;
-    if (p === P.type && o === P.Link) { skip.add(s); links.set(s, { iri: s, generatedBy: [], attributedTo: [] }); return; }
-    if (p === P.type && (o === P.Cluster || o === P.ImpliedPair || o === P.DateConflict)) { skip.add(s); if (o === P.Cluster) clusters.add(s); return; }
+    const s = q.subject.value,
+      p = q.predicate.value,
+      o = q.object.value;
+    if (p === P.type && o === P.Link) {
+      skip.add(s);
+      links.set(s, { iri: s, generatedBy: [], attributedTo: [] });
+      return;
+    }
+    if (p === P.type && (o === P.Cluster || o === P.ImpliedPair || o === P.DateConflict)) {
+      skip.add(s);
+      if (o === P.Cluster) clusters.add(s);
+      return;
+    }
     const l = links.get(s);
     if (l) {
       if (p === P.subjectWork) l.subject = o;
@@ -91,7 +135,8 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
     }
     if (clusters.has(s) && (p === P.invalidatedBy || p === P.invalidatedAt)) {
       const x = inval.get(s) ?? {};
-      if (p === P.invalidatedBy) x.activity = o; else x.time = o;
+      if (p === P.invalidatedBy) x.activity = o;
+      else x.time = o;
       inval.set(s, x);
       return;
     }
@@ -100,7 +145,8 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
     else if (p === P.uriSpace) uriSpace.set(s, o);
     else if (!skip.has(s) && q.subject.termType === 'NamedNode' && q.graph.value.endsWith('graph/provenance')) {
       const list = provenance.get(s);
-      if (list) list.push(q); else provenance.set(s, [q]);
+      if (list) list.push(q);
+      else provenance.set(s, [q]);
     }
   });
   for (const v of versions) links.delete(v);
@@ -114,12 +160,35 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
   const done = new Map<string, LinkState>();
   for (const [iri, l] of [...links].sort((x, y) => (x[0] < y[0] ? -1 : 1))) {
     if (!l.subject || !l.object || !l.kind || !l.status)
-      throw new UserError({ file: nq, line: 0, field: iri, message: 'a cx:Link without subject, object, kind or status', hint: 'the release is damaged; rebuild it' });
+      throw new UserError({
+        file: nq,
+        line: 0,
+        field: iri,
+        message: 'a cx:Link without subject, object, kind or status',
+        hint: 'the release is damaged; rebuild it',
+      });
     name(l.subject);
     name(l.object);
-    done.set(iri, { iri, subject: l.subject, object: l.object, kind: l.kind, status: l.status, relation: l.relation, score: l.score, support: l.support ?? 0, generatedBy: l.generatedBy.sort(), attributedTo: l.attributedTo.sort() });
+    done.set(iri, {
+      iri,
+      subject: l.subject,
+      object: l.object,
+      kind: l.kind,
+      status: l.status,
+      relation: l.relation,
+      score: l.score,
+      support: l.support ?? 0,
+      generatedBy: l.generatedBy.sort(),
+      attributedTo: l.attributedTo.sort(),
+    });
   }
-  const snapshot: ReleaseSnapshot = { ...identity, links: done, works, activities: activitiesOf(done.values(), provenance), clusters: await readClusterRegistry(csv) };
+  const snapshot: ReleaseSnapshot = {
+    ...identity,
+    links: done,
+    works,
+    activities: activitiesOf(done.values(), provenance),
+    clusters: await readClusterRegistry(csv),
+  };
   const clusterInvalidations = new Map<string, { activity: string; time?: string }>();
   for (const [c, x] of inval) if (x.activity) clusterInvalidations.set(c, { activity: x.activity, time: x.time });
   return { folder: path.resolve(folder), snapshot, provenance, clusterInvalidations };

@@ -27,7 +27,9 @@ export interface WorkName {
   ref: string;
 }
 
-/** An activity a link names as prov:wasGeneratedBy: a curator's review or a matcher run, as the release describes it. */
+/**
+ * An activity a link names as prov:wasGeneratedBy: a curator's review or a matcher run, as the release describes it.
+ */
 export type ActivityInfo =
   | { kind: 'review'; curator: string; curatorName?: string; date?: string; verdict?: string }
   | { kind: 'run'; id: string; software?: string; version?: string };
@@ -60,7 +62,9 @@ export interface ReleaseSnapshot {
 export interface PreviousRelease {
   folder: string;
   snapshot: ReleaseSnapshot;
-  /** Provenance-graph quads about runs, agents, plans, reviews and people, by subject IRI (to describe earlier states). */
+  /**
+   * Provenance-graph quads about runs, agents, plans, reviews and people, by subject IRI (to describe earlier states).
+   */
   provenance: Map<string, Quad[]>;
   /** Retired cluster IRI → its recorded invalidation (activity IRI, time), carried with the tombstone. */
   clusterInvalidations: Map<string, { activity: string; time?: string }>;
@@ -75,7 +79,9 @@ export interface ClaimChange {
   partners: string[];
   before?: ClaimStateOf;
   after?: ClaimStateOf;
-  /** Who made the change: for a claim added or changed, whoever generated its new state; for one removed, the release. */
+  /**
+   * Who made the change: for a claim added or changed, whoever generated its new state; for one removed, the release.
+   */
   by: MadeBy;
 }
 

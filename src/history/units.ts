@@ -1,4 +1,5 @@
-// Changes against the previous release → RDF units: the release activity, earlier link states, revisions and invalidations.
+// Changes against the previous release → RDF units: the release activity, earlier link states, revisions and
+// invalidations.
 import N3 from 'n3';
 import type { Quad } from '@rdfjs/types';
 import { term, nn, str, int, dec, typed, inGraph } from '../rdf/terms.js';
@@ -12,13 +13,20 @@ import type { LinkState, PreviousRelease, ReleaseSnapshot } from './types.js';
 
 const a = term('rdf', 'type');
 const KIND = { same: term('cx', 'Same'), part: term('cx', 'Part'), related: term('cx', 'Related') };
-const STATUS = { confirmed: term('cx', 'Confirmed'), proposed: term('cx', 'Proposed'), rejected: term('cx', 'Rejected') };
+const STATUS = {
+  confirmed: term('cx', 'Confirmed'),
+  proposed: term('cx', 'Proposed'),
+  rejected: term('cx', 'Rejected'),
+};
 const isClaim = (l: LinkState) => l.status !== 'rejected';
 
 /** The release date as an xsd:dateTime (midnight UTC of dcterms:issued); undefined when the release is undated. */
 export const releaseTime = (issued?: string) => (issued ? `${issued}T00:00:00Z` : undefined);
 
-/** Subjects reachable from `seeds` through the previous release's provenance quads, stopping at IRIs the new release describes. */
+/**
+ * Subjects reachable from `seeds` through the previous release's provenance quads, stopping at IRIs the new release
+ * describes.
+ */
 function closure(seeds: Iterable<string>, provenance: Map<string, Quad[]>, describedNow: Set<string>): string[] {
   const seen = new Set<string>();
   const stack = [...seeds];
@@ -41,7 +49,9 @@ export function changedLinks(prev: ReleaseSnapshot, current: ReleaseSnapshot): [
   return changed;
 }
 
-/** IRIs of the image matches the current release describes behind the links in `iris` (same naming as the RDF stage). */
+/**
+ * IRIs of the image matches the current release describes behind the links in `iris` (same naming as the RDF stage).
+ */
 export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<string>): Set<string> {
   const out = new Set<string>();
   for (const l of view.links.links) {
@@ -55,14 +65,24 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
  * Units for what changed since `previous` (PROV-O §3.2 expanded terms; standards digest §2 and §3):
  * - the release activity `{base}release/{version}` (prov:Activity, cx:Release), dated by the project's release date;
  * - for each link whose status or kind changed, or that is gone: its earlier state `{link}/v/{previous version}`
- *   (a cx:LinkState, not a cx:Link, with the old status, relation, kind, score, image matches and provenance, `dcterms:isVersionOf` the
+ * (a cx:LinkState, not a cx:Link, with the old status, relation, kind, score, image matches and provenance,
+ * `dcterms:isVersionOf` the
  *   link; matches this release no longer holds are copied from the previous one);
  *   the link `prov:wasRevisionOf` that state when it is still published;
- * - a claim that is gone or now rejected: `prov:wasInvalidatedBy` the release activity, `prov:invalidatedAtTime` its date;
+ * - a claim that is gone or now rejected: `prov:wasInvalidatedBy` the release activity, `prov:invalidatedAtTime` its
+ * date;
  * - the previous release's descriptions of runs, reviews and agents the earlier states name and this release does not.
  * What is said about a link still published goes into `attached` (by link IRI), to be written with the link itself.
  */
-export function historyUnits(model: Model, namer: Namer, previous: PreviousRelease, current: ReleaseSnapshot, changed: [LinkState, LinkState | undefined][], evidence: LinkEvidence, matchesNow: Set<string>): { units: Unit[]; attached: Map<string, Quad[]> } {
+export function historyUnits(
+  model: Model,
+  namer: Namer,
+  previous: PreviousRelease,
+  current: ReleaseSnapshot,
+  changed: [LinkState, LinkState | undefined][],
+  evidence: LinkEvidence,
+  matchesNow: Set<string>,
+): { units: Unit[]; attached: Map<string, Quad[]> } {
   const prev = previous.snapshot;
   const version = model.project.release.version;
   const R = nn(namer.iri('release', { version }));
@@ -81,11 +101,19 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
 
   const describedNow = new Set<string>();
   for (const l of current.links.values()) for (const x of [...l.generatedBy, ...l.attributedTo]) describedNow.add(x);
-  model.runs.forEach((_, r) => { describedNow.add(namer.runIri(r)); describedNow.add(namer.agentIri(r)); });
+  model.runs.forEach((_, r) => {
+    describedNow.add(namer.runIri(r));
+    describedNow.add(namer.agentIri(r));
+  });
 
   const partnerNo = new Map(model.project.partners.map((p, i) => [p.key, i]));
-  const matchRuns = (m: string) => (evidence.quads.get(m) ?? []).filter((q) => q.predicate.value === P.generatedBy).map((q) => q.object.value);
-  const seeds = changed.flatMap(([old]) => [...old.generatedBy, ...old.attributedTo, ...(evidence.matches.get(old.iri) ?? []).flatMap(matchRuns)]);
+  const matchRuns = (m: string) =>
+    (evidence.quads.get(m) ?? []).filter((q) => q.predicate.value === P.generatedBy).map((q) => q.object.value);
+  const seeds = changed.flatMap(([old]) => [
+    ...old.generatedBy,
+    ...old.attributedTo,
+    ...(evidence.matches.get(old.iri) ?? []).flatMap(matchRuns),
+  ]);
   const copied = closure(seeds, previous.provenance, describedNow);
   for (const s of copied)
     for (const q of previous.provenance.get(s)!) {
@@ -113,7 +141,8 @@ export function historyUnits(model: Model, namer: Namer, previous: PreviousRelea
     for (const m of evidence.matches.get(old.iri) ?? []) {
       p(E, term('prov', 'wasDerivedFrom'), nn(m));
       if (matchesNow.has(m)) continue;
-      for (const q of evidence.quads.get(m) ?? []) matchQuads.push(N3.DataFactory.quad(q.subject, q.predicate, q.object, namer.graph('evidence')) as Quad);
+      for (const q of evidence.quads.get(m) ?? [])
+        matchQuads.push(N3.DataFactory.quad(q.subject, q.predicate, q.object, namer.graph('evidence')) as Quad);
     }
     for (const x of old.generatedBy) p(E, term('prov', 'wasGeneratedBy'), nn(x));
     for (const x of old.attributedTo) p(E, term('prov', 'wasAttributedTo'), nn(x));

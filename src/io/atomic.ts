@@ -1,7 +1,17 @@
 // A release folder written all-or-nothing: files go to a marked temp sibling folder, renamed into place at the end.
-import { chmodSync, existsSync, mkdirSync, mkdtempSync, readdirSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import {
+  chmodSync,
+  existsSync,
+  mkdirSync,
+  mkdtempSync,
+  readdirSync,
+  renameSync,
+  rmSync,
+  statSync,
+  writeFileSync,
+} from 'node:fs';
 import path from 'node:path';
-import { UserError, EXIT, displayPath } from '../errors.js';
+import { UserError, displayPath } from '../errors.js';
 import { describeOwner, ownerRecord, ownerState, readOwner } from '../util/owner.js';
 import { removeOnSignal } from '../util/interrupt.js';
 import { takeLock } from '../util/lock.js';
@@ -21,7 +31,10 @@ export function unfinishedFolder(dir: string): ReturnType<typeof readOwner> {
  * Removes temp folders in `parent` left by a run that can no longer finish them (killed, power lost): only folders
  * named like ours that hold an owner record whose process is gone. Says so on stderr, one line each.
  */
-export function removeStaleTemps(parent: string, say: (line: string) => void = (l) => process.stderr.write(l + '\n')): string[] {
+export function removeStaleTemps(
+  parent: string,
+  say: (line: string) => void = (l) => process.stderr.write(l + '\n'),
+): string[] {
   let names: string[];
   try {
     names = readdirSync(parent);
@@ -52,12 +65,25 @@ const folderMode = (): number => 0o777 & ~process.umask();
 export async function writeFolderAtomically<T>(outDir: string, write: (tempDir: string) => Promise<T>): Promise<T> {
   const target = path.resolve(outDir);
   const exists = (): UserError =>
-    new UserError({ file: target, line: 0, field: '--out', message: 'folder already exists', hint: 'a release is never overwritten: choose a new folder' });
+    new UserError({
+      file: target,
+      line: 0,
+      field: '--out',
+      message: 'folder already exists',
+      hint: 'a release is never overwritten: choose a new folder',
+    });
   if (existsSync(target)) throw exists();
   const parent = path.dirname(target);
   for (let up = parent; ; up = path.dirname(up)) {
     if (existsSync(up)) {
-      if (!isFolder(up)) throw new UserError({ file: up, line: 0, field: '--out', message: 'is a file, so no folder can be made under it', hint: 'choose --out in a folder' });
+      if (!isFolder(up))
+        throw new UserError({
+          file: up,
+          line: 0,
+          field: '--out',
+          message: 'is a file, so no folder can be made under it',
+          hint: 'choose --out in a folder',
+        });
       break;
     }
     if (path.dirname(up) === up) break;
@@ -89,7 +115,8 @@ export async function writeFolderAtomically<T>(outDir: string, write: (tempDir: 
       rmSync(temp, { recursive: true, force: true });
       forget();
       const os = osUserError(e); // disk full, permissions: named at --out when the error names no path
-      if (os && !(e as NodeJS.ErrnoException).path) throw new UserError({ ...os.problems[0], file: target, field: '--out' }, os.exitCode);
+      if (os && !(e as NodeJS.ErrnoException).path)
+        throw new UserError({ ...os.problems[0], file: target, field: '--out' }, os.exitCode);
       throw os ?? e;
     }
   } finally {

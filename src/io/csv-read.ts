@@ -8,13 +8,19 @@ export interface CsvRow {
   line: number;
 }
 
-/** Index of the first byte that starts an invalid UTF-8 sequence, -1 if none; `tail` = bytes of an unfinished sequence at the end. */
+/**
+ * Index of the first byte that starts an invalid UTF-8 sequence, -1 if none; `tail` = bytes of an unfinished sequence
+ * at the end.
+ */
 function firstInvalidUtf8(buf: Uint8Array): { bad: number; tail: number } {
   let i = 0;
   const n = buf.length;
   while (i < n) {
     const b = buf[i];
-    if (b < 0x80) { i++; continue; }
+    if (b < 0x80) {
+      i++;
+      continue;
+    }
     let len: number, min: number;
     if (b >= 0xc2 && b <= 0xdf) [len, min] = [2, 0x80];
     else if (b >= 0xe0 && b <= 0xef) [len, min] = [3, 0x800];
@@ -79,7 +85,8 @@ class CsvParser {
         continue;
       }
       if (state === PENDING) {
-        if (c === 34) { // `""`: one quote of content
+        if (c === 34) {
+          // `""`: one quote of content
           this.field += '"';
           mark = i + 1;
           state = QUOTED;
@@ -87,7 +94,10 @@ class CsvParser {
         }
         state = CLOSED;
       }
-      if (c === 10 && afterCR) { mark = i + 1; continue; } // the LF of a CRLF that already ended the record
+      if (c === 10 && afterCR) {
+        mark = i + 1;
+        continue;
+      } // the LF of a CRLF that already ended the record
       if (this.recordLine === 0) this.recordLine = this.line;
       if (c === d) {
         this.fields.push(this.field + text.slice(mark, i));
@@ -114,7 +124,8 @@ class CsvParser {
 
   /** A blank line, or one of unquoted spaces only, is no record. */
   private endRecord(): void {
-    if (this.quoted || this.fields.length > 1 || this.fields[0].trim() !== '') this.rows.push({ fields: this.fields, line: this.recordLine });
+    if (this.quoted || this.fields.length > 1 || this.fields[0].trim() !== '')
+      this.rows.push({ fields: this.fields, line: this.recordLine });
     this.quoted = false;
     this.fields = [];
     this.field = '';
@@ -140,20 +151,39 @@ export function detached(s: string): string {
   return s.length < 13 ? s : (' ' + s).slice(1);
 }
 
-const problem = (file: string, line: number, message: string, hint?: string): Problem => ({ file, line, field: '', message, hint });
+const problem = (file: string, line: number, message: string, hint?: string): Problem => ({
+  file,
+  line,
+  field: '',
+  message,
+  hint,
+});
 
 /**
  * Streams the records of a CSV/TSV file (RFC 4180 quoting; UTF-8 with or without BOM; CRLF or LF), in batches (one
- * per chunk read). Blank (or only-space) lines are skipped; spaces inside a field are kept (RFC 4180 §2). Structural faults (invalid UTF-8, stray or unterminated quotes) throw a
+ * per chunk read). Blank (or only-space) lines are skipped; spaces inside a field are kept (RFC 4180 §2). Structural
+ * faults (invalid UTF-8, stray or unterminated quotes) throw a
  * UserError naming the line; ragged rows are left to the caller, which knows the header.
  */
-export async function* readCsvBatches(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow[]> {
+export async function* readCsvBatches(
+  file: string,
+  delimiter: string,
+  onBytes?: (bytesRead: number) => void,
+): AsyncGenerator<CsvRow[]> {
   const parser = new CsvParser(delimiter.charCodeAt(0));
   const decoder = new TextDecoder('utf-8', { fatal: true });
   let carry = new Uint8Array(0);
 
   const drain = (): CsvRow[] => {
-    if (parser.stray) throw new UserError(problem(file, parser.stray, 'stray quote inside an unquoted field', 'quote the whole field and double any quote inside it: "a ""b"" c"'));
+    if (parser.stray)
+      throw new UserError(
+        problem(
+          file,
+          parser.stray,
+          'stray quote inside an unquoted field',
+          'quote the whole field and double any quote inside it: "a ""b"" c"',
+        ),
+      );
     return parser.rows.splice(0);
   };
 
@@ -168,7 +198,9 @@ export async function* readCsvBatches(file: string, delimiter: string, onBytes?:
       const { bad, tail } = firstInvalidUtf8(buf);
       if (bad >= 0) {
         parser.feed(decoder.decode(buf.subarray(0, bad), { stream: true }));
-        throw new UserError(problem(file, parser.line, `invalid UTF-8 (byte 0x${buf[bad].toString(16)})`, 'save the export as UTF-8'));
+        throw new UserError(
+          problem(file, parser.line, `invalid UTF-8 (byte 0x${buf[bad].toString(16)})`, 'save the export as UTF-8'),
+        );
       }
       carry = tail ? buf.slice(buf.length - tail) : new Uint8Array(0);
       parser.feed(decoder.decode(tail ? buf.subarray(0, buf.length - tail) : buf, { stream: true }));
@@ -178,16 +210,33 @@ export async function* readCsvBatches(file: string, delimiter: string, onBytes?:
   } catch (e) {
     if (e instanceof UserError) throw e;
     const code = (e as NodeJS.ErrnoException).code;
-    throw new UserError(problem(file, 0, code === 'ENOENT' ? 'file not found' : `cannot read file (${code ?? e})`, 'check the path in concordance.json (paths are relative to it)'));
+    throw new UserError(
+      problem(
+        file,
+        0,
+        code === 'ENOENT' ? 'file not found' : `cannot read file (${code ?? e})`,
+        'check the path in concordance.json (paths are relative to it)',
+      ),
+    );
   }
-  if (carry.length) throw new UserError(problem(file, parser.line, 'invalid UTF-8 (truncated sequence at end of file)', 'save the export as UTF-8'));
+  if (carry.length)
+    throw new UserError(
+      problem(file, parser.line, 'invalid UTF-8 (truncated sequence at end of file)', 'save the export as UTF-8'),
+    );
   const unterminated = parser.finish();
-  if (unterminated) throw new UserError(problem(file, unterminated, 'unterminated quoted field', 'a field opened with " must close with "'));
+  if (unterminated)
+    throw new UserError(
+      problem(file, unterminated, 'unterminated quoted field', 'a field opened with " must close with "'),
+    );
   const batch = drain();
   if (batch.length) yield batch;
 }
 
 /** The records of {@link readCsvBatches} one by one. */
-export async function* readCsv(file: string, delimiter: string, onBytes?: (bytesRead: number) => void): AsyncGenerator<CsvRow> {
+export async function* readCsv(
+  file: string,
+  delimiter: string,
+  onBytes?: (bytesRead: number) => void,
+): AsyncGenerator<CsvRow> {
   for await (const batch of readCsvBatches(file, delimiter, onBytes)) yield* batch;
 }

@@ -1,4 +1,5 @@
-// Rows of strings → RFC 4180 CSV files (for spreadsheets: UTF-8 with BOM, CRLF; or plain: LF, no BOM), streamed and renamed into place.
+// Rows of strings → RFC 4180 CSV files (for spreadsheets: UTF-8 with BOM, CRLF; or plain: LF, no BOM), streamed and
+// renamed into place.
 import { createWriteStream } from 'node:fs';
 import { once } from 'node:events';
 import { TempFile } from './temp-file.js';
@@ -41,7 +42,8 @@ export function csvLine(cells: readonly string[], neutral?: readonly boolean[], 
 const CHUNK = 1 << 16;
 
 /**
- * Writes a CSV file atomically: records go to a temp file beside it in 64 KiB chunks (never one big string) and the file is
+ * Writes a CSV file atomically: records go to a temp file beside it in 64 KiB chunks (never one big string) and the
+ * file is
  * renamed into place by `close()`. `neutral` marks the columns that are neutralised (see `neutralise`); `form` picks
  * BOM and line ends (see `CsvForm`). Line breaks inside a quoted cell are written as they are.
  */
@@ -50,7 +52,12 @@ export class CsvFile {
   private buffer = '';
   private readonly temp: TempFile;
   private readonly eol: string;
-  constructor(private readonly file: string, header: readonly string[], private readonly neutral?: readonly boolean[], form: CsvForm = 'spreadsheet') {
+  constructor(
+    private readonly file: string,
+    header: readonly string[],
+    private readonly neutral?: readonly boolean[],
+    form: CsvForm = 'spreadsheet',
+  ) {
     this.temp = new TempFile(file);
     this.stream = createWriteStream(this.temp.temp, { encoding: 'utf8' });
     this.eol = form === 'spreadsheet' ? '\r\n' : '\n';

@@ -15,7 +15,10 @@ function counts(line: string): Map<string, number> {
   return n;
 }
 
-/** The delimiter of a header line: the candidate that occurs most often outside quotes (ties → tab, ';', ',', '|'; none → ','). */
+/**
+ * The delimiter of a header line: the candidate that occurs most often outside quotes (ties → tab, ';', ',', '|'; none
+ * → ',').
+ */
 export function sniffDelimiter(headerLine: string): string {
   const n = counts(headerLine);
   let best = ',';
@@ -24,7 +27,10 @@ export function sniffDelimiter(headerLine: string): string {
   return best;
 }
 
-/** The first line of `file` (BOM dropped; CR, LF or CRLF ends it), read from its first 64 KiB; undefined when unreadable. */
+/**
+ * The first line of `file` (BOM dropped; CR, LF or CRLF ends it), read from its first 64 KiB; undefined when
+ * unreadable.
+ */
 export function firstLine(file: string): string | undefined {
   let fd: number;
   try {
@@ -35,7 +41,11 @@ export function firstLine(file: string): string | undefined {
   try {
     const buf = Buffer.alloc(65536);
     const n = readSync(fd, buf, 0, buf.length, 0);
-    return buf.subarray(0, n).toString('utf8').replace(/^\uFEFF/, '').split(/\r?\n|\r/)[0];
+    return buf
+      .subarray(0, n)
+      .toString('utf8')
+      .replace(/^\uFEFF/, '')
+      .split(/\r?\n|\r/)[0];
   } finally {
     closeSync(fd);
   }

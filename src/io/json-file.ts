@@ -30,7 +30,14 @@ export function parseJson(text: string, file: string, hint = 'check commas, quot
     const msg = (e as Error).message;
     const m = POSITION.exec(msg);
     const { line, column } = lineColumn(body, m ? Number(m[1]) : body.length);
-    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${msg.replace(POSITION_TAIL, '')}`, hint });
+    throw new UserError({
+      file,
+      line,
+      column,
+      field: '',
+      message: `JSON syntax error: ${msg.replace(POSITION_TAIL, '')}`,
+      hint,
+    });
   }
 }
 
@@ -43,7 +50,13 @@ export function readJsonFile(file: string, what: string, hint: string): { text: 
   try {
     text = readFileSync(file, 'utf8');
   } catch (e) {
-    throw new UserError({ file, line: 0, field: '', message: `cannot read ${what}: ${(e as NodeJS.ErrnoException).code ?? e}`, hint });
+    throw new UserError({
+      file,
+      line: 0,
+      field: '',
+      message: `cannot read ${what}: ${(e as NodeJS.ErrnoException).code ?? e}`,
+      hint,
+    });
   }
   if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
   return { text, value: parseJson(text, file) };
@@ -52,6 +65,13 @@ export function readJsonFile(file: string, what: string, hint: string): { text: 
 /** Reads a JSON object (BOM tolerated); a syntax error or a non-object is a UserError naming the file. */
 export function readJsonObject(file: string): Record<string, unknown> {
   const { value } = readJsonFile(file, 'project file', 'give the path to concordance.json, e.g. from concordat init');
-  if (typeof value !== 'object' || value === null || Array.isArray(value)) throw new UserError({ file, line: 1, field: '', message: 'the project file is not a JSON object', hint: 'start from concordat init' });
+  if (typeof value !== 'object' || value === null || Array.isArray(value))
+    throw new UserError({
+      file,
+      line: 1,
+      field: '',
+      message: 'the project file is not a JSON object',
+      hint: 'start from concordat init',
+    });
   return value as Record<string, unknown>;
 }

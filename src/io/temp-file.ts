@@ -27,7 +27,10 @@ export class TempFile {
   }
 }
 
-/** Writes `data` to `file` all-or-nothing (see {@link TempFile}); on failure the temp file is removed and the error rethrown. */
+/**
+ * Writes `data` to `file` all-or-nothing (see {@link TempFile}); on failure the temp file is removed and the error
+ * rethrown.
+ */
 export function writeFileAtomically(file: string, data: string | Uint8Array): void {
   const t = new TempFile(file);
   try {

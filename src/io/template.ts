@@ -27,8 +27,10 @@ export function checkTemplate(template: string, required: string, allowed: strin
   const stripped = template.replace(/\{[^{}]*\}/g, '');
   if (/[{}]/.test(stripped)) problems.push('unbalanced braces');
   for (const e of exprs) {
-    if (/^[+#./;?&=,!@|]/.test(e)) problems.push(`expression {${e}} uses an operator; only level-1 {name} expressions are supported`);
-    else if (!allowed.includes(e)) problems.push(`unknown variable {${e}}; use ${allowed.map((a) => `{${a}}`).join(' or ')}`);
+    if (/^[+#./;?&=,!@|]/.test(e))
+      problems.push(`expression {${e}} uses an operator; only level-1 {name} expressions are supported`);
+    else if (!allowed.includes(e))
+      problems.push(`unknown variable {${e}}; use ${allowed.map((a) => `{${a}}`).join(' or ')}`);
   }
   if (!exprs.includes(required)) problems.push(`has no {${required}} placeholder`);
   return problems;

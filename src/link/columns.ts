@@ -10,48 +10,86 @@ type Stored = Int32Array | Uint8Array | Float64Array;
 
 /**
  * How one field is stored: the typed array that holds it, and, made once per column, a function that stores a value
- * and a getter that reads it back for a record `{ i }`. Each kind of codec has its own function bodies, so every getter reads one array type
+ * and a getter that reads it back for a record `{ i }`. Each kind of codec has its own function bodies, so every getter
+ * reads one array type
  * (V8 keeps such sites monomorphic: a generic getter over all fields was several times slower).
  */
 interface Codec<T, A extends ArrayType> {
   array: A;
-  writer(column: InstanceType<A>, name: string, columns: LinkColumns): (i: number, values: Record<string, unknown>) => void;
+  writer(
+    column: InstanceType<A>,
+    name: string,
+    columns: LinkColumns,
+  ): (i: number, values: Record<string, unknown>) => void;
   getter(column: InstanceType<A>, columns: LinkColumns): (this: { i: number }) => T;
 }
 
 const int: Codec<number, Int32ArrayConstructor> = {
   array: Int32Array,
-  writer: (col, name) => (i, v) => { col[i] = v[name] as number; },
-  getter: (col) => function () { return col[this.i]; },
+  writer: (col, name) => (i, v) => {
+    col[i] = v[name] as number;
+  },
+  getter: (col) =>
+    function () {
+      return col[this.i];
+    },
 };
 const float: Codec<number, Float64ArrayConstructor> = {
   array: Float64Array,
-  writer: (col, name) => (i, v) => { col[i] = v[name] as number; },
-  getter: (col) => function () { return col[this.i]; },
+  writer: (col, name) => (i, v) => {
+    col[i] = v[name] as number;
+  },
+  getter: (col) =>
+    function () {
+      return col[this.i];
+    },
 };
 /** A number or none (stored as -1). */
 const optional: Codec<number | undefined, Int32ArrayConstructor> = {
   array: Int32Array,
-  writer: (col, name) => (i, v) => { col[i] = (v[name] as number | undefined) ?? -1; },
-  getter: (col) => function () { const x = col[this.i]; return x < 0 ? undefined : x; },
+  writer: (col, name) => (i, v) => {
+    col[i] = (v[name] as number | undefined) ?? -1;
+  },
+  getter: (col) =>
+    function () {
+      const x = col[this.i];
+      return x < 0 ? undefined : x;
+    },
 };
 /** One of a few values, stored as its index. */
 const oneOf = <T>(values: readonly T[]): Codec<T, Uint8ArrayConstructor> => ({
   array: Uint8Array,
-  writer: (col, name) => (i, v) => { col[i] = values.indexOf(v[name] as T); },
-  getter: (col) => function () { return values[col[this.i]]; },
+  writer: (col, name) => (i, v) => {
+    col[i] = values.indexOf(v[name] as T);
+  },
+  getter: (col) =>
+    function () {
+      return values[col[this.i]];
+    },
 });
 /** One of a few values or none, stored as 1 + its index (0: none). */
 const optionalOneOf = <T>(values: readonly T[]): Codec<T | undefined, Uint8ArrayConstructor> => ({
   array: Uint8Array,
-  writer: (col, name) => (i, v) => { const x = v[name] as T | undefined; col[i] = x === undefined ? 0 : 1 + values.indexOf(x); },
-  getter: (col) => function () { const x = col[this.i]; return x === 0 ? undefined : values[x - 1]; },
+  writer: (col, name) => (i, v) => {
+    const x = v[name] as T | undefined;
+    col[i] = x === undefined ? 0 : 1 + values.indexOf(x);
+  },
+  getter: (col) =>
+    function () {
+      const x = col[this.i];
+      return x === 0 ? undefined : values[x - 1];
+    },
 });
 /** A run list, stored as its index in the columns' shared `runLists`. */
 const runList: Codec<readonly number[], Int32ArrayConstructor> = {
   array: Int32Array,
-  writer: (col, name, c) => (i, v) => { col[i] = c.runList(v[name] as readonly number[]); },
-  getter: (col, c) => function () { return c.runLists[col[this.i]]; },
+  writer: (col, name, c) => (i, v) => {
+    col[i] = c.runList(v[name] as readonly number[]);
+  },
+  getter: (col, c) =>
+    function () {
+      return c.runLists[col[this.i]];
+    },
 };
 
 /** Every field of a link and how it is stored: the one list (see {@link Link} in types.ts for what each means). */
@@ -148,7 +186,8 @@ class ColumnSet {
         return Object.fromEntries(NAMES.map((name) => [name, self[name]])) as LinkValues;
       }
     }
-    for (const name of NAMES) Object.defineProperty(LinkRecord.prototype, name, { get: codec(name).getter(this[name] as never, this) });
+    for (const name of NAMES)
+      Object.defineProperty(LinkRecord.prototype, name, { get: codec(name).getter(this[name] as never, this) });
     return Array.from({ length: this.size }, (_, i) => new LinkRecord(i) as unknown as Link);
   }
 }

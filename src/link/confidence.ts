@@ -30,18 +30,33 @@ export function sameConfidence(best: number, agreement: number): number {
  * confidence on its own photographs reaches proposeAt, or a curator's same). Counted up to MAX_TRIANGLES, scanning at
  * most TRIANGLE_SCAN neighbours of each end, so the cost is linear in the links.
  */
-export function triangles(works: number, a: Int32Array, b: Int32Array, strong: Uint8Array, candidates: Uint8Array): Uint8Array {
+export function triangles(
+  works: number,
+  a: Int32Array,
+  b: Int32Array,
+  strong: Uint8Array,
+  candidates: Uint8Array,
+): Uint8Array {
   const offset = new Int32Array(works + 1);
-  for (let i = 0; i < a.length; i++) if (strong[i]) { offset[a[i] + 1]++; offset[b[i] + 1]++; }
+  for (let i = 0; i < a.length; i++)
+    if (strong[i]) {
+      offset[a[i] + 1]++;
+      offset[b[i] + 1]++;
+    }
   for (let w = 0; w < works; w++) offset[w + 1] += offset[w];
   const fill = offset.slice(0, works);
   const nb = new Int32Array(offset[works]);
-  for (let i = 0; i < a.length; i++) if (strong[i]) { nb[fill[a[i]]++] = b[i]; nb[fill[b[i]]++] = a[i]; }
+  for (let i = 0; i < a.length; i++)
+    if (strong[i]) {
+      nb[fill[a[i]]++] = b[i];
+      nb[fill[b[i]]++] = a[i];
+    }
   const stamp = new Int32Array(works).fill(-1);
   const out = new Uint8Array(a.length);
   for (let i = 0; i < a.length; i++) {
     if (!candidates[i]) continue;
-    const x = a[i], y = b[i];
+    const x = a[i],
+      y = b[i];
     for (let k = offset[x]; k < Math.min(offset[x + 1], offset[x] + TRIANGLE_SCAN); k++) stamp[nb[k]] = i;
     let t = 0;
     for (let k = offset[y]; k < Math.min(offset[y + 1], offset[y] + TRIANGLE_SCAN) && t < MAX_TRIANGLES; k++) {

@@ -24,8 +24,16 @@ function detailWork(model: Model, row: number): number {
   return model.images.work[model.matches.a[row]];
 }
 
-/** Status and kind from the machine evidence alone (policy: proposeAt, autoConfirmAt, partOverlapBelow), given the link's confidence. */
-export function machineVerdict(confidence: number, maxOverlap: number, reliable: number, policy: Policy): { kind: LinkKind; status: LinkStatus } {
+/**
+ * Status and kind from the machine evidence alone (policy: proposeAt, autoConfirmAt, partOverlapBelow), given the
+ * link's confidence.
+ */
+export function machineVerdict(
+  confidence: number,
+  maxOverlap: number,
+  reliable: number,
+  policy: Policy,
+): { kind: LinkKind; status: LinkStatus } {
   const kind: LinkKind = maxOverlap < policy.partOverlapBelow ? 'part' : 'same';
   if (reliable === 0) return { kind, status: 'candidate' };
   if (policy.autoConfirmAt !== null && confidence >= policy.autoConfirmAt) return { kind, status: 'confirmed' };
@@ -38,7 +46,11 @@ export function machineVerdict(confidence: number, maxOverlap: number, reliable:
  * Curator decisions always win: `same` confirms, `part` and `related` set the kind (confirmed), `distinct` keeps a
  * rejected link so it is never proposed again. Matches below `minOverlap` stay evidence but propose nothing.
  */
-export function link(model: Model, policy: Policy = model.project.policy, evidence: WeighedEvidence = weighEvidence(model, policy)): LinkSet {
+export function link(
+  model: Model,
+  policy: Policy = model.project.policy,
+  evidence: WeighedEvidence = weighEvidence(model, policy),
+): LinkSet {
   const { matches, images } = model;
   const rank = refRank(model, Array.from(model.works.keys()));
   const byRank = new Int32Array(model.works.length);
@@ -47,7 +59,8 @@ export function link(model: Model, policy: Policy = model.project.policy, eviden
   const lo = new Int32Array(matches.count);
   const hi = new Int32Array(matches.count);
   for (let i = 0; i < matches.count; i++) {
-    const ra = rank[images.work[matches.a[i]]], rb = rank[images.work[matches.b[i]]];
+    const ra = rank[images.work[matches.a[i]]],
+      rb = rank[images.work[matches.b[i]]];
     lo[i] = ra < rb ? ra : rb;
     hi[i] = ra < rb ? rb : ra;
   }
@@ -92,7 +105,8 @@ export function link(model: Model, policy: Policy = model.project.policy, eviden
       const i = rows[k];
       const repeat = findRepeat(model, matchRows, from, kept, i);
       if (repeat === -1) matchRows[kept++] = i;
-      else duplicates.push({ row: i, first: repeat }); // one run reporting one image pair twice is one piece of evidence
+      // one run reporting one image pair twice is one piece of evidence
+      else duplicates.push({ row: i, first: repeat });
     }
     const first = rows[starts[g]];
     columns.set(n, make(byRank[lo[first]], byRank[hi[first]], from, kept - from, decided.get(key)));
@@ -102,7 +116,14 @@ export function link(model: Model, policy: Policy = model.project.policy, eviden
   duplicates.sort((p, q) => p.row - q.row);
   settle(model, policy, columns, scratch);
   const links = columns.records();
-  return { links, byPair: new PairIndex(links), duplicates, matchRows: matchRows.slice(0, kept), evidence, hold: (i, reason) => columns.hold(i, reason) };
+  return {
+    links,
+    byPair: new PairIndex(links),
+    duplicates,
+    matchRows: matchRows.slice(0, kept),
+    evidence,
+    hold: (i, reason) => columns.hold(i, reason),
+  };
 }
 
 /**
@@ -112,17 +133,23 @@ export function link(model: Model, policy: Policy = model.project.policy, eviden
  */
 function settle(model: Model, policy: Policy, c: LinkColumns, scratch: Scratch): void {
   const SAME = 0; // index of 'same' in the kind column
-  const strong = new Uint8Array(c.size), ask = new Uint8Array(c.size);
+  const strong = new Uint8Array(c.size),
+    ask = new Uint8Array(c.size);
   for (let i = 0; i < c.size; i++) {
     const curatorSame = c.decision[i] >= 0 && model.decisions[c.decision[i]].verdict === 'same';
     if (c.kind[i] !== SAME) continue;
-    if (curatorSame || (c.decision[i] < 0 && sameConfidence(scratch.discBest[i], scratch.photos[i] - 1) >= policy.proposeAt)) strong[i] = 1;
+    if (
+      curatorSame ||
+      (c.decision[i] < 0 && sameConfidence(scratch.discBest[i], scratch.photos[i] - 1) >= policy.proposeAt)
+    )
+      strong[i] = 1;
     if (scratch.discBest[i] > 0) ask[i] = 1;
   }
   const t = triangles(model.works.length, c.a, c.b, strong, ask);
   for (let i = 0; i < c.size; i++) {
     if (scratch.discBest[i] === 0) continue;
-    const confidence = c.kind[i] === SAME ? sameConfidence(scratch.discBest[i], scratch.photos[i] - 1 + t[i]) : scratch.discBest[i];
+    const confidence =
+      c.kind[i] === SAME ? sameConfidence(scratch.discBest[i], scratch.photos[i] - 1 + t[i]) : scratch.discBest[i];
     c.confidence[i] = confidence;
     if (c.decision[i] >= 0) continue;
     c.setStatus(i, machineVerdict(confidence, c.kind[i] === SAME ? 1 : 0, 1, policy).status);
@@ -145,7 +172,8 @@ class PairIndex {
   }
 
   get(key: number): number | undefined {
-    let lo = 0, hi = this.keys.length - 1;
+    let lo = 0,
+      hi = this.keys.length - 1;
     while (lo <= hi) {
       const mid = (lo + hi) >>> 1;
       const k = this.keys[mid];
@@ -169,7 +197,8 @@ function identity(n: number): Int32Array {
 /** The earlier kept row (among matchRows[from, to)) reporting the same image pair in the same run as row `i`, or -1. */
 function findRepeat(model: Model, matchRows: Int32Array, from: number, to: number, i: number): number {
   const m = model.matches;
-  const lo = Math.min(m.a[i], m.b[i]), hi = Math.max(m.a[i], m.b[i]);
+  const lo = Math.min(m.a[i], m.b[i]),
+    hi = Math.max(m.a[i], m.b[i]);
   for (let k = from; k < to; k++) {
     const r = matchRows[k];
     if (m.run[r] === m.run[i] && Math.min(m.a[r], m.b[r]) === lo && Math.max(m.a[r], m.b[r]) === hi) return r;
@@ -178,16 +207,38 @@ function findRepeat(model: Model, matchRows: Int32Array, from: number, to: numbe
 }
 
 /** One link from its evidence rows (matchRows[start, start + count)) and the deciding row, if any. */
-function makeLink(model: Model, policy: Policy, setAside: Uint8Array, a: number, b: number, matchRows: Int32Array, start: number, count: number, decision: number | undefined, scratch: Scratch, n: number): LinkValues {
+function makeLink(
+  model: Model,
+  policy: Policy,
+  setAside: Uint8Array,
+  a: number,
+  b: number,
+  matchRows: Int32Array,
+  start: number,
+  count: number,
+  decision: number | undefined,
+  scratch: Scratch,
+  n: number,
+): LinkValues {
   const { matches, images } = model;
-  let sum = 0, reliable = 0, aside = 0;
+  let sum = 0,
+    reliable = 0,
+    aside = 0;
   // [0]: every reliable row; [1]: reliable rows of discriminating images only
-  const best = [0, 0], maxOverlap = [0, 0], votesA = [0, 0], votesB = [0, 0], used = [0, 0];
-  const imgsA = new Set<number>(), imgsB = new Set<number>(), runs = new Set<number>();
-  const discA = new Set<number>(), discB = new Set<number>();
+  const best = [0, 0],
+    maxOverlap = [0, 0],
+    votesA = [0, 0],
+    votesB = [0, 0],
+    used = [0, 0];
+  const imgsA = new Set<number>(),
+    imgsB = new Set<number>(),
+    runs = new Set<number>();
+  const discA = new Set<number>(),
+    discB = new Set<number>();
   for (let k = start; k < start + count; k++) {
     const r = matchRows[k];
-    const ia = matches.a[r], ib = matches.b[r];
+    const ia = matches.a[r],
+      ib = matches.b[r];
     for (const img of [ia, ib]) (images.work[img] === a ? imgsA : imgsB).add(img);
     runs.add(matches.run[r]);
     if (setAside[r]) aside++;
@@ -210,7 +261,9 @@ function makeLink(model: Model, policy: Policy, setAside: Uint8Array, a: number,
   scratch.discBest[n] = best[1];
   scratch.photos[n] = Math.min(discA.size, discB.size);
   // a pair known only from a decision has no evidence to call it partial: a `distinct` verdict rejects `same`
-  let { kind, status } = count ? machineVerdict(best[1], maxOverlap[j], used[1], policy) : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
+  let { kind, status } = count
+    ? machineVerdict(best[1], maxOverlap[j], used[1], policy)
+    : { kind: 'same' as LinkKind, status: 'candidate' as LinkStatus };
   let part: number | undefined;
   if (kind === 'part') part = votesA[j] >= votesB[j] ? a : b;
   if (decision !== undefined) {
@@ -223,7 +276,11 @@ function makeLink(model: Model, policy: Policy, setAside: Uint8Array, a: number,
     }
   }
   return {
-    a, b, kind, status, part,
+    a,
+    b,
+    kind,
+    status,
+    part,
     support: count,
     reliableSupport: reliable,
     best: best[0],

@@ -2,7 +2,9 @@
 import type { WeighedEvidence } from '../evidence/types.js';
 
 export type LinkKind = 'same' | 'part' | 'related';
-/** `candidate`: evidence below the proposal threshold (or only unreliable partial matches); never published as a claim. */
+/**
+ * `candidate`: evidence below the proposal threshold (or only unreliable partial matches); never published as a claim.
+ */
 export type LinkStatus = 'confirmed' | 'proposed' | 'rejected' | 'candidate';
 
 /**

@@ -1,4 +1,5 @@
-// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in src/dates).
+// A catalogued date → impossible (bad input), unread (a warning) or fine, for the load stage (parsing lives in
+// src/dates).
 import { parseDate, type InvalidReading } from '../dates/index.js';
 import type { CenturyConvention, DateLanguage } from '../model.js';
 
@@ -7,7 +8,11 @@ import type { CenturyConvention, DateLanguage } from '../model.js';
  * ("undated", "Renaissance") is kept as catalogued and left out of date comparisons. Returns either reading with its
  * reason and hint; undefined when the date reads (or is blank).
  */
-export function checkCatalogueDate(text: string, convention: CenturyConvention, language?: DateLanguage): InvalidReading | undefined {
+export function checkCatalogueDate(
+  text: string,
+  convention: CenturyConvention,
+  language?: DateLanguage,
+): InvalidReading | undefined {
   const r = parseDate(text, convention, language);
   return r.kind === 'impossible' || r.kind === 'unread' ? r : undefined;
 }

@@ -19,7 +19,14 @@ export function isIsoDate(s: string): boolean {
   return true;
 }
 
-async function* pairs(file: string, extra: string[], optional: string[], works: RefResolver, problems: ProblemList, context: string) {
+async function* pairs(
+  file: string,
+  extra: string[],
+  optional: string[],
+  works: RefResolver,
+  problems: ProblemList,
+  context: string,
+) {
   for await (const row of readTable(file, ',', ['work_a', 'work_b', ...extra], optional, problems, context)) {
     const ends: number[] = [];
     for (const col of ['work_a', 'work_b']) {
@@ -29,7 +36,13 @@ async function* pairs(file: string, extra: string[], optional: string[], works: 
     }
     if (ends.length < 2) continue;
     if (ends[0] === ends[1]) {
-      problems.add({ file, line: row.line, field: 'work_b', message: 'a work paired with itself', hint: 'both columns name the same record' });
+      problems.add({
+        file,
+        line: row.line,
+        field: 'work_b',
+        message: 'a work paired with itself',
+        hint: 'both columns name the same record',
+      });
       continue;
     }
     yield { row, a: ends[0], b: ends[1] };
@@ -55,7 +68,13 @@ const SPREADSHEET_DATE = /^(\d{1,2}[./-]\d{1,2}[./-]\d{2,4}|\d{4}-\d{2}-\d{2} \d
  * (counted), extra columns ignored. The decision date is `decided_on` (or, in older files, `date`). A row with a
  * verdict must name its curator and date. Later rows for the same pair win (applied by the link stage).
  */
-export async function loadDecisions(source: DecisionFile, works: RefResolver, out: Decision[], problems: ProblemList, warnings: Problem[] = []): Promise<DecisionsRead> {
+export async function loadDecisions(
+  source: DecisionFile,
+  works: RefResolver,
+  out: Decision[],
+  problems: ProblemList,
+  warnings: Problem[] = [],
+): Promise<DecisionsRead> {
   const { file } = source;
   const delimiter = source.delimiter ?? sniffDelimiter(firstLine(file) ?? '');
   const header = (firstLine(file) ?? '').split(delimiter).map((h) => h.trim().replace(/^"(.*)"$/, '$1'));
@@ -70,7 +89,12 @@ export async function loadDecisions(source: DecisionFile, works: RefResolver, ou
     if (!verdict) {
       if ([...columns, 'note'].every((c) => row.get(c).trim() === '')) continue; // a blank row a spreadsheet kept
       read.undecided++;
-      if (curator || date) warnings.push({ ...at('verdict'), message: `no verdict, though ${curator ? 'a curator' : 'a date'} is given: the row is skipped`, hint: `write one of ${VERDICTS.join(', ')}, or clear the row` });
+      if (curator || date)
+        warnings.push({
+          ...at('verdict'),
+          message: `no verdict, though ${curator ? 'a curator' : 'a date'} is given: the row is skipped`,
+          hint: `write one of ${VERDICTS.join(', ')}, or clear the row`,
+        });
       continue;
     }
     const ends: number[] = [];
@@ -80,25 +104,64 @@ export async function loadDecisions(source: DecisionFile, works: RefResolver, ou
       else problems.add({ ...r, ...at(col) });
     }
     let bad = ends.length < 2;
-    if (!bad && ends[0] === ends[1]) { problems.add({ ...at('work_b'), message: 'a work paired with itself', hint: 'both columns name the same record' }); bad = true; }
-    if (!VERDICTS.includes(verdict as Verdict)) {
-      const near = didYouMean(verdict, VERDICTS);
-      problems.add({ ...at('verdict'), message: `unknown verdict "${row.get('verdict')}"`, hint: near ? `did you mean "${near}"?` : `use one of: ${VERDICTS.join(', ')}` });
+    if (!bad && ends[0] === ends[1]) {
+      problems.add({
+        ...at('work_b'),
+        message: 'a work paired with itself',
+        hint: 'both columns name the same record',
+      });
       bad = true;
     }
-    if (!curator) { problems.add({ ...at('curator'), message: `verdict "${verdict}" names no curator`, hint: 'give a name or, better, an ORCID IRI' }); bad = true; }
+    if (!VERDICTS.includes(verdict as Verdict)) {
+      const near = didYouMean(verdict, VERDICTS);
+      problems.add({
+        ...at('verdict'),
+        message: `unknown verdict "${row.get('verdict')}"`,
+        hint: near ? `did you mean "${near}"?` : `use one of: ${VERDICTS.join(', ')}`,
+      });
+      bad = true;
+    }
+    if (!curator) {
+      problems.add({
+        ...at('curator'),
+        message: `verdict "${verdict}" names no curator`,
+        hint: 'give a name or, better, an ORCID IRI',
+      });
+      bad = true;
+    }
     if (!isIsoDate(date)) {
-      const hint = SPREADSHEET_DATE.test(date) ? 'the spreadsheet may have turned the date into its local form: format the column as text and write YYYY-MM-DD' : 'write YYYY-MM-DD, e.g. 2026-11-03';
-      problems.add({ ...at(dateColumn), message: date ? `"${date}" is not a valid ISO 8601 date` : `verdict "${verdict}" has no date`, hint });
+      const hint = SPREADSHEET_DATE.test(date)
+        ? 'the spreadsheet may have turned the date into its local form: format the column as text and write YYYY-MM-DD'
+        : 'write YYYY-MM-DD, e.g. 2026-11-03';
+      problems.add({
+        ...at(dateColumn),
+        message: date ? `"${date}" is not a valid ISO 8601 date` : `verdict "${verdict}" has no date`,
+        hint,
+      });
       bad = true;
     }
     if (bad) continue;
-    out.push({ a: ends[0], b: ends[1], verdict: verdict as Verdict, curator, date, note: row.get('note').trim(), file, line: row.line });
+    out.push({
+      a: ends[0],
+      b: ends[1],
+      verdict: verdict as Verdict,
+      curator,
+      date,
+      note: row.get('note').trim(),
+      file,
+      line: row.line,
+    });
   }
   return read;
 }
 
 /** Reads the gold concordance (design: "Gold concordance"): pairs a person established by hand. */
-export async function loadGold(file: string, works: RefResolver, out: GoldPair[], problems: ProblemList): Promise<void> {
-  for await (const { row, a, b } of pairs(file, [], [], works, problems, 'gold concordance')) out.push({ a, b, line: row.line });
+export async function loadGold(
+  file: string,
+  works: RefResolver,
+  out: GoldPair[],
+  problems: ProblemList,
+): Promise<void> {
+  for await (const { row, a, b } of pairs(file, [], [], works, problems, 'gold concordance'))
+    out.push({ a, b, line: row.line });
 }

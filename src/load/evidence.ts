@@ -19,7 +19,15 @@ export interface MatchColumns {
   line: ReturnType<typeof int32>;
 }
 
-export const newMatchColumns = (): MatchColumns => ({ a: int32(), b: int32(), score: float64(), overlap: float64(), run: int32(), file: int32(), line: int32() });
+export const newMatchColumns = (): MatchColumns => ({
+  a: int32(),
+  b: int32(),
+  score: float64(),
+  overlap: float64(),
+  run: int32(),
+  file: int32(),
+  line: int32(),
+});
 
 const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
@@ -37,9 +45,15 @@ export async function loadEvidence(
   const counts = { rows: 0, sameRecord: 0 };
   const runIds = new Map(runs.map((r, i) => [r.id, i]));
   let size = 0;
-  try { size = statSync(file).size; } catch { /* a missing file is reported by the reader */ }
+  try {
+    size = statSync(file).size;
+  } catch {
+    /* a missing file is reported by the reader */
+  }
   const bar = progress(`evidence ${path.basename(file)}`, Math.round(size / 1048576), 'MiB');
-  const rows = readTable(file, ',', ['image_a', 'image_b', 'score'], ['overlap', 'run'], problems, 'evidence', (b) => bar.update(Math.round(b / 1048576)));
+  const rows = readTable(file, ',', ['image_a', 'image_b', 'score'], ['overlap', 'run'], problems, 'evidence', (b) =>
+    bar.update(Math.round(b / 1048576)),
+  );
   try {
     for await (const row of rows) {
       counts.rows++;
@@ -49,18 +63,33 @@ export async function loadEvidence(
       for (const col of ['image_a', 'image_b']) {
         const r = resolveRef(images, row.get(col), 'image');
         if (typeof r === 'number') ends.push(r);
-        else { problems.add({ ...r, ...at(col) }); bad = true; }
+        else {
+          problems.add({ ...r, ...at(col) });
+          bad = true;
+        }
       }
       const rawScore = row.get('score').trim();
       const score = Number(rawScore);
       if (!NUMBER.test(rawScore) || score < 0 || score > 1) {
-        problems.add({ ...at('score'), message: `score "${rawScore}" is not a number in [0,1]`, hint: /^\d*,\d+$/.test(rawScore) ? `write a decimal point: ${rawScore.replace(',', '.')}` : 'higher = more alike; rescale the matcher output to 0..1' });
+        problems.add({
+          ...at('score'),
+          message: `score "${rawScore}" is not a number in [0,1]`,
+          hint: /^\d*,\d+$/.test(rawScore)
+            ? `write a decimal point: ${rawScore.replace(',', '.')}`
+            : 'higher = more alike; rescale the matcher output to 0..1',
+        });
         bad = true;
       }
       const rawOverlap = row.get('overlap').trim();
       const overlap = rawOverlap === '' ? 1 : Number(rawOverlap);
       if (rawOverlap !== '' && (!NUMBER.test(rawOverlap) || overlap <= 0 || overlap > 1)) {
-        problems.add({ ...at('overlap'), message: `overlap "${rawOverlap}" is not a number in (0,1]`, hint: /^\d*,\d+$/.test(rawOverlap) ? `write a decimal point: ${rawOverlap.replace(',', '.')}` : 'share of the smaller image the matched region covers; blank means 1' });
+        problems.add({
+          ...at('overlap'),
+          message: `overlap "${rawOverlap}" is not a number in (0,1]`,
+          hint: /^\d*,\d+$/.test(rawOverlap)
+            ? `write a decimal point: ${rawOverlap.replace(',', '.')}`
+            : 'share of the smaller image the matched region covers; blank means 1',
+        });
         bad = true;
       }
       let run = fileRun;
@@ -69,15 +98,27 @@ export async function loadEvidence(
         const r = runIds.get(rawRun);
         if (r === undefined) {
           const near = didYouMean(rawRun, [...runIds.keys()]);
-          problems.add({ ...at('run'), message: `unknown run "${rawRun}"`, hint: near ? `did you mean "${near}"?` : 'declare it as "run" of an evidence entry in concordance.json' });
+          problems.add({
+            ...at('run'),
+            message: `unknown run "${rawRun}"`,
+            hint: near ? `did you mean "${near}"?` : 'declare it as "run" of an evidence entry in concordance.json',
+          });
           bad = true;
         } else run = r;
       } else if (run < 0) {
-        problems.add({ ...at('run'), message: 'no run for this row', hint: 'give the evidence entry a "run" in concordance.json or fill the run column' });
+        problems.add({
+          ...at('run'),
+          message: 'no run for this row',
+          hint: 'give the evidence entry a "run" in concordance.json or fill the run column',
+        });
         bad = true;
       }
       if (!bad && ends[0] === ends[1]) {
-        problems.add({ ...at('image_b'), message: 'an image matched with itself', hint: 'drop self-matches from the matcher output' });
+        problems.add({
+          ...at('image_b'),
+          message: 'an image matched with itself',
+          hint: 'drop self-matches from the matcher output',
+        });
         bad = true;
       }
       if (bad) continue;

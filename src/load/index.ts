@@ -58,12 +58,19 @@ export async function load(projectFile: string): Promise<Loaded> {
     stats.sameRecordMatches += c.sameRecord;
   }
   if (stats.sameRecordMatches > 0)
-    warnings.push({ file: evidenceFiles[0], line: 0, field: '', message: `${stats.sameRecordMatches} matches between two photos of the same record were set aside`, hint: 'they say nothing about other records' });
+    warnings.push({
+      file: evidenceFiles[0],
+      line: 0,
+      field: '',
+      message: `${stats.sameRecordMatches} matches between two photos of the same record were set aside`,
+      hint: 'they say nothing about other records',
+    });
 
   const decisions: Decision[] = [];
   const gold: GoldPair[] = [];
   if (catalogueOk) {
-    for (const f of project.decisions) stats.undecidedRows += (await loadDecisions(f, workRefs, decisions, problems, warnings)).undecided;
+    for (const f of project.decisions)
+      stats.undecidedRows += (await loadDecisions(f, workRefs, decisions, problems, warnings)).undecided;
     if (project.gold) await loadGold(project.gold, workRefs, gold, problems);
   }
   problems.throwIfAny();
@@ -73,8 +80,25 @@ export async function load(projectFile: string): Promise<Loaded> {
     project,
     works,
     workIndex,
-    images: { count: images.id.length, work: images.work.trim(), id: images.id, line: images.line.trim(), role: Uint8Array.from(images.role), width: images.width.trim(), height: images.height.trim() },
-    matches: { count: m.a.length, a: m.a.trim(), b: m.b.trim(), score: m.score.trim(), overlap: m.overlap.trim(), run: m.run.trim(), file: m.file.trim(), line: m.line.trim() },
+    images: {
+      count: images.id.length,
+      work: images.work.trim(),
+      id: images.id,
+      line: images.line.trim(),
+      role: Uint8Array.from(images.role),
+      width: images.width.trim(),
+      height: images.height.trim(),
+    },
+    matches: {
+      count: m.a.length,
+      a: m.a.trim(),
+      b: m.b.trim(),
+      score: m.score.trim(),
+      overlap: m.overlap.trim(),
+      run: m.run.trim(),
+      file: m.file.trim(),
+      line: m.line.trim(),
+    },
     runs,
     evidenceFiles,
     decisions,

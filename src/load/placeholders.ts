@@ -20,13 +20,33 @@ const lineOf = (text: string, key: string) => {
 /** Warnings for a starter's placeholder publisher name and a licence IRI in a domain reserved for examples. */
 export function placeholderWarnings(project: ProjectConfig, file: string): Problem[] {
   let text = '';
-  try { text = readFileSync(file, 'utf8'); } catch { /* the project file was read a moment ago; lines are a courtesy */ }
+  try {
+    text = readFileSync(file, 'utf8');
+  } catch {
+    /* the project file was read a moment ago; lines are a courtesy */
+  }
   const out: Problem[] = [];
   if (project.publisher.name === STARTER_PLACEHOLDERS.publisherName)
-    out.push({ file, line: lineOf(text, 'name'), field: 'publisher.name', message: 'the publisher is still the starter\'s placeholder', hint: 'write the consortium\'s name: it is published as the dataset\'s publisher' });
+    out.push({
+      file,
+      line: lineOf(text, 'name'),
+      field: 'publisher.name',
+      message: "the publisher is still the starter's placeholder",
+      hint: "write the consortium's name: it is published as the dataset's publisher",
+    });
   let host = '';
-  try { host = new URL(project.license).hostname; } catch { /* the schema checked it is an absolute IRI */ }
+  try {
+    host = new URL(project.license).hostname;
+  } catch {
+    /* the schema checked it is an absolute IRI */
+  }
   if (EXAMPLE_HOST.test(host))
-    out.push({ file, line: lineOf(text, 'license'), field: 'license', message: `the licence ${project.license} is a placeholder (a domain reserved for examples)`, hint: 'choose the licence the partners agreed on, e.g. https://creativecommons.org/licenses/by/4.0/' });
+    out.push({
+      file,
+      line: lineOf(text, 'license'),
+      field: 'license',
+      message: `the licence ${project.license} is a placeholder (a domain reserved for examples)`,
+      hint: 'choose the licence the partners agreed on, e.g. https://creativecommons.org/licenses/by/4.0/',
+    });
   return out;
 }

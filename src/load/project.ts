@@ -1,7 +1,7 @@
 // concordance.json → ProjectConfig: JSON syntax, zod schema, did-you-mean hints, paths resolved.
 import path from 'node:path';
 import { z } from 'zod';
-import { ProblemList, UserError, type Problem } from '../errors.js';
+import { ProblemList, type Problem } from '../errors.js';
 import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
 import { didYouMean } from '../io/did-you-mean.js';
@@ -12,9 +12,9 @@ const iri = (what: string) =>
   z.string().regex(absoluteIri, { message: `${what} must be an absolute IRI such as https://example.org/` });
 const unit = z.number().min(0).max(1);
 const nonEmpty = z.string().trim().min(1, { message: 'must not be empty' });
-const partnerKey = z
-  .string()
-  .regex(/^[a-z][a-z0-9_-]{0,31}$/, { message: 'partner key: lower-case letter, then letters, digits, - or _ (at most 32)' });
+const partnerKey = z.string().regex(/^[a-z][a-z0-9_-]{0,31}$/, {
+  message: 'partner key: lower-case letter, then letters, digits, - or _ (at most 32)',
+});
 
 const ColumnsSchema = z.strictObject({
   work: nonEmpty,
@@ -35,7 +35,11 @@ const PartnerSchema = z.strictObject({
   recordPage: z.string().optional(),
   imageView: z.string().optional(),
   centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
-  language: z.enum(['en', 'de', 'fr', 'it', 'es', 'nl'], { message: 'language: one of en, de, fr, it, es, nl (the language of the date phrases)' }).optional(),
+  language: z
+    .enum(['en', 'de', 'fr', 'it', 'es', 'nl'], {
+      message: 'language: one of en, de, fr, it, es, nl (the language of the date phrases)',
+    })
+    .optional(),
   catalogue: z.strictObject({
     file: nonEmpty,
     delimiter: z.string().length(1, { message: 'delimiter must be one character, e.g. "," ";" or "\\t"' }).default(','),
@@ -53,7 +57,11 @@ const DecisionFileSchema = z.preprocess(
   (v) => (typeof v === 'string' ? { file: v } : v),
   z.strictObject({
     file: nonEmpty,
-    delimiter: z.enum(DECISION_DELIMITERS, { message: 'delimiter must be one of "," ";" "\\t" "|" (leave it out to detect it from the header)' }).optional(),
+    delimiter: z
+      .enum(DECISION_DELIMITERS, {
+        message: 'delimiter must be one of "," ";" "\\t" "|" (leave it out to detect it from the header)',
+      })
+      .optional(),
   }),
 );
 
@@ -61,7 +69,10 @@ const RunSchema = z.strictObject({
   id: z.string().regex(/^[A-Za-z0-9][A-Za-z0-9._-]*$/, { message: 'run id: letters, digits, . _ - only' }),
   software: nonEmpty,
   version: nonEmpty,
-  started: z.iso.datetime({ offset: true, message: 'started must be an ISO 8601 date-time with zone, e.g. 2026-10-04T09:00:00Z' }),
+  started: z.iso.datetime({
+    offset: true,
+    message: 'started must be an ISO 8601 date-time with zone, e.g. 2026-10-04T09:00:00Z',
+  }),
   parameters: z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])).default({}),
 });
 
@@ -90,14 +101,23 @@ export const ProjectSchema = z.strictObject({
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
   decisions: z.array(DecisionFileSchema).default([]),
   gold: nonEmpty.optional(),
-  policy: PolicySchema.default({ proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3, indiscriminateAbove: null, reviewLimit: 500 }),
+  policy: PolicySchema.default({
+    proposeAt: 0.5,
+    autoConfirmAt: null,
+    partOverlapBelow: 0.7,
+    minOverlap: 0.3,
+    indiscriminateAbove: null,
+    reviewLimit: 500,
+  }),
   previous: nonEmpty.optional(),
   vocabMap: nonEmpty.optional(),
   release: z
     .strictObject({
       version: nonEmpty,
       issued: z.iso.date({ message: 'issued must be an ISO 8601 date, e.g. 2026-11-30' }).optional(),
-      /** Write partners/<key>.{ttl,nq,jsonld} (default true). Each slice repeats the clusters its partner takes part in. */
+      /**
+       * Write partners/<key>.{ttl,nq,jsonld} (default true). Each slice repeats the clusters its partner takes part in.
+       */
       partnerDumps: z.boolean().default(true),
       /** CSV files for spreadsheets (UTF-8 with BOM, CRLF; the default) or plain (LF, no BOM) for pipelines. */
       csv: z.enum(['spreadsheet', 'plain']).default('spreadsheet'),
@@ -109,13 +129,14 @@ export const ProjectSchema = z.strictObject({
 
 /** Known keys of the object the JSON path points into, found by walking the schema (for did-you-mean). */
 function keysAt(pathParts: PropertyKey[]): string[] {
-  // eslint-disable-next-line @typescript-eslint/no-explicit-any
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- zod's schema internals are untyped
   let s: any = ProjectSchema;
   const wrappers = new Set(['optional', 'default', 'nullable', 'prefault', 'readonly', 'catch']);
   const unwrap = () => {
     for (;;) {
       if (s && wrappers.has(s.def?.type)) s = s.def.innerType;
-      else if (s?.def?.type === 'pipe') s = s.def.in?.def?.type === 'transform' ? s.def.out : s.def.in; // z.preprocess: the schema after the transform
+      else if (s?.def?.type === 'pipe')
+        s = s.def.in?.def?.type === 'transform' ? s.def.out : s.def.in; // z.preprocess: the schema after the transform
       else return;
     }
   };
@@ -150,7 +171,13 @@ export function loadProjectFile(file: string): ProjectConfig {
       if (issue.code === 'unrecognized_keys') {
         for (const key of issue.keys) {
           const near = didYouMean(key, keysAt(issue.path));
-          problems.add({ file, line: lineOfPath(text, [...issue.path, key]), field: jsonPath([...issue.path, key]), message: 'unknown field', hint: near ? `did you mean "${near}"?` : `known fields: ${keysAt(issue.path).join(', ')}` });
+          problems.add({
+            file,
+            line: lineOfPath(text, [...issue.path, key]),
+            field: jsonPath([...issue.path, key]),
+            message: 'unknown field',
+            hint: near ? `did you mean "${near}"?` : `known fields: ${keysAt(issue.path).join(', ')}`,
+          });
         }
       } else {
         problems.add({ file, line: lineOfPath(text, issue.path), field: jsonPath(issue.path), message: issue.message });
@@ -161,11 +188,35 @@ export function loadProjectFile(file: string): ProjectConfig {
   const p = parsed.data!;
   const seen = new Set<string>();
   p.partners.forEach((partner, i) => {
-    const at = (f: string): Problem => ({ file, line: lineOfPath(text, ['partners', i, f]), field: `partners[${i}].${f}`, message: '' });
+    const at = (f: string): Problem => ({
+      file,
+      line: lineOfPath(text, ['partners', i, f]),
+      field: `partners[${i}].${f}`,
+      message: '',
+    });
     const { columns, roles } = partner.catalogue;
-    if (columns.role !== undefined && roles === undefined) problems.add({ file, line: lineOfPath(text, ['partners', i, 'catalogue', 'columns', 'role']), field: `partners[${i}].catalogue.roles`, message: 'a role column needs a "roles" map', hint: `map each word of the column to one of ${IMAGE_ROLES.join(', ')}, e.g. "roles": { "Recto": "artwork", "Verso": "verso" }` });
-    if (roles !== undefined && columns.role === undefined) problems.add({ file, line: lineOfPath(text, ['partners', i, 'catalogue', 'roles']), field: `partners[${i}].catalogue.columns.role`, message: '"roles" is given but no role column', hint: 'name the column that holds each image\'s role in "columns": { "role": … }' });
-    if (seen.has(partner.key)) problems.add({ ...at('key'), message: `duplicate partner key "${partner.key}"`, hint: 'each partner needs its own key' });
+    if (columns.role !== undefined && roles === undefined)
+      problems.add({
+        file,
+        line: lineOfPath(text, ['partners', i, 'catalogue', 'columns', 'role']),
+        field: `partners[${i}].catalogue.roles`,
+        message: 'a role column needs a "roles" map',
+        hint: `map each word of the column to one of ${IMAGE_ROLES.join(', ')}, e.g. "roles": { "Recto": "artwork", "Verso": "verso" }`,
+      });
+    if (roles !== undefined && columns.role === undefined)
+      problems.add({
+        file,
+        line: lineOfPath(text, ['partners', i, 'catalogue', 'roles']),
+        field: `partners[${i}].catalogue.columns.role`,
+        message: '"roles" is given but no role column',
+        hint: 'name the column that holds each image\'s role in "columns": { "role": … }',
+      });
+    if (seen.has(partner.key))
+      problems.add({
+        ...at('key'),
+        message: `duplicate partner key "${partner.key}"`,
+        hint: 'each partner needs its own key',
+      });
     seen.add(partner.key);
     const templates: [string, string | undefined, string, string[]][] = [
       ['workIri', partner.workIri, 'work', ['work']],
@@ -175,17 +226,44 @@ export function loadProjectFile(file: string): ProjectConfig {
     ];
     for (const [field, tpl, req, allowed] of templates) {
       if (tpl === undefined) continue;
-      for (const msg of checkTemplate(tpl, req, allowed)) problems.add({ ...at(field), message: `template ${msg}`, hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"` });
-      if (!absoluteIri.test(tpl.replace(/\{[^{}]*\}/g, 'x'))) problems.add({ ...at(field), message: 'template does not give an absolute IRI', hint: 'start it with https://' });
+      for (const msg of checkTemplate(tpl, req, allowed))
+        problems.add({
+          ...at(field),
+          message: `template ${msg}`,
+          hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"`,
+        });
+      if (!absoluteIri.test(tpl.replace(/\{[^{}]*\}/g, 'x')))
+        problems.add({
+          ...at(field),
+          message: 'template does not give an absolute IRI',
+          hint: 'start it with https://',
+        });
     }
   });
   const runIds = new Set<string>();
   p.evidence.forEach((ev, i) => {
-    if (ev.run && runIds.has(ev.run.id) && JSON.stringify(ev.run) !== JSON.stringify(p.evidence.find((e) => e.run?.id === ev.run!.id)!.run))
-      problems.add({ file, line: lineOfPath(text, ['evidence', i, 'run']), field: `evidence[${i}].run.id`, message: `run "${ev.run.id}" is declared twice with different details`, hint: 'give each run its own id' });
+    if (
+      ev.run &&
+      runIds.has(ev.run.id) &&
+      JSON.stringify(ev.run) !== JSON.stringify(p.evidence.find((e) => e.run?.id === ev.run!.id)!.run)
+    )
+      problems.add({
+        file,
+        line: lineOfPath(text, ['evidence', i, 'run']),
+        field: `evidence[${i}].run.id`,
+        message: `run "${ev.run.id}" is declared twice with different details`,
+        hint: 'give each run its own id',
+      });
     if (ev.run) runIds.add(ev.run.id);
   });
-  if (!/[/#]$/.test(p.base)) problems.add({ file, line: lineOfPath(text, ['base']), field: 'base', message: 'base must end with "/" or "#"', hint: `e.g. "${p.base}/"` });
+  if (!/[/#]$/.test(p.base))
+    problems.add({
+      file,
+      line: lineOfPath(text, ['base']),
+      field: 'base',
+      message: 'base must end with "/" or "#"',
+      hint: `e.g. "${p.base}/"`,
+    });
   problems.throwIfAny();
 
   const dir = path.dirname(path.resolve(file));

@@ -26,7 +26,13 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
     project: displayPath(model.projectFile),
     title: model.project.title,
     partners,
-    evidence: { rows: stats.evidenceRows, matches: model.matches.count, sameRecordSetAside: stats.sameRecordMatches, files: model.evidenceFiles.length, runs: model.runs.map((r) => r.id) },
+    evidence: {
+      rows: stats.evidenceRows,
+      matches: model.matches.count,
+      sameRecordSetAside: stats.sameRecordMatches,
+      files: model.evidenceFiles.length,
+      runs: model.runs.map((r) => r.id),
+    },
     decisions: model.decisions.length,
     decisionRowsWithoutVerdict: stats.undecidedRows,
     goldPairs: model.gold.length,
@@ -36,8 +42,13 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
 
 /** The summary as aligned text for a terminal. */
 export function summaryText(s: CheckSummary): string {
-  const lines = [`${s.title}  (${s.project})`, '', 'partner'.padEnd(14) + 'works'.padStart(8) + 'images'.padStart(9) + '  name'];
-  for (const p of s.partners) lines.push(p.key.padEnd(14) + String(p.works).padStart(8) + String(p.images).padStart(9) + '  ' + p.name);
+  const lines = [
+    `${s.title}  (${s.project})`,
+    '',
+    'partner'.padEnd(14) + 'works'.padStart(8) + 'images'.padStart(9) + '  name',
+  ];
+  for (const p of s.partners)
+    lines.push(p.key.padEnd(14) + String(p.works).padStart(8) + String(p.images).padStart(9) + '  ' + p.name);
   lines.push(
     '',
     `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${s.evidence.runs.join(', ') || 'none'}; ${s.evidence.matches} cross-record image matches`,

@@ -26,42 +26,92 @@ export async function* readTable(
   let header: string[] | undefined;
   let index = new Map<string, number>();
   let records = 0;
-  for await (const batch of readCsvBatches(file, delimiter, onBytes)) for (const { fields, line } of batch) {
-    if (!header) {
-      header = fields.map((h) => h.trim());
-      const other = [';', '\t', ','].find((d) => d !== delimiter && header!.length === 1 && header![0].split(d).length >= Math.max(2, required.length));
-      if (other) {
-        const name = other === '\t' ? 'tab' : `"${other}"`;
-        problems.add({ file, line, field: '', message: `the header is one column; it looks ${name}-separated`, hint: context === 'evidence' || context === 'gold concordance' ? `${context} files are comma-separated: save the file with ","` : `set "delimiter": ${JSON.stringify(other)} for this file in concordance.json${context === 'decisions' ? ' ({ "file": …, "delimiter": … } in "decisions")' : ''}` });
-        return;
+  for await (const batch of readCsvBatches(file, delimiter, onBytes))
+    for (const { fields, line } of batch) {
+      if (!header) {
+        header = fields.map((h) => h.trim());
+        const other = [';', '\t', ','].find(
+          (d) => d !== delimiter && header!.length === 1 && header![0].split(d).length >= Math.max(2, required.length),
+        );
+        if (other) {
+          const name = other === '\t' ? 'tab' : `"${other}"`;
+          problems.add({
+            file,
+            line,
+            field: '',
+            message: `the header is one column; it looks ${name}-separated`,
+            hint:
+              context === 'evidence' || context === 'gold concordance'
+                ? `${context} files are comma-separated: save the file with ","`
+                : `set "delimiter": ${JSON.stringify(other)} for this file in concordance.json${context === 'decisions' ? ' ({ "file": …, "delimiter": … } in "decisions")' : ''}`,
+          });
+          return;
+        }
+        index = new Map(header.map((h, i) => [h, i]));
+        for (const c of [...required, ...optional]) {
+          const at = header.flatMap((h, i) => (h === c ? [i + 1] : []));
+          if (at.length > 1)
+            problems.add({
+              file,
+              line,
+              field: c,
+              message: `column "${c}" appears ${at.length} times in the header (columns ${at.join(', ')})`,
+              hint: 'rename the copies: it is not clear which one holds the values',
+            });
+        }
+        const missing = required.filter((c) => !index.has(c));
+        for (const c of missing) {
+          const near = didYouMean(c, header);
+          problems.add({
+            file,
+            line,
+            field: c,
+            message: `column "${c}" (${context}) is not in the header`,
+            hint: near
+              ? `did you mean "${near}"? the header has: ${header.join(', ')}`
+              : `the header has: ${header.join(', ')}`,
+          });
+        }
+        if (missing.length || [...required, ...optional].some((c) => header!.filter((h) => h === c).length > 1)) return;
+        for (const c of optional) if (!index.has(c)) index.set(c, -1);
+        continue;
       }
-      index = new Map(header.map((h, i) => [h, i]));
-      for (const c of [...required, ...optional]) {
-        const at = header.flatMap((h, i) => (h === c ? [i + 1] : []));
-        if (at.length > 1) problems.add({ file, line, field: c, message: `column "${c}" appears ${at.length} times in the header (columns ${at.join(', ')})`, hint: 'rename the copies: it is not clear which one holds the values' });
+      records++;
+      if (fields.length !== header.length) {
+        problems.add({
+          file,
+          line,
+          field: '',
+          message: `row has ${fields.length} fields, the header has ${header.length}`,
+          hint:
+            fields.length < header.length
+              ? 'a field is missing or a delimiter is lost'
+              : `a value holds the delimiter ${JSON.stringify(delimiter)} unquoted: quote it`,
+        });
+        continue;
       }
-      const missing = required.filter((c) => !index.has(c));
-      for (const c of missing) {
-        const near = didYouMean(c, header);
-        problems.add({ file, line, field: c, message: `column "${c}" (${context}) is not in the header`, hint: near ? `did you mean "${near}"? the header has: ${header.join(', ')}` : `the header has: ${header.join(', ')}` });
-      }
-      if (missing.length || [...required, ...optional].some((c) => header!.filter((h) => h === c).length > 1)) return;
-      for (const c of optional) if (!index.has(c)) index.set(c, -1);
-      continue;
+      yield {
+        line,
+        get(column: string) {
+          const i = index.get(column);
+          return i === undefined || i < 0 ? '' : fields[i];
+        },
+      };
     }
-    records++;
-    if (fields.length !== header.length) {
-      problems.add({ file, line, field: '', message: `row has ${fields.length} fields, the header has ${header.length}`, hint: fields.length < header.length ? 'a field is missing or a delimiter is lost' : `a value holds the delimiter ${JSON.stringify(delimiter)} unquoted: quote it` });
-      continue;
-    }
-    yield {
-      line,
-      get(column: string) {
-        const i = index.get(column);
-        return i === undefined || i < 0 ? '' : fields[i];
-      },
-    };
-  }
-  if (!header) problems.add({ file, line: 0, field: '', message: 'file is empty', hint: `expected a header row with: ${required.join(', ')}` });
-  else if (records === 0) problems.add({ file, line: 1, field: '', message: 'file has a header but no rows', hint: 'export the records too, or remove the file from concordance.json' });
+  if (!header)
+    problems.add({
+      file,
+      line: 0,
+      field: '',
+      message: 'file is empty',
+      hint: `expected a header row with: ${required.join(', ')}`,
+    });
+  else if (records === 0)
+    problems.add({
+      file,
+      line: 1,
+      field: '',
+      message: 'file has a header but no rows',
+      hint: 'export the records too, or remove the file from concordance.json',
+    });
 }

@@ -18,11 +18,19 @@ export async function gzipCopy(file: string, level = constants.Z_DEFAULT_COMPRES
       done(null, chunk);
     },
   });
-  await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), createGzip({ level, chunkSize: 1 << 16 }), tap, createWriteStream(`${file}.gz`));
+  await pipeline(
+    createReadStream(file, { highWaterMark: 1 << 20 }),
+    createGzip({ level, chunkSize: 1 << 16 }),
+    tap,
+    createWriteStream(`${file}.gz`),
+  );
   return hash.digest('hex');
 }
 
-/** Compresses every file of `files` (paths relative to `dir`), two at a time (the machine's cores), returning path.gz → hash. */
+/**
+ * Compresses every file of `files` (paths relative to `dir`), two at a time (the machine's cores), returning path.gz →
+ * hash.
+ */
 export async function gzipCopies(dir: string, files: string[], parallel = 2): Promise<Map<string, string>> {
   const out = new Map<string, string>();
   let next = 0;

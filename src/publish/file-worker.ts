@@ -34,8 +34,14 @@ export type UnitText = [texts: (string | null)[], targets: number[]];
 
 /** Messages to the worker: a batch of units, or the end. */
 export type FileWorkerMessage = { units: UnitText[] } | { slab: number; records: SlabRecords } | { end: true };
-/** Replies: a message done (and its slab free again), the files closed with their hashes (relative path → hex), or an error. */
-export type FileWorkerReply = { ack: true; slab?: number } | { hashes: [string, string][] } | { error: string; code?: string; syscall?: string; path?: string };
+/**
+ * Replies: a message done (and its slab free again), the files closed with their hashes (relative path → hex), or an
+ * error.
+ */
+export type FileWorkerReply =
+  | { ack: true; slab?: number }
+  | { hashes: [string, string][] }
+  | { error: string; code?: string; syscall?: string; path?: string };
 
 const BLOCK = 1 << 20;
 
@@ -45,7 +51,10 @@ class BlockFile {
   private readonly buf = Buffer.allocUnsafeSlow(BLOCK);
   private pos = 0;
   private readonly hash: Hash = createHash('sha256');
-  constructor(readonly rel: string, file: string) {
+  constructor(
+    readonly rel: string,
+    file: string,
+  ) {
     this.fd = openSync(file, 'w');
   }
   put(b: Buffer): void {
@@ -55,7 +64,7 @@ class BlockFile {
   }
   private out(b: Buffer): void {
     this.hash.update(b);
-    for (let off = 0; off < b.length; ) off += writeSync(this.fd, b, off, b.length - off);
+    for (let off = 0; off < b.length;) off += writeSync(this.fd, b, off, b.length - off);
   }
   private flush(): void {
     if (this.pos) this.out(this.buf.subarray(0, this.pos));
@@ -75,7 +84,11 @@ interface Output {
 }
 
 const init = workerData as FileWorkerInit;
-const formats = init.formats.map((f) => ({ head: Buffer.from(f.head, 'utf8'), tail: Buffer.from(f.tail, 'utf8'), separator: Buffer.from(f.separator, 'utf8') }));
+const formats = init.formats.map((f) => ({
+  head: Buffer.from(f.head, 'utf8'),
+  tail: Buffer.from(f.tail, 'utf8'),
+  separator: Buffer.from(f.separator, 'utf8'),
+}));
 const targets: Output[][] = init.targets.map(([rel, abs]) =>
   init.formats.map((f, i) => {
     const file = new BlockFile(`${rel}${f.extension}`, `${abs}${f.extension}`);
@@ -90,7 +103,7 @@ function writeSlab(slab: number, records: SlabRecords): void {
   const b = slabs[slab];
   let off = 0;
   const texts: (Buffer | null)[] = new Array(formats.length);
-  for (let r = 0; r < records.length; ) {
+  for (let r = 0; r < records.length;) {
     for (let f = 0; f < formats.length; f++) {
       const len = records[r++];
       texts[f] = len < 0 ? null : b.subarray(off, (off += len));
@@ -101,7 +114,10 @@ function writeSlab(slab: number, records: SlabRecords): void {
 }
 
 function writeUnit([texts, to]: UnitText): void {
-  writeBytes(texts.map((t) => (t === null ? null : Buffer.from(t, 'utf8'))), to);
+  writeBytes(
+    texts.map((t) => (t === null ? null : Buffer.from(t, 'utf8'))),
+    to,
+  );
 }
 
 function writeBytes(texts: (Buffer | null)[], to: number[]): void {
@@ -139,6 +155,11 @@ parentPort!.on('message', (m: FileWorkerMessage) => {
     } else parentPort!.postMessage({ hashes: close() } satisfies FileWorkerReply);
   } catch (e) {
     const { code, syscall, path } = (e ?? {}) as NodeJS.ErrnoException; // an OS error keeps its errno for the message
-    parentPort!.postMessage({ error: e instanceof Error ? e.message : String(e), code, syscall, path } satisfies FileWorkerReply);
+    parentPort!.postMessage({
+      error: e instanceof Error ? e.message : String(e),
+      code,
+      syscall,
+      path,
+    } satisfies FileWorkerReply);
   }
 });

@@ -37,8 +37,17 @@ export interface DumpsWritten {
  * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it.
  * `size` is the number of units, for the progress bar named `label`.
  */
-export async function writeDumps(dir: string, model: Model, units: AsyncIterable<Unit>, size: number, label: string): Promise<DumpsWritten> {
-  const writer = new ReleaseWriter(dir, model.project.release.partnerDumps === false ? null : model.project.partners.map((p) => p.key));
+export async function writeDumps(
+  dir: string,
+  model: Model,
+  units: AsyncIterable<Unit>,
+  size: number,
+  label: string,
+): Promise<DumpsWritten> {
+  const writer = new ReleaseWriter(
+    dir,
+    model.project.release.partnerDumps === false ? null : model.project.partners.map((p) => p.key),
+  );
   const bar = progress(label, size, 'units');
   let done = 0;
   let datasetQuads: Quad[] = [];
@@ -56,8 +65,12 @@ export async function writeDumps(dir: string, model: Model, units: AsyncIterable
   } finally {
     bar.stop();
   }
-  if (model.project.release.compress === 'gzip') for (const [f, h] of await gzipCopies(dir, [...hashes.keys()].sort())) hashes.set(f, h);
-  await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', [...datasetQuads, ...(await byteSizes(dir, datasetQuads, [...hashes.keys()]))]);
+  if (model.project.release.compress === 'gzip')
+    for (const [f, h] of await gzipCopies(dir, [...hashes.keys()].sort())) hashes.set(f, h);
+  await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', [
+    ...datasetQuads,
+    ...(await byteSizes(dir, datasetQuads, [...hashes.keys()])),
+  ]);
   return { triples: writer.triples, hashes };
 }
 
@@ -73,7 +86,14 @@ async function byteSizes(dir: string, description: Quad[], files: string[]): Pro
     const f = files.find((x) => q.object.value.endsWith(`/${x}`));
     if (f === undefined) continue;
     const size = (await stat(path.join(dir, f))).size;
-    out.push(N3.DataFactory.quad(q.subject, nn(iri('dcat', 'byteSize')), typed(String(size), 'nonNegativeInteger'), q.graph) as Quad);
+    out.push(
+      N3.DataFactory.quad(
+        q.subject,
+        nn(iri('dcat', 'byteSize')),
+        typed(String(size), 'nonNegativeInteger'),
+        q.graph,
+      ) as Quad,
+    );
   }
   return out;
 }
@@ -91,7 +111,12 @@ async function sha256(file: string): Promise<string> {
 export async function writeChecksums(dir: string, known: ReadonlyMap<string, string> = new Map()): Promise<void> {
   const files = (await readdir(dir, { recursive: true, withFileTypes: true }))
     .filter((d) => d.isFile())
-    .map((d) => path.relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name)).split(path.sep).join('/'))
+    .map((d) =>
+      path
+        .relative(dir, path.join(d.parentPath ?? (d as unknown as { path: string }).path, d.name))
+        .split(path.sep)
+        .join('/'),
+    )
     .filter((f) => f !== 'SHA256SUMS' && f !== TEMP_MARKER)
     .sort();
   const lines: string[] = [];

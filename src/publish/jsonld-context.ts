@@ -41,7 +41,8 @@ export class ContextTables {
   private vocabCache = new Map<string, string>();
 
   constructor(ctx: Record<string, unknown>) {
-    let idKey = '@id', typeKey = '@type';
+    let idKey = '@id',
+      typeKey = '@type';
     for (const [k, v] of Object.entries(ctx)) {
       if (k.startsWith('@')) {
         if (!KNOWN_KEYWORDS.has(k)) throw new Error(`JSON-LD writer: context keyword ${k} is not supported`);
@@ -56,15 +57,26 @@ export class ContextTables {
     this.language = typeof ctx['@language'] === 'string' ? ctx['@language'].toLowerCase() : undefined;
     // Prefixes first: term @id values may use them.
     for (const [k, v] of Object.entries(ctx))
-      if (!k.startsWith('@') && typeof v === 'string' && !v.startsWith('@') && GEN_DELIMS.test(v) && !k.includes(':')) this.prefixes.push([k, v]);
+      if (!k.startsWith('@') && typeof v === 'string' && !v.startsWith('@') && GEN_DELIMS.test(v) && !k.includes(':'))
+        this.prefixes.push([k, v]);
     for (const [k, v] of Object.entries(ctx)) {
       if (k.startsWith('@') || v === '@id' || v === '@type' || v === null) continue;
       const def = typeof v === 'string' ? { '@id': v } : (v as Record<string, unknown>);
       const raw = typeof def['@id'] === 'string' ? def['@id'] : k;
       const iri = this.expand(raw);
-      const type = typeof def['@type'] === 'string' ? (def['@type'].startsWith('@') ? def['@type'] : this.expand(def['@type'])) : undefined;
-      const extra = Object.keys(def).filter((x) => !['@id', '@type', '@container', '@protected', '@prefix'].includes(x));
-      const usable = extra.length === 0 && (def['@container'] === undefined || SET_CONTAINER(def['@container'])) && !iri.startsWith('@');
+      const type =
+        typeof def['@type'] === 'string'
+          ? def['@type'].startsWith('@')
+            ? def['@type']
+            : this.expand(def['@type'])
+          : undefined;
+      const extra = Object.keys(def).filter(
+        (x) => !['@id', '@type', '@container', '@protected', '@prefix'].includes(x),
+      );
+      const usable =
+        extra.length === 0 &&
+        (def['@container'] === undefined || SET_CONTAINER(def['@container'])) &&
+        !iri.startsWith('@');
       this.terms.set(k, { iri, type, set: SET_CONTAINER(def['@container']), usable });
       if (usable && !this.byIri.has(iri)) this.byIri.set(iri, k);
     }
@@ -114,7 +126,13 @@ export class ContextTables {
     if (out === undefined) {
       let best: [string, string] | undefined;
       for (const [p, ns] of this.prefixes)
-        if (iri.startsWith(ns) && iri.length > ns.length && (!best || ns.length > best[1].length) && SIMPLE_LOCAL.test(iri.slice(ns.length))) best = [p, ns];
+        if (
+          iri.startsWith(ns) &&
+          iri.length > ns.length &&
+          (!best || ns.length > best[1].length) &&
+          SIMPLE_LOCAL.test(iri.slice(ns.length))
+        )
+          best = [p, ns];
       if (best) out = `${best[0]}:${iri.slice(best[1].length)}`;
     }
     out ??= this.absolute(iri);

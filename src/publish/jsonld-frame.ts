@@ -1,4 +1,5 @@
-// Quads of one unit → framed, compacted JSON-LD node objects (top-level by type, the rest embedded once where referenced).
+// Quads of one unit → framed, compacted JSON-LD node objects (top-level by type, the rest embedded once where
+// referenced).
 import type { Literal, Quad, Quad_Object, Quad_Subject } from '@rdfjs/types';
 import { NS } from '../namespaces.js';
 import type { ContextTables } from './jsonld-context.js';
@@ -66,7 +67,8 @@ function group(quads: Quad[]): { subjects: Map<string, Subject>; referenced: Set
     const key = nodeKey(q.subject);
     let s = subjects.get(key);
     if (!s) subjects.set(key, (s = { term: q.subject, types: [], props: new Map() }));
-    const o = q.object, p = q.predicate.value;
+    const o = q.object,
+      p = q.predicate.value;
     const isType = p === RDF_TYPE && o.termType === 'NamedNode';
     const list = isType ? undefined : s.props.get(p);
     if (isType ? s.types.includes(o.value) : list !== undefined && holds(s, p, list, o)) continue;
@@ -119,7 +121,8 @@ export function frameQuads(quads: Quad[], frameTypes: ReadonlySet<string>, ctx: 
     }
     const dt = o.datatype.value;
     // a JSON number takes the term's coercion on the way back (API §8.6): only under no coercion or xsd:integer's
-    if (dt === XSD_INTEGER && (type === undefined || type === XSD_INTEGER) && nativeInteger(o.value)) return Number(o.value);
+    if (dt === XSD_INTEGER && (type === undefined || type === XSD_INTEGER) && nativeInteger(o.value))
+      return Number(o.value);
     if (dt === type) return o.value;
     if (dt === XSD_STRING) return type === undefined && ctx.language === undefined ? o.value : { '@value': o.value };
     return { '@value': o.value, '@type': ctx.vocabIri(dt) };
@@ -127,7 +130,8 @@ export function frameQuads(quads: Quad[], frameTypes: ReadonlySet<string>, ctx: 
 
   function node(s: Subject): JsonObject {
     const out: JsonObject = { [idKey]: ctx.absolute(nodeKey(s.term)) };
-    if (s.types.length) out[ctx.typeKey] = s.types.length === 1 ? ctx.vocabIri(s.types[0]) : s.types.map((t) => ctx.vocabIri(t));
+    if (s.types.length)
+      out[ctx.typeKey] = s.types.length === 1 ? ctx.vocabIri(s.types[0]) : s.types.map((t) => ctx.vocabIri(t));
     for (const [p, objects] of s.props) {
       const { key, type, set } = ctx.property(p);
       const values = objects.map((o) => (o.termType === 'Literal' ? literalValue(o, type) : nodeValue(o, type)));

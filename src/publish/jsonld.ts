@@ -1,4 +1,5 @@
-// Units of quads → JSON-LD 1.1 graph objects of framed nodes (a JSON-LD dataset), and the streamed .jsonld file around them.
+// Units of quads → JSON-LD 1.1 graph objects of framed nodes (a JSON-LD dataset), and the streamed .jsonld file around
+// them.
 import type { Quad } from '@rdfjs/types';
 import type { Unit } from '../rdf/index.js';
 import { JSONLD_CONTEXT } from '../rdf/jsonld.js';
@@ -15,7 +16,10 @@ const FRAME_TYPES: Record<Unit['kind'], string[]> = {
   provenance: [iri('prov', 'Activity'), iri('prov', 'Agent'), iri('prov', 'SoftwareAgent'), iri('prov', 'Person')],
   dataset: [iri('void', 'Dataset'), iri('dcat', 'Distribution'), iri('foaf', 'Organization')],
 };
-const frameSets = Object.fromEntries(Object.entries(FRAME_TYPES).map(([k, v]) => [k, new Set(v)])) as Record<Unit['kind'], Set<string>>;
+const frameSets = Object.fromEntries(Object.entries(FRAME_TYPES).map(([k, v]) => [k, new Set(v)])) as Record<
+  Unit['kind'],
+  Set<string>
+>;
 const tables = new ContextTables(context);
 
 /**
@@ -45,8 +49,14 @@ export function unitText(unit: Unit): string | null {
   }
   const parts: string[] = [];
   for (const [g, quads] of graphs) {
-    const body = frameQuads(quads, frameSets[unit.kind], tables).map((n) => JSON.stringify(n)).join(',\n');
-    parts.push(g === '' ? body : `{${JSON.stringify(tables.idKey)}:${JSON.stringify(tables.absolute(g))},"@graph":[\n${body}\n]}`);
+    const body = frameQuads(quads, frameSets[unit.kind], tables)
+      .map((n) => JSON.stringify(n))
+      .join(',\n');
+    parts.push(
+      g === ''
+        ? body
+        : `{${JSON.stringify(tables.idKey)}:${JSON.stringify(tables.absolute(g))},"@graph":[\n${body}\n]}`,
+    );
   }
   return parts.length ? parts.join(',\n') : null;
 }

@@ -8,11 +8,16 @@ import type { Unit } from '../rdf/index.js';
 import { JsonLdFile, unitText } from './jsonld.js';
 import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
 
-/** Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight). */
+/**
+ * Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight).
+ */
 const SLAB = 8 << 20;
 const SLABS = 4;
 
-/** A dump format's encoder: the file's opening and closing text, the text between runs, and one unit's text (null: none). */
+/**
+ * A dump format's encoder: the file's opening and closing text, the text between runs, and one unit's text (null:
+ * none).
+ */
 interface DumpEncoder extends Omit<DumpFile, 'extension'> {
   encode(unit: Unit): string | null;
 }
@@ -25,7 +30,9 @@ const ENCODERS: Record<WriterKind, (info: FormatInfo, prefixes: Record<string, s
   },
   nquads: (info) => ({ head: '', tail: '', separator: '', encode: (u) => nquadsText(u.quads, info.graphs) }),
   jsonld: () => ({
-    head: JsonLdFile.head, tail: JsonLdFile.tail, separator: ',\n',
+    head: JsonLdFile.head,
+    tail: JsonLdFile.tail,
+    separator: ',\n',
     encode: unitText,
   }),
 };
@@ -63,7 +70,12 @@ export class ReleaseWriter {
     this.free = shared.map((_, i) => i);
     const init: FileWorkerInit = {
       targets: stems.map((s) => [s, path.join(dir, ...s.split('/'))]),
-      formats: DUMP_FORMATS.map((f, i) => ({ extension: FORMATS[f].extension, head: this.encoders[i].head, tail: this.encoders[i].tail, separator: this.encoders[i].separator })),
+      formats: DUMP_FORMATS.map((f, i) => ({
+        extension: FORMATS[f].extension,
+        head: this.encoders[i].head,
+        tail: this.encoders[i].tail,
+        separator: this.encoders[i].separator,
+      })),
       slabs: shared,
     };
     this.all = stems.map((_, i) => i);
@@ -73,7 +85,14 @@ export class ReleaseWriter {
         this.inFlight--;
         if (r.slab !== undefined) this.free.push(r.slab);
       } else if ('hashes' in r) this.hashes = new Map(r.hashes);
-      else this.fail(Object.assign(new Error(`writing the release files: ${r.error}`), { code: r.code, syscall: r.syscall, path: r.path }));
+      else
+        this.fail(
+          Object.assign(new Error(`writing the release files: ${r.error}`), {
+            code: r.code,
+            syscall: r.syscall,
+            path: r.path,
+          }),
+        );
       this.wake();
     });
     this.worker.on('error', (e) => this.fail(e));
@@ -107,7 +126,10 @@ export class ReleaseWriter {
   async add(unit: Unit): Promise<void> {
     this.triples += unit.quads.length;
     const texts = this.encoders.map((e) => e.encode(unit));
-    const to = unit.partners === 'all' || !this.slices ? this.all : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
+    const to =
+      unit.partners === 'all' || !this.slices
+        ? this.all
+        : [0, ...[...unit.partners].sort((a, b) => a - b).map((p) => p + 1)];
     // at most 3 UTF-8 bytes per UTF-16 code unit
     let bound = 0;
     for (const t of texts) bound += 3 * (t?.length ?? 0);

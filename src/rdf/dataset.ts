@@ -26,11 +26,18 @@ export function distributionFiles(model: Model): DistributionFile[] {
   const add = (stem: string, title: (ext: string) => string) => {
     for (const [ext, media] of dumps) {
       files.push({ file: `${stem}.${ext}`, mediaTypeIri: media, title: title(ext) });
-      if (compress) files.push({ file: `${stem}.${ext}${compress.extension}`, mediaTypeIri: media, title: title(`${ext}${compress.extension}`), compressFormatIri: compress.mediaTypeIri });
+      if (compress)
+        files.push({
+          file: `${stem}.${ext}${compress.extension}`,
+          mediaTypeIri: media,
+          title: title(`${ext}${compress.extension}`),
+          compressFormatIri: compress.mediaTypeIri,
+        });
     }
   };
   add('concordance', (ext) => `Whole concordance (${ext})`);
-  if (model.project.release.partnerDumps !== false) for (const p of model.project.partners) add(`partners/${p.key}`, (ext) => `Slice for ${p.name} (${ext})`);
+  if (model.project.release.partnerDumps !== false)
+    for (const p of model.project.partners) add(`partners/${p.key}`, (ext) => `Slice for ${p.name} (${ext})`);
   return files;
 }
 
@@ -81,7 +88,11 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
     const L = nn(namer.iri('linkset', { version, partner: ks, other: ko, predicate: local }));
     g(D, term('void', 'subset'), L);
     g(L, a, ks === ko ? term('void', 'Dataset') : term('void', 'Linkset'));
-    g(L, term('dcterms', 'title'), str(ks === ko ? `${local} links within ${ks}` : `${local} links from ${ks} to ${ko}`));
+    g(
+      L,
+      term('dcterms', 'title'),
+      str(ks === ko ? `${local} links within ${ks}` : `${local} links from ${ks} to ${ko}`),
+    );
     if (ks !== ko) {
       g(L, term('void', 'subjectsTarget'), nn(namer.partnerDataset(Number(sp))));
       g(L, term('void', 'objectsTarget'), nn(namer.partnerDataset(Number(op))));

@@ -30,11 +30,21 @@ export interface FormatInfo {
   prefixed: boolean;
 }
 
-function row(label: string, mediaType: string, extension: string, reader: FormatInfo['reader'], writer: WriterKind | null, graphs: boolean, prefixed: boolean): FormatInfo {
+function row(
+  label: string,
+  mediaType: string,
+  extension: string,
+  reader: FormatInfo['reader'],
+  writer: WriterKind | null,
+  graphs: boolean,
+  prefixed: boolean,
+): FormatInfo {
   return { label, mediaType, mediaTypeIri: iri('iana', mediaType), extension, reader, writer, graphs, prefixed };
 }
 
-/** Format name → label, media type, extension, reader, writer (RDF 1.1 Turtle, N-Triples, N-Quads, TriG; JSON-LD 1.1). */
+/**
+ * Format name → label, media type, extension, reader, writer (RDF 1.1 Turtle, N-Triples, N-Quads, TriG; JSON-LD 1.1).
+ */
 export const FORMATS: Readonly<Record<FormatName, FormatInfo>> = {
   turtle: row('Turtle', 'text/turtle', '.ttl', 'n3', 'turtle', false, true),
   ntriples: row('N-Triples', 'application/n-triples', '.nt', 'n3', 'nquads', false, false),
@@ -43,7 +53,10 @@ export const FORMATS: Readonly<Record<FormatName, FormatInfo>> = {
   jsonld: row('JSON-LD', 'application/ld+json', '.jsonld', 'jsonld', 'jsonld', true, false),
 };
 
-/** Compressions a release's dumps can also be written in: file extension and IANA media type (RFC 6713 application/gzip). */
+/**
+ * Compressions a release's dumps can also be written in: file extension and IANA media type (RFC 6713
+ * application/gzip).
+ */
 export type Compression = 'gzip';
 export interface CompressionInfo {
   extension: string;
@@ -66,7 +79,18 @@ export const RELEASE_FILES = { nquads: 'concordance.nq', dataset: 'dataset.ttl',
 
 /** The prefixes every Turtle file concordat writes declares, in this fixed order. */
 export const PUBLISH_PREFIXES: readonly Prefix[] = [
-  'rdf', 'rdfs', 'xsd', 'owl', 'skos', 'dcterms', 'prov', 'void', 'dcat', 'foaf', 'sh', 'cx',
+  'rdf',
+  'rdfs',
+  'xsd',
+  'owl',
+  'skos',
+  'dcterms',
+  'prov',
+  'void',
+  'dcat',
+  'foaf',
+  'sh',
+  'cx',
 ];
 
 /** Prefix name → namespace IRI for the given prefix names (defaults to {@link PUBLISH_PREFIXES}). */

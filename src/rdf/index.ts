@@ -1,4 +1,5 @@
-// RDF stage: the release view → units of quads (provenance, one per cluster, one per stray link), streamed in a fixed order.
+// RDF stage: the release view → units of quads (provenance, one per cluster, one per stray link), streamed in a fixed
+// order.
 import type { Quad, NamedNode } from '@rdfjs/types';
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
@@ -25,18 +26,113 @@ export type LinksetCounts = Map<string, number>;
 
 const a = term('rdf', 'type');
 const T = {
-  Link: term('cx', 'Link'), Entity: term('prov', 'Entity'), ImageMatch: term('cx', 'ImageMatch'), Activity: term('prov', 'Activity'),
-  MatchRun: term('cx', 'MatchRun'), SoftwareAgent: term('prov', 'SoftwareAgent'), Plan: term('prov', 'Plan'), Association: term('prov', 'Association'),
-  Review: term('cx', 'CuratorReview'), Person: term('prov', 'Person'), Cluster: term('cx', 'Cluster'), Implied: term('cx', 'ImpliedPair'), Conflict: term('cx', 'DateConflict'),
+  Link: term('cx', 'Link'),
+  Entity: term('prov', 'Entity'),
+  ImageMatch: term('cx', 'ImageMatch'),
+  Activity: term('prov', 'Activity'),
+  MatchRun: term('cx', 'MatchRun'),
+  SoftwareAgent: term('prov', 'SoftwareAgent'),
+  Plan: term('prov', 'Plan'),
+  Association: term('prov', 'Association'),
+  Review: term('cx', 'CuratorReview'),
+  Person: term('prov', 'Person'),
+  Cluster: term('cx', 'Cluster'),
+  Implied: term('cx', 'ImpliedPair'),
+  Conflict: term('cx', 'DateConflict'),
 };
-const STATUS = { confirmed: term('cx', 'Confirmed'), proposed: term('cx', 'Proposed'), rejected: term('cx', 'Rejected'), candidate: term('cx', 'Proposed') };
+const STATUS = {
+  confirmed: term('cx', 'Confirmed'),
+  proposed: term('cx', 'Proposed'),
+  rejected: term('cx', 'Rejected'),
+  candidate: term('cx', 'Proposed'),
+};
 const KIND = { same: term('cx', 'Same'), part: term('cx', 'Part'), related: term('cx', 'Related') };
 /** Vocabulary terms used per quad below, looked up once (by prefix: names are prefix + local name). */
-const [cxBridge, cxCoverageObject, cxCoverageSubject, cxDateAsCatalogued, cxKind, cxMeanScore, cxMember, cxMemberCount, cxNote, cxObjectWork, cxOverlap, cxOversized, cxParameter, cxParameterName, cxParameterValue, cxPartner, cxPartnerCount, cxRelation, cxScore, cxSeverity, cxSourceImage, cxStatus, cxSubjectWork, cxSupport, cxTargetImage, cxThroughThirdArchive, cxVerdict, cxWorkA, cxWorkB] = ['bridge', 'coverageObject', 'coverageSubject', 'dateAsCatalogued', 'kind', 'meanScore', 'member', 'memberCount', 'note', 'objectWork', 'overlap', 'oversized', 'parameter', 'parameterName', 'parameterValue', 'partner', 'partnerCount', 'relation', 'score', 'severity', 'sourceImage', 'status', 'subjectWork', 'support', 'targetImage', 'throughThirdArchive', 'verdict', 'workA', 'workB'].map((l) => term('cx', l));
+const [
+  cxBridge,
+  cxCoverageObject,
+  cxCoverageSubject,
+  cxDateAsCatalogued,
+  cxKind,
+  cxMeanScore,
+  cxMember,
+  cxMemberCount,
+  cxNote,
+  cxObjectWork,
+  cxOverlap,
+  cxOversized,
+  cxParameter,
+  cxParameterName,
+  cxParameterValue,
+  cxPartner,
+  cxPartnerCount,
+  cxRelation,
+  cxScore,
+  cxSeverity,
+  cxSourceImage,
+  cxStatus,
+  cxSubjectWork,
+  cxSupport,
+  cxTargetImage,
+  cxThroughThirdArchive,
+  cxVerdict,
+  cxWorkA,
+  cxWorkB,
+] = [
+  'bridge',
+  'coverageObject',
+  'coverageSubject',
+  'dateAsCatalogued',
+  'kind',
+  'meanScore',
+  'member',
+  'memberCount',
+  'note',
+  'objectWork',
+  'overlap',
+  'oversized',
+  'parameter',
+  'parameterName',
+  'parameterValue',
+  'partner',
+  'partnerCount',
+  'relation',
+  'score',
+  'severity',
+  'sourceImage',
+  'status',
+  'subjectWork',
+  'support',
+  'targetImage',
+  'throughThirdArchive',
+  'verdict',
+  'workA',
+  'workB',
+].map((l) => term('cx', l));
 const [dctermsDate, dctermsTitle] = ['date', 'title'].map((l) => term('dcterms', l));
 const [foafPage] = ['page'].map((l) => term('foaf', l));
 const [owlVersionInfo] = ['versionInfo'].map((l) => term('owl', l));
-const [provAgent, provEndedAtTime, provHadPlan, provQualifiedAssociation, provStartedAtTime, provWasAssociatedWith, provWasAttributedTo, provWasDerivedFrom, provWasGeneratedBy] = ['agent', 'endedAtTime', 'hadPlan', 'qualifiedAssociation', 'startedAtTime', 'wasAssociatedWith', 'wasAttributedTo', 'wasDerivedFrom', 'wasGeneratedBy'].map((l) => term('prov', l));
+const [
+  provAgent,
+  provEndedAtTime,
+  provHadPlan,
+  provQualifiedAssociation,
+  provStartedAtTime,
+  provWasAssociatedWith,
+  provWasAttributedTo,
+  provWasDerivedFrom,
+  provWasGeneratedBy,
+] = [
+  'agent',
+  'endedAtTime',
+  'hadPlan',
+  'qualifiedAssociation',
+  'startedAtTime',
+  'wasAssociatedWith',
+  'wasAttributedTo',
+  'wasDerivedFrom',
+  'wasGeneratedBy',
+].map((l) => term('prov', l));
 const [rdfsLabel] = ['label'].map((l) => term('rdfs', l));
 const [voidInDataset] = ['inDataset'].map((l) => term('void', l));
 
@@ -46,10 +142,16 @@ export class Namer {
   private image: ((id: string, work: string) => string)[];
   private page: (((w: string) => string) | undefined)[];
   readonly base: string;
-  constructor(private readonly model: Model, readonly patterns: Record<string, string>) {
+  constructor(
+    private readonly model: Model,
+    readonly patterns: Record<string, string>,
+  ) {
     this.base = model.project.base;
     const ps = model.project.partners;
-    this.work = ps.map((p) => { const f = compileTemplate(p.workIri, 'work'); return (w: number) => f(model.works[w].id); });
+    this.work = ps.map((p) => {
+      const f = compileTemplate(p.workIri, 'work');
+      return (w: number) => f(model.works[w].id);
+    });
     // Compiled once per partner: the pieces between {image} expressions, each with its {work} slots (the project
     // check rejects unbalanced braces, so no {work} spans an {image}).
     this.image = ps.map((p) => {
@@ -87,17 +189,27 @@ export class Namer {
   private runNodes: NamedNode[] = [];
   /** A run's IRI term, made once and shared (every match of the run points to it). */
   runNode = (r: number): NamedNode => (this.runNodes[r] ??= nn(this.runIri(r)));
-  agentIri = (r: number) => this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
-  /** A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters). */
+  agentIri = (r: number) =>
+    this.iri('software', { software: this.model.runs[r].software, version: this.model.runs[r].version });
+  /**
+   * A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters).
+   */
   curatorIri = (c: string) => {
     if (/^https?:\/\//.test(c)) return c;
-    const slug = c.toLowerCase().normalize('NFKD').replace(/\p{M}/gu, '').replace(/[^\p{L}\p{N}]+/gu, '-').replace(/^-|-$/g, '');
+    const slug = c
+      .toLowerCase()
+      .normalize('NFKD')
+      .replace(/\p{M}/gu, '')
+      .replace(/[^\p{L}\p{N}]+/gu, '-')
+      .replace(/^-|-$/g, '');
     return this.iri('curator', { name: slug || `n-${hash(c)}` });
   };
   partnerDataset = (p: number) => this.iri('partnerDataset', { partner: this.model.project.partners[p].key });
   reviewIri = (d: number) => {
     const x = this.model.decisions[d];
-    return this.iri('review', { hash: hash(workRef(this.model, x.a), workRef(this.model, x.b), x.curator, x.date, x.verdict) });
+    return this.iri('review', {
+      hash: hash(workRef(this.model, x.a), workRef(this.model, x.b), x.curator, x.date, x.verdict),
+    });
   };
 }
 
@@ -122,7 +234,10 @@ export interface StrayPlan {
   bySubject: Map<number, number[]>;
   /** Cluster index of each work, -1 when unclustered. */
   clusterOf: Int32Array;
-  /** Per unclustered claim subject: partners of the works whose stray links name it as their object (its unit goes to their slices too, so they get its description). */
+  /**
+   * Per unclustered claim subject: partners of the works whose stray links name it as their object (its unit goes to
+   * their slices too, so they get its description).
+   */
   referrers: Map<number, Set<number>>;
 }
 
@@ -162,7 +277,10 @@ export function strayPlan(view: ReleaseView): StrayPlan {
 
 /** Options of {@link releaseUnits}. */
 export interface UnitOptions {
-  /** More quads about published links, by link IRI, written in the link's unit (e.g. `prov:wasRevisionOf` its earlier state). */
+  /**
+   * More quads about published links, by link IRI, written in the link's unit (e.g. `prov:wasRevisionOf` its earlier
+   * state).
+   */
   attached?: ReadonlyMap<string, Quad[]>;
   /** The stray plan, when the caller made it already. */
   plan?: StrayPlan;
@@ -182,7 +300,15 @@ export function* releaseUnits(view: ReleaseView, counts: LinksetCounts, opts: Un
   /** Works that are described only in the unit of their own stray links (unclustered claim subjects). */
   const ownUnit = new Uint8Array(model.works.length);
   for (const s of plan.bySubject.keys()) ownUnit[s] = 1;
-  const ctx: LinkContext = { view, namer, described, matchDone, counts, attached, describe: (w) => plan.clusterOf[w] < 0 && !ownUnit[w] };
+  const ctx: LinkContext = {
+    view,
+    namer,
+    described,
+    matchDone,
+    counts,
+    attached,
+    describe: (w) => plan.clusterOf[w] < 0 && !ownUnit[w],
+  };
 
   yield provenanceUnit(view, namer);
 
@@ -212,8 +338,10 @@ export function* releaseUnits(view: ReleaseView, counts: LinksetCounts, opts: Un
       prov(node, cxWorkB, nn(namer.workIri(x.b)));
       return node;
     };
-    for (const p of c.implied) prov(pairNode('implied', 'impliedPair', T.Implied, p), cxThroughThirdArchive, bool(p.throughThirdArchive));
-    for (const x of c.conflicts) prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), cxSeverity, str(x.severity));
+    for (const p of c.implied)
+      prov(pairNode('implied', 'impliedPair', T.Implied, p), cxThroughThirdArchive, bool(p.throughThirdArchive));
+    for (const x of c.conflicts)
+      prov(pairNode('conflict', 'hasDateConflict', T.Conflict, x), cxSeverity, str(x.severity));
     for (const li of c.links) {
       const l = links.links[li];
       if (isPublished(l)) linkQuads(l, ctx, quads);
@@ -255,7 +383,13 @@ interface LinkContext {
   describe: (w: number) => boolean;
 }
 
-function describeWork(w: number, described: Uint8Array, emit: ReturnType<typeof inGraph>, namer: Namer, model: Model): void {
+function describeWork(
+  w: number,
+  described: Uint8Array,
+  emit: ReturnType<typeof inGraph>,
+  namer: Namer,
+  model: Model,
+): void {
   if (described[w]) return;
   described[w] = 1;
   const work = model.works[w];
@@ -294,7 +428,8 @@ function linkQuads(l: Link, ctx: LinkContext, quads: Quad[]): string {
   if (ctx.describe(s)) describeWork(s, described, claims, namer, model);
   if (ctx.describe(o)) describeWork(o, described, claims, namer, model);
   const predicate = view.vocab.predicate(l.kind, l.status);
-  const S = nn(namer.workIri(s)), O = nn(namer.workIri(o));
+  const S = nn(namer.workIri(s)),
+    O = nn(namer.workIri(o));
   if (predicate) {
     claims(S, nn(predicate), O);
     const key = `${model.works[s].partner}|${model.works[o].partner}|${predicate}`;
@@ -319,7 +454,8 @@ function linkQuads(l: Link, ctx: LinkContext, quads: Quad[]): string {
   }
   const { matches } = model;
   for (const r of matchesOf(view.links, l)) {
-    const ia = matches.a[r], ib = matches.b[r];
+    const ia = matches.a[r],
+      ib = matches.b[r];
     const [ra, rb] = [namer.imageIri(ia), namer.imageIri(ib)];
     const id = namer.matchIri(r, ra, rb);
     prov(L, provWasDerivedFrom, nn(id));
@@ -375,7 +511,17 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
       const v = run.parameters[name];
       prov(plan, cxParameter, P);
       prov(P, cxParameterName, str(name));
-      prov(P, cxParameterValue, typeof v === 'number' ? (Number.isInteger(v) ? int(v) : dec(v)) : typeof v === 'boolean' ? bool(v) : str(String(v)));
+      prov(
+        P,
+        cxParameterValue,
+        typeof v === 'number'
+          ? Number.isInteger(v)
+            ? int(v)
+            : dec(v)
+          : typeof v === 'boolean'
+            ? bool(v)
+            : str(String(v)),
+      );
     }
     if (!agents.has(agent)) {
       agents.add(agent);
@@ -385,7 +531,12 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
     }
   });
   const people = new Set<string>();
-  const deciding = new Set(view.links.links.filter(isPublished).map((l) => l.decision).filter((d): d is number => d !== undefined));
+  const deciding = new Set(
+    view.links.links
+      .filter(isPublished)
+      .map((l) => l.decision)
+      .filter((d): d is number => d !== undefined),
+  );
   for (const d of [...deciding].sort((x, y) => x - y)) {
     const x = model.decisions[d];
     const R = nn(namer.reviewIri(d));

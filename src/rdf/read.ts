@@ -25,7 +25,13 @@ function formatOf(path: string): { name: string; n3Format: string | null } {
   const ext = extname(path).toLowerCase();
   const info = READ_FORMATS[ext];
   if (!info)
-    throw new UserError({ file: path, line: 0, field: '', message: `unknown RDF file extension "${ext}"`, hint: `use one of ${Object.keys(READ_FORMATS).join(' ')}` });
+    throw new UserError({
+      file: path,
+      line: 0,
+      field: '',
+      message: `unknown RDF file extension "${ext}"`,
+      hint: `use one of ${Object.keys(READ_FORMATS).join(' ')}`,
+    });
   return info;
 }
 
@@ -34,12 +40,24 @@ export function syntaxError(err: unknown, file: string, formatName: string): Use
   const e = err as Error & { context?: { line?: number } };
   const line = e.context?.line ?? Number(/on line (\d+)/.exec(e.message)?.[1] ?? 0);
   const message = e.message.replace(/ on line \d+\.?$/, '');
-  return new UserError({ file, line, field: '', message: `${formatName} syntax error: ${message}`, hint: `the file is read as ${formatName} because of its extension` });
+  return new UserError({
+    file,
+    line,
+    field: '',
+    message: `${formatName} syntax error: ${message}`,
+    hint: `the file is read as ${formatName} because of its extension`,
+  });
 }
 
 function readError(err: unknown, file: string): UserError {
   const e = err as NodeJS.ErrnoException;
-  return new UserError({ file, line: 0, field: '', message: `cannot read file (${e.code ?? e.message})`, hint: 'check the path' });
+  return new UserError({
+    file,
+    line: 0,
+    field: '',
+    message: `cannot read file (${e.code ?? e.message})`,
+    hint: 'check the path',
+  });
 }
 
 /**
@@ -51,7 +69,11 @@ export async function streamRdfFile(path: string, onQuad: (q: N3.Quad) => void, 
   const base = opts.base ?? pathToFileURL(path).href;
   if (format.n3Format === null) {
     let text: string;
-    try { text = await readFile(path, 'utf8'); } catch (err) { throw readError(err, path); }
+    try {
+      text = await readFile(path, 'utf8');
+    } catch (err) {
+      throw readError(err, path);
+    }
     const nquads = await jsonldToNQuads(text.replace(/^\uFEFF/, ''), path, base, opts.contexts);
     try {
       new N3.Parser({ format: 'application/n-quads' }).parse(nquads, (err, quad) => {
@@ -59,7 +81,13 @@ export async function streamRdfFile(path: string, onQuad: (q: N3.Quad) => void, 
         if (quad) onQuad(quad);
       });
     } catch (err) {
-      throw new UserError({ file: path, line: 0, field: '', message: `JSON-LD produced unusable RDF: ${(err as Error).message}`, hint: 'check IRIs in the document' });
+      throw new UserError({
+        file: path,
+        line: 0,
+        field: '',
+        message: `JSON-LD produced unusable RDF: ${(err as Error).message}`,
+        hint: 'check IRIs in the document',
+      });
     }
     return;
   }
@@ -70,12 +98,18 @@ export async function streamRdfFile(path: string, onQuad: (q: N3.Quad) => void, 
     input.on('error', (err) => reject(readError(err, path)));
     input.on('data', (chunk) => {
       let text = chunk as string;
-      if (first) { text = text.replace(/^\uFEFF/, ''); first = false; }
+      if (first) {
+        text = text.replace(/^\uFEFF/, '');
+        first = false;
+      }
       parser.write(text);
     });
     input.on('end', () => parser.end());
     parser.on('data', onQuad);
-    parser.on('error', (err) => { input.destroy(); reject(syntaxError(err, path, format.name)); });
+    parser.on('error', (err) => {
+      input.destroy();
+      reject(syntaxError(err, path, format.name));
+    });
     parser.on('end', () => resolve());
   });
 }

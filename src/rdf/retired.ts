@@ -1,4 +1,5 @@
-// Retired cluster IDs (tombstones) → one unit of quads: deprecated, replaced by their successors, invalidated by a release.
+// Retired cluster IDs (tombstones) → one unit of quads: deprecated, replaced by their successors, invalidated by a
+// release.
 import type { Quad } from '@rdfjs/types';
 import { term, nn, bool, typed, inGraph } from './terms.js';
 import type { Namer, Unit } from './index.js';

@@ -30,12 +30,18 @@ const BATCH = 4096;
  * put every quad into the default graph. Output order is the input order, so equal input gives equal bytes.
  * The file appears under `path` only after `end()` (written to a temporary file, then renamed).
  */
-export function openQuadWriter(path: string, format: RdfFormat, prefixes: Record<string, string> = prefixMap()): QuadWriter {
+export function openQuadWriter(
+  path: string,
+  format: RdfFormat,
+  prefixes: Record<string, string> = prefixMap(),
+): QuadWriter {
   const info = FORMATS[format];
   const file = new TempFile(path);
   const out = createWriteStream(file.temp);
   let failure: Error | null = null;
-  out.on('error', (err) => { failure = err; });
+  out.on('error', (err) => {
+    failure = err;
+  });
   const turtle = info.prefixed ? new TurtleEncoder(prefixes) : null;
   let batch: Quad[] = [];
   let ok = true;

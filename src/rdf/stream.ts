@@ -16,10 +16,16 @@ export interface UnitStream {
 
 /**
  * Units of the whole release (design, "Outputs"): the dataset description comes last because its VoID linksets
- * count the claims of every unit before it; `previousVersion` is the previous release's dataset IRI (dcat:previousVersion);
+ * count the claims of every unit before it; `previousVersion` is the previous release's dataset IRI
+ * (dcat:previousVersion);
  * `attached` holds quads about published links to write in each link's unit (see releaseUnits).
  */
-export function releaseStream(view: ReleaseView, extra: Unit[] = [], previousVersion?: string, attached?: ReadonlyMap<string, Quad[]>): UnitStream {
+export function releaseStream(
+  view: ReleaseView,
+  extra: Unit[] = [],
+  previousVersion?: string,
+  attached?: ReadonlyMap<string, Quad[]>,
+): UnitStream {
   const counts: LinksetCounts = new Map();
   // links outside every cluster go with their claim subject's cluster, or into one unit per subject
   const plan = strayPlan(view);

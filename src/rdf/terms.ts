@@ -24,18 +24,34 @@ export class Iri implements NamedNode {
 
 /** A literal (RDF/JS Literal, RDF 1.1 Concepts §3.3) with plain fields: no parsing on every read. */
 export class Lit implements Literal {
-  constructor(readonly value: string, readonly language: string, readonly datatype: Iri) {}
+  constructor(
+    readonly value: string,
+    readonly language: string,
+    readonly datatype: Iri,
+  ) {}
   get termType(): 'Literal' {
     return 'Literal';
   }
   equals(other: Term | null | undefined): boolean {
-    return !!other && other.termType === 'Literal' && other.value === this.value && other.language === this.language && !other.direction && other.datatype.value === this.datatype.value;
+    return (
+      !!other &&
+      other.termType === 'Literal' &&
+      other.value === this.value &&
+      other.language === this.language &&
+      !other.direction &&
+      other.datatype.value === this.datatype.value
+    );
   }
 }
 
 /** A quad (RDF/JS Quad, RDF 1.1 Concepts §4: a triple in a named graph). */
 export class RdfQuad implements Quad {
-  constructor(readonly subject: Quad_Subject, readonly predicate: NamedNode, readonly object: Quad_Object, readonly graph: Quad_Graph) {}
+  constructor(
+    readonly subject: Quad_Subject,
+    readonly predicate: NamedNode,
+    readonly object: Quad_Object,
+    readonly graph: Quad_Graph,
+  ) {}
   get termType(): 'Quad' {
     return 'Quad';
   }
@@ -43,8 +59,14 @@ export class RdfQuad implements Quad {
     return '';
   }
   equals(other: Term | null | undefined): boolean {
-    return !!other && other.termType === 'Quad' && this.subject.equals(other.subject) && this.predicate.equals(other.predicate) &&
-      this.object.equals(other.object) && this.graph.equals(other.graph);
+    return (
+      !!other &&
+      other.termType === 'Quad' &&
+      this.subject.equals(other.subject) &&
+      this.predicate.equals(other.predicate) &&
+      this.object.equals(other.object) &&
+      this.graph.equals(other.graph)
+    );
   }
 }
 
@@ -83,12 +105,16 @@ const oneShot = (crypto as unknown as { hash?: (algorithm: string, data: string,
 /** First 16 hex digits of SHA-256 over the parts joined by tabs: short, stable identifiers for pairs. */
 export function hash(...parts: string[]): string {
   const text = parts.join('\t');
-  return (oneShot ? oneShot('sha256', text, 'hex') : crypto.createHash('sha256').update(text).digest('hex')).slice(0, 16);
+  return (oneShot ? oneShot('sha256', text, 'hex') : crypto.createHash('sha256').update(text).digest('hex')).slice(
+    0,
+    16,
+  );
 }
 
 /** A pattern split at its `{name}` slots: literal text at even indices, slot names at odd ones. */
 const compiledPatterns = new Map<string, string[]>();
-const encodeSlot = (v: string) => encodeURIComponent(v).replace(/[!'()*]/g, (c) => '%' + c.charCodeAt(0).toString(16).toUpperCase());
+const encodeSlot = (v: string) =>
+  encodeURIComponent(v).replace(/[!'()*]/g, (c) => '%' + c.charCodeAt(0).toString(16).toUpperCase());
 
 /**
  * Fills `{name}` slots of a project IRI pattern; values are percent-encoded except `base` (taken from the

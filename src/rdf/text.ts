@@ -8,7 +8,6 @@ const RDF_TYPE = 'http://www.w3.org/1999/02/22-rdf-syntax-ns#type';
 
 /** ECHAR and UCHAR escapes for a quoted string (RDF 1.1 N-Triples §2.4, Turtle §2.5.1). */
 function escapeString(s: string): string {
-  // eslint-disable-next-line no-control-regex
   if (!/["\\\u0000-\u001f\u007f\ud800-\udfff]/.test(s)) return s;
   let out = '';
   for (let i = 0; i < s.length; i++) {
@@ -20,10 +19,17 @@ function escapeString(s: string): string {
     else if (ch === '\r') out += '\\r';
     else if (ch === '\t') out += '\\t';
     else if (c < 0x20 || c === 0x7f) out += '\\u' + c.toString(16).toUpperCase().padStart(4, '0');
-    else if (c >= 0xd800 && c <= 0xdbff && i + 1 < s.length && s.charCodeAt(i + 1) >= 0xdc00 && s.charCodeAt(i + 1) <= 0xdfff) {
+    else if (
+      c >= 0xd800 &&
+      c <= 0xdbff &&
+      i + 1 < s.length &&
+      s.charCodeAt(i + 1) >= 0xdc00 &&
+      s.charCodeAt(i + 1) <= 0xdfff
+    ) {
       out += ch + s[i + 1];
       i++;
-    } else if (c >= 0xd800 && c <= 0xdfff) out += '\\u' + c.toString(16).toUpperCase(); // lone surrogate: keep it representable
+    } else if (c >= 0xd800 && c <= 0xdfff)
+      out += '\\u' + c.toString(16).toUpperCase(); // lone surrogate: keep it representable
     else out += ch;
   }
   return out;
@@ -31,9 +37,15 @@ function escapeString(s: string): string {
 
 /** IRIREF with the characters it may not hold written as UCHAR (RDF 1.1 N-Triples §2.3, [8] IRIREF). */
 function iriRef(iri: string): string {
-  // eslint-disable-next-line no-control-regex
   if (!/[\u0000-\u0020<>"{}|^`\\]/.test(iri)) return `<${iri}>`;
-  return '<' + iri.replace(/[\u0000-\u0020<>"{}|^`\\]/g, (c) => '\\u' + c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')) + '>';
+  return (
+    '<' +
+    iri.replace(
+      /[\u0000-\u0020<>"{}|^`\\]/g,
+      (c) => '\\u' + c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0'),
+    ) +
+    '>'
+  );
 }
 
 /** A literal's N-Triples text from its parts. */
@@ -79,12 +91,18 @@ export function nquadsText(quads: readonly Quad[], graphs = true): string {
   return out;
 }
 
-/** PN_LOCAL we are sure of: letters, digits, `_` and `-`, not starting with `-` (a safe subset of Turtle §6.5 [168s]). */
+/**
+ * PN_LOCAL we are sure of: letters, digits, `_` and `-`, not starting with `-` (a safe subset of Turtle §6.5 [168s]).
+ */
 const SAFE_LOCAL = /^[A-Za-z0-9_][A-Za-z0-9_-]*$/;
 
 /** Prefix declarations (Turtle §2.4) in a fixed order. */
 export function turtlePrefixes(prefixes: Record<string, string>): string {
-  return Object.entries(prefixes).map(([p, ns]) => `@prefix ${p}: ${iriRef(ns)} .\n`).join('') + '\n';
+  return (
+    Object.entries(prefixes)
+      .map(([p, ns]) => `@prefix ${p}: ${iriRef(ns)} .\n`)
+      .join('') + '\n'
+  );
 }
 
 /**
@@ -100,7 +118,8 @@ export class TurtleEncoder {
   }
   /** A prefixed name when one fits, else the IRIREF (taken from the term's N-Triples text when it has one). */
   private name(iri: string, t?: Iri): string {
-    for (const [p, ns] of this.spaces) if (iri.startsWith(ns) && SAFE_LOCAL.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
+    for (const [p, ns] of this.spaces)
+      if (iri.startsWith(ns) && SAFE_LOCAL.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
     return t ? (t.nt ??= iriRef(iri)) : iriRef(iri);
   }
   /** An IRI's Turtle text, kept on IRIs made by src/rdf/terms.ts (for this encoder's prefix table). */
@@ -114,7 +133,12 @@ export class TurtleEncoder {
   }
   private term(t: Term): string {
     if (t.termType === 'NamedNode') return this.iri(t);
-    if (t.termType === 'Literal' && !t.language && t.datatype.value !== XSD_STRING && t.datatype.value !== RDF_LANG_STRING)
+    if (
+      t.termType === 'Literal' &&
+      !t.language &&
+      t.datatype.value !== XSD_STRING &&
+      t.datatype.value !== RDF_LANG_STRING
+    )
       return `"${escapeString(t.value)}"^^${this.iri(t.datatype)}`;
     return ntTerm(t);
   }
@@ -130,7 +154,13 @@ export class TurtleEncoder {
       for (let i = 0; i < block.length; i++) {
         const q = block[i];
         const predicate = q.predicate.value;
-        if (i === 0) out += this.term(q.subject) + ' ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
+        if (i === 0)
+          out +=
+            this.term(q.subject) +
+            ' ' +
+            (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) +
+            ' ' +
+            this.term(q.object);
         else if (predicate === p) out += ', ' + this.term(q.object);
         else out += ';\n    ' + (predicate === RDF_TYPE ? 'a' : this.term(q.predicate)) + ' ' + this.term(q.object);
         p = predicate;

@@ -36,19 +36,40 @@ export interface ReleaseView {
 }
 
 /** The release view: clusters with their bridges, implied pairs and date conflicts; retired cluster IDs; the Namer. */
-export function releaseView(model: Model, links: LinkSet, clustering: Clustering, analysis: Analysis | undefined, vocab: VocabMap): ReleaseView {
-  return { model, links, clusters: clusterViews(clustering, analysis), retired: clustering.retired, vocab, namer: new Namer(model, vocab.iris) };
+export function releaseView(
+  model: Model,
+  links: LinkSet,
+  clustering: Clustering,
+  analysis: Analysis | undefined,
+  vocab: VocabMap,
+): ReleaseView {
+  return {
+    model,
+    links,
+    clusters: clusterViews(clustering, analysis),
+    retired: clustering.retired,
+    vocab,
+    namer: new Namer(model, vocab.iris),
+  };
 }
 
 /** Clustering (columns) → what the RDF stage reads per cluster. */
 function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[] {
   const views: ClusterView[] = clustering.clusters.map((c) => ({
-    id: c.id, members: Array.from(c.members), links: Array.from(c.links), bridges: [], implied: [], conflicts: [], oversized: c.oversized,
+    id: c.id,
+    members: Array.from(c.members),
+    links: Array.from(c.links),
+    bridges: [],
+    implied: [],
+    conflicts: [],
+    oversized: c.oversized,
   }));
   const bridgeSet = new Set(clustering.bridges);
   for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
   const im = clustering.implied;
-  for (let i = 0; i < im.count; i++) views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
-  for (const c of analysis?.conflicts ?? []) if (c.cluster >= 0) views[c.cluster].conflicts.push({ a: c.work, b: c.anchor, severity: 'conflict' });
+  for (let i = 0; i < im.count; i++)
+    views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });
+  for (const c of analysis?.conflicts ?? [])
+    if (c.cluster >= 0) views[c.cluster].conflicts.push({ a: c.work, b: c.anchor, severity: 'conflict' });
   return views;
 }

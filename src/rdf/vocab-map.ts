@@ -7,7 +7,14 @@ import { readJsonFile } from '../io/json-file.js';
 import type { LinkKind, LinkStatus } from '../link/types.js';
 
 /** The vocab-map folder shipped with the package (repo root / vocab-map). */
-export const DEFAULT_VOCAB_MAP = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', '..', 'vocab-map', 'claims.json');
+export const DEFAULT_VOCAB_MAP = path.resolve(
+  path.dirname(fileURLToPath(import.meta.url)),
+  '..',
+  '..',
+  '..',
+  'vocab-map',
+  'claims.json',
+);
 
 const Row = z.strictObject({ kind: z.string(), status: z.string(), predicate: z.string().nullable() });
 const FileSchema = z.strictObject({
@@ -31,18 +38,40 @@ export interface VocabMap {
   confirmedOnly: string[];
 }
 
-function readMapFile(file: string, seen: Set<string>): { prefixes: Record<string, string>; claims: z.infer<typeof Row>[]; iris: Record<string, string> } {
-  if (seen.has(file)) throw new UserError({ file, line: 0, field: 'extends', message: 'vocab map extends itself', hint: 'remove the cycle' });
+function readMapFile(
+  file: string,
+  seen: Set<string>,
+): { prefixes: Record<string, string>; claims: z.infer<typeof Row>[]; iris: Record<string, string> } {
+  if (seen.has(file))
+    throw new UserError({
+      file,
+      line: 0,
+      field: 'extends',
+      message: 'vocab map extends itself',
+      hint: 'remove the cycle',
+    });
   seen.add(file);
   const { value: raw } = readJsonFile(file, 'vocab map', 'check the "vocabMap" path in concordance.json');
   const parsed = FileSchema.safeParse(raw);
   if (!parsed.success) {
     const i = parsed.error.issues[0];
-    throw new UserError({ file, line: 0, field: i.path.join('.'), message: i.message, hint: 'see vocab-map/claims.json for the format' });
+    throw new UserError({
+      file,
+      line: 0,
+      field: i.path.join('.'),
+      message: i.message,
+      hint: 'see vocab-map/claims.json for the format',
+    });
   }
   const own = parsed.data;
-  const parent = own.extends ? readMapFile(path.resolve(path.dirname(file), own.extends), seen) : { prefixes: {}, claims: [], iris: {} };
-  return { prefixes: { ...parent.prefixes, ...own.prefixes }, claims: [...own.claims, ...parent.claims], iris: { ...parent.iris, ...own.iris } };
+  const parent = own.extends
+    ? readMapFile(path.resolve(path.dirname(file), own.extends), seen)
+    : { prefixes: {}, claims: [], iris: {} };
+  return {
+    prefixes: { ...parent.prefixes, ...own.prefixes },
+    claims: [...own.claims, ...parent.claims],
+    iris: { ...parent.iris, ...own.iris },
+  };
 }
 
 const slotsOf = (pattern: string): string[] => [...pattern.matchAll(/\{([^{}]*)\}/g)].map((m) => m[1]);
@@ -53,14 +82,28 @@ const slotsOf = (pattern: string): string[] => [...pattern.matchAll(/\{([^{}]*)\
  */
 function checkPatterns(file: string, iris: Record<string, string>): void {
   const shipped = path.resolve(file) === DEFAULT_VOCAB_MAP ? iris : readMapFile(DEFAULT_VOCAB_MAP, new Set()).iris;
-  const bad = (name: string, message: string, hint: string) => new UserError({ file, line: 0, field: `iris.${name}`, message, hint });
-  for (const name of Object.keys(shipped)) if (iris[name] === undefined) throw bad(name, 'no IRI pattern for this name', `give one, e.g. "${shipped[name]}", or "extends" the shipped map`);
+  const bad = (name: string, message: string, hint: string) =>
+    new UserError({ file, line: 0, field: `iris.${name}`, message, hint });
+  for (const name of Object.keys(shipped))
+    if (iris[name] === undefined)
+      throw bad(
+        name,
+        'no IRI pattern for this name',
+        `give one, e.g. "${shipped[name]}", or "extends" the shipped map`,
+      );
   for (const [name, pattern] of Object.entries(iris)) {
-    if (shipped[name] === undefined) throw bad(name, 'is no IRI pattern name concordat fills', `known: ${Object.keys(shipped).sort().join(', ')}`);
+    if (shipped[name] === undefined)
+      throw bad(name, 'is no IRI pattern name concordat fills', `known: ${Object.keys(shipped).sort().join(', ')}`);
     const allowed = slotsOf(shipped[name]);
     for (const slot of slotsOf(pattern))
-      if (!allowed.includes(slot)) throw bad(name, `"{${slot}}" is not filled for this pattern`, `slots for "${name}": ${allowed.map((a) => `{${a}}`).join(', ')}`);
-    if (/[{}]/.test(pattern.replace(/\{[^{}]*\}/g, ''))) throw bad(name, `"${pattern}" has an unmatched "{" or "}"`, 'slots are written {name}');
+      if (!allowed.includes(slot))
+        throw bad(
+          name,
+          `"{${slot}}" is not filled for this pattern`,
+          `slots for "${name}": ${allowed.map((a) => `{${a}}`).join(', ')}`,
+        );
+    if (/[{}]/.test(pattern.replace(/\{[^{}]*\}/g, '')))
+      throw bad(name, `"${pattern}" has an unmatched "{" or "}"`, 'slots are written {name}');
   }
 }
 
@@ -73,7 +116,13 @@ export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
     const ns = prefixes[curie.slice(0, i)];
     if (i < 0 || ns === undefined) {
       if (/^https?:\/\//.test(curie)) return curie;
-      throw new UserError({ file, line: 0, field: 'claims', message: `unknown prefix in "${curie}"`, hint: 'declare it under "prefixes"' });
+      throw new UserError({
+        file,
+        line: 0,
+        field: 'claims',
+        message: `unknown prefix in "${curie}"`,
+        hint: 'declare it under "prefixes"',
+      });
     }
     return ns + curie.slice(i + 1);
   };
@@ -92,7 +141,13 @@ export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
   return {
     predicate: (kind, status) => table.get(`${kind}/${status}`) ?? null,
     table: rowsOut,
-    confirmedOnly: [...new Set(rowsOut.filter((r) => r.status === 'confirmed' && r.predicate !== null && !unconfirmed.has(r.predicate)).map((r) => r.predicate!))].sort(),
+    confirmedOnly: [
+      ...new Set(
+        rowsOut
+          .filter((r) => r.status === 'confirmed' && r.predicate !== null && !unconfirmed.has(r.predicate))
+          .map((r) => r.predicate!),
+      ),
+    ].sort(),
     iris,
     predicates: [...new Set([...table.values()].filter((p): p is string => p !== null))].sort(),
   };

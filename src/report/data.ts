@@ -2,7 +2,7 @@
 import type { Model } from '../model.js';
 import type { LinkKind, LinkSet, LinkStatus } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
-import { DATE_TOLERANCE, REVIEW_REASONS, formatInterval, type Analysis, type DateConflict } from '../analyse/index.js';
+import { DATE_TOLERANCE, REVIEW_REASONS, type Analysis, type DateConflict } from '../analyse/index.js';
 import { CONFLICTS_HEADER, conflictCells } from './csv-files.js';
 import { num, type WorkContext } from './context.js';
 import { withheldData } from './withheld.js';
@@ -17,11 +17,20 @@ const r4 = (x: number | null) => (x === null ? null : Number(num(x)));
 export type ReportData = ReturnType<typeof reportData>;
 
 /** Everything report.md and report.json say, as JSON-ready data in a fixed key order. */
-export function reportData(model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis, ctx: WorkContext) {
+export function reportData(
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  analysis: Analysis,
+  ctx: WorkContext,
+) {
   const partners = model.project.partners;
   const works = new Array<number>(partners.length).fill(0);
   for (const w of model.works) works[w.partner]++;
-  const byKind = Object.fromEntries(KINDS.map((k) => [k, Object.fromEntries(STATUSES.map((s) => [s, 0]))])) as Record<LinkKind, Record<LinkStatus, number>>;
+  const byKind = Object.fromEntries(KINDS.map((k) => [k, Object.fromEntries(STATUSES.map((s) => [s, 0]))])) as Record<
+    LinkKind,
+    Record<LinkStatus, number>
+  >;
   for (const l of linkSet.links) byKind[l.kind][l.status]++;
   const sizes = new Map<number, number>();
   for (const c of clustering.clusters) sizes.set(c.members.length, (sizes.get(c.members.length) ?? 0) + 1);
@@ -35,7 +44,9 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
   for (let i = 0; i < analysis.review.count; i++) listed[REVIEW_REASONS[analysis.review.reason[i]]]++;
   const key = (p: number) => partners[p].key;
   // bridges joining two would-be clusters first (larger smaller side first), then by link order
-  const bridgeOrder = Array.from(clustering.bridges.keys()).sort((x, y) => clustering.bridgeMinSide[y] - clustering.bridgeMinSide[x] || x - y);
+  const bridgeOrder = Array.from(clustering.bridges.keys()).sort(
+    (x, y) => clustering.bridgeMinSide[y] - clustering.bridgeMinSide[x] || x - y,
+  );
   const ag = analysis.agreement;
   return {
     title: model.project.title,
@@ -47,11 +58,20 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
       works: clustering.clusters.reduce((n, c) => n + c.members.length, 0),
       sizes: Object.fromEntries([...sizes].sort((x, y) => x[0] - y[0]).map(([s, n]) => [String(s), n])),
       oversizeAt: clustering.oversizeAt,
-      oversized: oversized.slice(0, LIST_LIMIT).map((c) => ({ id: c.id, members: c.members.length, partners: c.partners.map(key) })),
+      oversized: oversized
+        .slice(0, LIST_LIMIT)
+        .map((c) => ({ id: c.id, members: c.members.length, partners: c.partners.map(key) })),
       oversizedTotal: oversized.length,
       bridges: bridgeOrder.slice(0, LIST_LIMIT).map((k) => {
         const l = linkSet.links[clustering.bridges[k]];
-        return { cluster: clustering.clusters[clustering.clusterOf[l.a]].id, work_a: ctx.ref(l.a), work_b: ctx.ref(l.b), status: l.status, score: r4(l.best), smallerSide: clustering.bridgeMinSide[k] };
+        return {
+          cluster: clustering.clusters[clustering.clusterOf[l.a]].id,
+          work_a: ctx.ref(l.a),
+          work_b: ctx.ref(l.b),
+          status: l.status,
+          score: r4(l.best),
+          smallerSide: clustering.bridgeMinSide[k],
+        };
       }),
       bridgesTotal: clustering.bridges.length,
       bridgesJoiningClusters: clustering.bridgeMinSide.filter((x) => x >= 2).length,
@@ -62,25 +82,56 @@ export function reportData(model: Model, linkSet: LinkSet, clustering: Clusterin
       retiredTotal: clustering.retired.length,
     },
     overlap: {
-      pairs: analysis.overlap.pairs.map((c) => ({ from: key(c.from), to: key(c.to), works: c.works, matched: c.matched, share: r4(c.share) })),
-      centuries: analysis.overlap.centuries.map((c) => ({ from: key(c.from), to: key(c.to), century: c.century, works: c.works, matched: c.matched, share: r4(c.share) })),
+      pairs: analysis.overlap.pairs.map((c) => ({
+        from: key(c.from),
+        to: key(c.to),
+        works: c.works,
+        matched: c.matched,
+        share: r4(c.share),
+      })),
+      centuries: analysis.overlap.centuries.map((c) => ({
+        from: key(c.from),
+        to: key(c.to),
+        century: c.century,
+        works: c.works,
+        matched: c.matched,
+        share: r4(c.share),
+      })),
     },
     conflicts: {
       tolerance: model.project.policy.dateTolerance ?? DATE_TOLERANCE,
       records: analysis.conflicts.length,
       centuriesApart: analysis.conflicts.filter((c) => c.apart >= 100).length,
-      listed: analysis.conflicts.slice(0, LIST_LIMIT).map((c) => Object.fromEntries(CONFLICTS_HEADER.map((h, i) => [h, cells(c)[i]]))),
+      listed: analysis.conflicts
+        .slice(0, LIST_LIMIT)
+        .map((c) => Object.fromEntries(CONFLICTS_HEADER.map((h, i) => [h, cells(c)[i]]))),
     },
     agreement: ag && {
-      goldPairs: ag.goldPairs, found: ag.found, recall: r4(ag.recall),
-      goldWorks: ag.goldWorks, claimedPairs: ag.claimedPairs, correctPairs: ag.correctPairs, precision: r4(ag.precision), f1: r4(ag.f1),
+      goldPairs: ag.goldPairs,
+      found: ag.found,
+      recall: r4(ag.recall),
+      goldWorks: ag.goldWorks,
+      claimedPairs: ag.claimedPairs,
+      correctPairs: ag.correctPairs,
+      precision: r4(ag.precision),
+      f1: r4(ag.f1),
       missed: ag.missed.slice(0, LIST_LIMIT).map((m) => ({
-        work_a: ctx.ref(m.a), work_b: ctx.ref(m.b), line: m.line,
-        evidence: m.link ? { kind: m.link.kind, status: m.link.status, score: r4(m.link.best), support: m.link.support } : 'no evidence',
+        work_a: ctx.ref(m.a),
+        work_b: ctx.ref(m.b),
+        line: m.line,
+        evidence: m.link
+          ? { kind: m.link.kind, status: m.link.status, score: r4(m.link.best), support: m.link.support }
+          : 'no evidence',
       })),
       missedTotal: ag.missed.length,
     },
     withheld: withheldData(model, linkSet, clustering, LIST_LIMIT),
-    reviewQueue: { total: analysis.review.total, listed: analysis.review.count, limit: analysis.review.limit, byReason: reasons, listedByReason: listed },
+    reviewQueue: {
+      total: analysis.review.total,
+      listed: analysis.review.count,
+      limit: analysis.review.limit,
+      byReason: reasons,
+      listedByReason: listed,
+    },
   };
 }

@@ -1,4 +1,5 @@
-// Links, clusters and analysis → the release's report files: report.md, report.json, conflicts.csv, review-queue.csv, clusters.csv.
+// Links, clusters and analysis → the release's report files: report.md, report.json, conflicts.csv, review-queue.csv,
+// clusters.csv.
 import path from 'node:path';
 import { writeFileAtomically } from '../io/temp-file.js';
 import type { Model } from '../model.js';
@@ -19,7 +20,13 @@ export { REVIEW_HEADER, DECISION_COLUMNS, PAIRS_LISTED } from './review-queue.js
 export { reportData, LIST_LIMIT, type ReportData } from './data.js';
 
 /** File names the report stage writes, in the order returned. */
-export const REPORT_FILES = ['report.md', 'report.json', 'conflicts.csv', 'review-queue.csv', RELEASE_FILES.clusters] as const;
+export const REPORT_FILES = [
+  'report.md',
+  'report.json',
+  'conflicts.csv',
+  'review-queue.csv',
+  RELEASE_FILES.clusters,
+] as const;
 
 function writeText(file: string, text: string): string {
   writeFileAtomically(file, text);
@@ -29,14 +36,22 @@ function writeText(file: string, text: string): string {
 /**
  * Writes the report files into `dir` (design, "Outputs"), each atomically (temp file, then rename). Same inputs →
  * byte-identical files: no clock, no absolute paths, fixed orders. CSV files are written for spreadsheets (UTF-8 with
- * BOM, CRLF) unless the project's `release.csv` is `plain`; `namer` gives the queue its link and image IRIs. Returns the paths written, in REPORT_FILES order.
+ * BOM, CRLF) unless the project's `release.csv` is `plain`; `namer` gives the queue its link and image IRIs. Returns
+ * the paths written, in REPORT_FILES order.
  */
 /** A work's partner name, for the conflicts a cataloguer reads. */
 export function partnerNamer(model: Model): (w: number) => string {
   return (w) => model.project.partners[model.works[w].partner].name;
 }
 
-export async function writeReports(dir: string, model: Model, linkSet: LinkSet, clustering: Clustering, analysis: Analysis, namer: Namer): Promise<string[]> {
+export async function writeReports(
+  dir: string,
+  model: Model,
+  linkSet: LinkSet,
+  clustering: Clustering,
+  analysis: Analysis,
+  namer: Namer,
+): Promise<string[]> {
   const ctx = workContext(model);
   const form = model.project.release.csv ?? 'spreadsheet';
   const data = reportData(model, linkSet, clustering, analysis, ctx);

@@ -15,11 +15,33 @@ import { num, type WorkContext } from './context.js';
 export const DECISION_COLUMNS = ['work_a', 'work_b', 'verdict', 'curator', 'decided_on', 'note'] as const;
 
 /** The context column names, in file order (for readers and tests). */
-export const REVIEW_CONTEXT = ['reason', 'link', 'kind', 'status', 'score', 'support', 'images_a', 'images_b', 'views_a', 'views_b', 'pair_scores', 'pair_overlaps', 'title_a', 'title_b', 'dating_a', 'dating_b', 'page_a', 'page_b'] as const;
+export const REVIEW_CONTEXT = [
+  'reason',
+  'link',
+  'kind',
+  'status',
+  'score',
+  'support',
+  'images_a',
+  'images_b',
+  'views_a',
+  'views_b',
+  'pair_scores',
+  'pair_overlaps',
+  'title_a',
+  'title_b',
+  'dating_a',
+  'dating_b',
+  'page_a',
+  'page_b',
+] as const;
 export const REVIEW_HEADER = [...DECISION_COLUMNS, ...REVIEW_CONTEXT] as const;
 type ReviewContextColumn = (typeof REVIEW_CONTEXT)[number];
 
-/** Image pairs listed per row (best score first); `support` gives how many there are in all (common practice, no source). */
+/**
+ * Image pairs listed per row (best score first); `support` gives how many there are in all (common practice, no
+ * source).
+ */
 export const PAIRS_LISTED = 10;
 
 /** One queue row as the context columns see it. */
@@ -36,7 +58,11 @@ interface QueueRow {
 const lines = (xs: string[]) => xs.join('\n');
 
 /** Context column → its cell (a table: adding a column is one name in REVIEW_CONTEXT and one entry here). */
-function contextCells(model: Model, ctx: WorkContext, namer: Namer): Record<ReviewContextColumn, (r: QueueRow) => string> {
+function contextCells(
+  model: Model,
+  ctx: WorkContext,
+  namer: Namer,
+): Record<ReviewContextColumn, (r: QueueRow) => string> {
   const partners = model.project.partners;
   const views = partners.map((p) => (p.imageView ? compileImageTemplate(p.imageView) : undefined));
   const view = (img: number) => {
@@ -72,7 +98,6 @@ function compileImageTemplate(template: string): (image: string, work: string) =
   return (id, work) => pieces.map((p) => p(work)).join(image(id));
 }
 
-
 /** A link's image pairs, oriented to (a, b), distinct image pairs only, best score first (then input order), capped. */
 function pairsOf(model: Model, linkSet: LinkSet, l: Link | undefined, a: number) {
   if (!l) return [];
@@ -96,12 +121,26 @@ function pairsOf(model: Model, linkSet: LinkSet, l: Link | undefined, a: number)
  * the work references are read back by the decisions loader and never start with = + - @ (partner keys start with a
  * letter). Several image pairs in one cell are one per line, aligned across images_*, views_*, pair_* columns.
  */
-export async function writeReviewQueue(file: string, model: Model, linkSet: LinkSet, analysis: Analysis, ctx: WorkContext, namer: Namer, form: CsvForm): Promise<string> {
+export async function writeReviewQueue(
+  file: string,
+  model: Model,
+  linkSet: LinkSet,
+  analysis: Analysis,
+  ctx: WorkContext,
+  namer: Namer,
+  form: CsvForm,
+): Promise<string> {
   const cells = contextCells(model, ctx, namer);
-  const out = new CsvFile(file, REVIEW_HEADER, REVIEW_HEADER.map((_, i) => i >= DECISION_COLUMNS.length), form);
+  const out = new CsvFile(
+    file,
+    REVIEW_HEADER,
+    REVIEW_HEADER.map((_, i) => i >= DECISION_COLUMNS.length),
+    form,
+  );
   const q = analysis.review;
   for (let i = 0; i < q.count; i++) {
-    const a = q.a[i], b = q.b[i];
+    const a = q.a[i],
+      b = q.b[i];
     const link = q.link[i] >= 0 ? linkSet.links[q.link[i]] : undefined;
     const row: QueueRow = { a, b, reason: REVIEW_REASONS[q.reason[i]], link, pairs: pairsOf(model, linkSet, link, a) };
     await out.row([ctx.ref(a), ctx.ref(b), '', '', '', '', ...REVIEW_CONTEXT.map((c) => cells[c](row))]);

@@ -3,7 +3,6 @@ import { IMAGE_VERDICTS } from '../evidence/index.js';
 import { HELD_REASONS, type LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import type { Model } from '../model.js';
-import { num } from './context.js';
 
 /** The withheld section as JSON-ready data (lists capped at `limit`, totals beside them). */
 export function withheldData(model: Model, linkSet: LinkSet, clustering: Clustering, limit: number) {
@@ -19,7 +18,12 @@ export function withheldData(model: Model, linkSet: LinkSet, clustering: Cluster
   }
   const largest = clustering.clusters.reduce((m, c) => Math.max(m, c.members.length), 0);
   return {
-    method: { hubAbove: ev.hubAbove, suspectFrom: ev.suspectFrom, medianWorksMatched: ev.median, madWorksMatched: ev.mad },
+    method: {
+      hubAbove: ev.hubAbove,
+      suspectFrom: ev.suspectFrom,
+      medianWorksMatched: ev.median,
+      madWorksMatched: ev.mad,
+    },
     indiscriminateImages: ev.indiscriminate.length,
     byVerdict,
     rowsSetAside: ev.rowsSetAside,

@@ -33,13 +33,38 @@ export const PROJECT_FOLDERS = ['catalogues', 'evidence', 'decisions'] as const;
 /** Creates `folder` (if needed), its empty input folders and concordance.json; refuses to overwrite a project file. */
 export function initProject(folder: string, opts: StarterOptions = {}): string[] {
   const file = path.join(folder, 'concordance.json');
-  if (existsSync(file)) throw new UserError({ file, line: 0, field: '', message: 'a project file already exists here', hint: 'choose a new folder, or edit it and use add-partner' });
+  if (existsSync(file))
+    throw new UserError({
+      file,
+      line: 0,
+      field: '',
+      message: 'a project file already exists here',
+      hint: 'choose a new folder, or edit it and use add-partner',
+    });
   if (existsSync(folder)) {
-    if (!statSync(folder).isDirectory()) throw new UserError({ file: folder, line: 0, field: '<folder>', message: 'is a file', hint: 'choose a new folder' });
-    const isRelease = existsSync(path.join(folder, 'SHA256SUMS')) || existsSync(path.join(folder, '.concordat-incomplete'));
-    const other = readdirSync(folder).filter((n) => !(PROJECT_FOLDERS as readonly string[]).includes(n)).sort();
+    if (!statSync(folder).isDirectory())
+      throw new UserError({
+        file: folder,
+        line: 0,
+        field: '<folder>',
+        message: 'is a file',
+        hint: 'choose a new folder',
+      });
+    const isRelease =
+      existsSync(path.join(folder, 'SHA256SUMS')) || existsSync(path.join(folder, '.concordat-incomplete'));
+    const other = readdirSync(folder)
+      .filter((n) => !(PROJECT_FOLDERS as readonly string[]).includes(n))
+      .sort();
     if (isRelease || other.length)
-      throw new UserError({ file: folder, line: 0, field: '<folder>', message: isRelease ? 'is a release folder' : `is not empty (${other.slice(0, 3).join(', ')}${other.length > 3 ? ', …' : ''})`, hint: 'init writes a starter project into a new or empty folder' });
+      throw new UserError({
+        file: folder,
+        line: 0,
+        field: '<folder>',
+        message: isRelease
+          ? 'is a release folder'
+          : `is not empty (${other.slice(0, 3).join(', ')}${other.length > 3 ? ', …' : ''})`,
+        hint: 'init writes a starter project into a new or empty folder',
+      });
   }
   const made: string[] = [];
   for (const sub of PROJECT_FOLDERS) {

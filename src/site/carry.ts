@@ -21,7 +21,14 @@ export interface EarlierSite {
 /** Reads an earlier site's manifest and lists its own documents; refuses a site of another base. */
 export function readEarlierSite(dir: string, base: string): EarlierSite {
   const m = readManifest(dir);
-  if (m.base !== base) throw new UserError({ file: path.join(dir, 'site.json'), line: 0, field: 'base', message: `the earlier site is of base ${m.base}, this release of ${base}`, hint: 'name the site of an earlier release of the same concordance' });
+  if (m.base !== base)
+    throw new UserError({
+      file: path.join(dir, 'site.json'),
+      line: 0,
+      field: 'base',
+      message: `the earlier site is of base ${m.base}, this release of ${base}`,
+      hint: 'name the site of an earlier release of the same concordance',
+    });
   const ownDocs: string[] = [];
   const walk = (rel: string) => {
     for (const e of readdirSync(path.join(dir, rel), { withFileTypes: true })) {
@@ -36,7 +43,11 @@ export function readEarlierSite(dir: string, base: string): EarlierSite {
 
 const place = (from: string, to: string) => {
   mkdirSync(path.dirname(to), { recursive: true });
-  try { linkSync(from, to); } catch { copyFileSync(from, to); }
+  try {
+    linkSync(from, to);
+  } catch {
+    copyFileSync(from, to);
+  }
 };
 
 /** Copies the earlier site's own documents missing from the new site, and its downloads; returns the paths copied. */
@@ -45,7 +56,9 @@ export function carryDocuments(e: EarlierSite, out: string): string[] {
   for (const doc of e.ownDocs) {
     const to = path.join(out, ...doc.split('/'));
     if (existsSync(`${to}.ttl`)) continue;
-    for (const ext of DOC_EXTS) if (existsSync(path.join(e.dir, ...doc.split('/')) + ext)) place(path.join(e.dir, ...doc.split('/')) + ext, to + ext);
+    for (const ext of DOC_EXTS)
+      if (existsSync(path.join(e.dir, ...doc.split('/')) + ext))
+        place(path.join(e.dir, ...doc.split('/')) + ext, to + ext);
     carried.push(doc);
   }
   const walk = (rel: string) => {
@@ -64,19 +77,24 @@ export function* earlierLinks(e: EarlierSite, base: string): Generator<{ hash: s
   const folder = ROUTES.find((r) => r.kind === 'link')!.shardFolder!;
   const dir = path.join(e.dir, folder);
   if (!existsSync(dir)) return;
-  for (const name of readdirSync(dir).filter((n) => n.endsWith('.ttl')).sort()) {
+  for (const name of readdirSync(dir)
+    .filter((n) => n.endsWith('.ttl'))
+    .sort()) {
     const file = path.join(dir, name);
     const byHash = new Map<string, Statement[]>();
-    readFileSync(file, 'utf8').split('\n').forEach((line, i) => {
-      const st = parseLine(line, file, i + 1);
-      if (!st) return;
-      const rel = relPath(st.s, base);
-      const route = rel === null ? null : routeOf(rel);
-      const hash = route?.kind === 'link' ? route.key : [...byHash.keys()].pop();
-      if (!hash) return;
-      const l = byHash.get(hash);
-      if (l) l.push(st); else byHash.set(hash, [st]);
-    });
+    readFileSync(file, 'utf8')
+      .split('\n')
+      .forEach((line, i) => {
+        const st = parseLine(line, file, i + 1);
+        if (!st) return;
+        const rel = relPath(st.s, base);
+        const route = rel === null ? null : routeOf(rel);
+        const hash = route?.kind === 'link' ? route.key : [...byHash.keys()].pop();
+        if (!hash) return;
+        const l = byHash.get(hash);
+        if (l) l.push(st);
+        else byHash.set(hash, [st]);
+      });
     for (const [hash, statements] of byHash) yield { hash, statements };
   }
 }

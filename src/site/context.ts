@@ -8,18 +8,50 @@ import { rootOf } from './html.js';
 import { CONTEXT } from './jsonld.js';
 
 export const V = {
-  type: iri('rdf', 'type'), label: iri('rdfs', 'label'), title: iri('dcterms', 'title'), date: iri('dcterms', 'date'),
-  member: iri('cx', 'member'), partner: iri('cx', 'partner'), dateAsCatalogued: iri('cx', 'dateAsCatalogued'), page: iri('foaf', 'page'),
-  inDataset: iri('void', 'inDataset'), subjectWork: iri('cx', 'subjectWork'), objectWork: iri('cx', 'objectWork'), relation: iri('cx', 'relation'),
-  kind: iri('cx', 'kind'), status: iri('cx', 'status'), score: iri('cx', 'score'), support: iri('cx', 'support'),
-  derivedFrom: iri('prov', 'wasDerivedFrom'), generatedBy: iri('prov', 'wasGeneratedBy'), attributedTo: iri('prov', 'wasAttributedTo'),
-  associatedWith: iri('prov', 'wasAssociatedWith'), startedAt: iri('prov', 'startedAtTime'), endedAt: iri('prov', 'endedAtTime'),
-  invalidatedBy: iri('prov', 'wasInvalidatedBy'), invalidatedAt: iri('prov', 'invalidatedAtTime'), revisionOf: iri('prov', 'wasRevisionOf'),
-  isVersionOf: iri('dcterms', 'isVersionOf'), replacedBy: iri('dcterms', 'isReplacedBy'), deprecated: iri('owl', 'deprecated'),
-  sourceImage: iri('cx', 'sourceImage'), targetImage: iri('cx', 'targetImage'), overlap: iri('cx', 'overlap'), verdict: iri('cx', 'verdict'),
-  note: iri('cx', 'note'), workA: iri('cx', 'workA'), workB: iri('cx', 'workB'), severity: iri('cx', 'severity'), versionInfo: iri('owl', 'versionInfo'),
-  hasDateConflict: iri('cx', 'hasDateConflict'), impliedPair: iri('cx', 'impliedPair'), throughThird: iri('cx', 'throughThirdArchive'),
-  memberCount: iri('cx', 'memberCount'), bridge: iri('cx', 'bridge'), Cluster: iri('cx', 'Cluster'), Link: iri('cx', 'Link'),
+  type: iri('rdf', 'type'),
+  label: iri('rdfs', 'label'),
+  title: iri('dcterms', 'title'),
+  date: iri('dcterms', 'date'),
+  member: iri('cx', 'member'),
+  partner: iri('cx', 'partner'),
+  dateAsCatalogued: iri('cx', 'dateAsCatalogued'),
+  page: iri('foaf', 'page'),
+  inDataset: iri('void', 'inDataset'),
+  subjectWork: iri('cx', 'subjectWork'),
+  objectWork: iri('cx', 'objectWork'),
+  relation: iri('cx', 'relation'),
+  kind: iri('cx', 'kind'),
+  status: iri('cx', 'status'),
+  score: iri('cx', 'score'),
+  support: iri('cx', 'support'),
+  derivedFrom: iri('prov', 'wasDerivedFrom'),
+  generatedBy: iri('prov', 'wasGeneratedBy'),
+  attributedTo: iri('prov', 'wasAttributedTo'),
+  associatedWith: iri('prov', 'wasAssociatedWith'),
+  startedAt: iri('prov', 'startedAtTime'),
+  endedAt: iri('prov', 'endedAtTime'),
+  invalidatedBy: iri('prov', 'wasInvalidatedBy'),
+  invalidatedAt: iri('prov', 'invalidatedAtTime'),
+  revisionOf: iri('prov', 'wasRevisionOf'),
+  isVersionOf: iri('dcterms', 'isVersionOf'),
+  replacedBy: iri('dcterms', 'isReplacedBy'),
+  deprecated: iri('owl', 'deprecated'),
+  sourceImage: iri('cx', 'sourceImage'),
+  targetImage: iri('cx', 'targetImage'),
+  overlap: iri('cx', 'overlap'),
+  verdict: iri('cx', 'verdict'),
+  note: iri('cx', 'note'),
+  workA: iri('cx', 'workA'),
+  workB: iri('cx', 'workB'),
+  severity: iri('cx', 'severity'),
+  versionInfo: iri('owl', 'versionInfo'),
+  hasDateConflict: iri('cx', 'hasDateConflict'),
+  impliedPair: iri('cx', 'impliedPair'),
+  throughThird: iri('cx', 'throughThirdArchive'),
+  memberCount: iri('cx', 'memberCount'),
+  bridge: iri('cx', 'bridge'),
+  Cluster: iri('cx', 'Cluster'),
+  Link: iri('cx', 'Link'),
 } as const;
 
 /** Statements of one subject, by predicate. */
@@ -28,7 +60,8 @@ export class Node {
   constructor(readonly iri: string) {}
   add(st: Statement): void {
     const v = this.by.get(st.p);
-    if (v) v.push(st); else this.by.set(st.p, [st]);
+    if (v) v.push(st);
+    else this.by.set(st.p, [st]);
   }
   all = (p: string): string[] => (this.by.get(p) ?? []).map((s) => s.o.value);
   one = (p: string): string | undefined => this.by.get(p)?.[0]?.o.value;
@@ -73,7 +106,9 @@ export class SiteContext {
     return { doc, fragment: doc === rel ? '' : rel };
   }
 
-  /** A link from the page of `fromDoc` to the HTML document describing `x` (the IRI itself when it is not minted here). */
+  /**
+   * A link from the page of `fromDoc` to the HTML document describing `x` (the IRI itself when it is not minted here).
+   */
   href(x: string, fromDoc: string): string {
     const at = this.locate(x);
     if (!at || !this.hasDoc(x)) return x;

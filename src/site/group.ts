@@ -37,9 +37,18 @@ export interface GroupSink {
 const MEMBER = iri('cx', 'member');
 const SUBJECT_WORK = iri('cx', 'subjectWork');
 /** Predicates whose outside object is then described in the same document as the subject. */
-const OWNING = new Set([MEMBER, SUBJECT_WORK, iri('cx', 'objectWork'), iri('cx', 'workA'), iri('cx', 'workB'), iri('prov', 'wasAssociatedWith'), iri('prov', 'wasAttributedTo')]);
+const OWNING = new Set([
+  MEMBER,
+  SUBJECT_WORK,
+  iri('cx', 'objectWork'),
+  iri('cx', 'workA'),
+  iri('cx', 'workB'),
+  iri('prov', 'wasAssociatedWith'),
+  iri('prov', 'wasAttributedTo'),
+]);
 
-type Target = { t: 'cluster' } | { t: 'link'; e: LinkEntry } | { t: 'entry'; e: Entry } | { t: 'own'; doc: string; kind: DocKind };
+type Target =
+  { t: 'cluster' } | { t: 'link'; e: LinkEntry } | { t: 'entry'; e: Entry } | { t: 'own'; doc: string; kind: DocKind };
 
 /**
  * Groups a release's statements as the RDF stage writes them: a unit per cluster (the cluster, its pair nodes, its
@@ -56,7 +65,10 @@ export class Grouper {
   private refs = new Map<string, Target>();
   /** A review or match outside any link, handed on when the next resource starts. */
   private loose: Entry | null = null;
-  constructor(private readonly base: string, private readonly sink: GroupSink) {}
+  constructor(
+    private readonly base: string,
+    private readonly sink: GroupSink,
+  ) {}
 
   push(st: Statement): void {
     const rel = relPath(st.s, this.base);
@@ -64,7 +76,11 @@ export class Grouper {
     if (!route) {
       let to = this.refs.get(st.s) ?? (this.cluster?.members.has(st.s) ? ({ t: 'cluster' } as Target) : undefined);
       // an entry already handed on cannot take more statements: the statement waits for the next document
-      if (to && ((to.t === 'link' && to.e !== this.link) || (to.t === 'entry' && to.e !== this.loose && to.e !== this.match))) to = undefined;
+      if (
+        to &&
+        ((to.t === 'link' && to.e !== this.link) || (to.t === 'entry' && to.e !== this.loose && to.e !== this.match))
+      )
+        to = undefined;
       if (to) this.add(to, st);
       else this.pending.push(st);
       return;
@@ -84,7 +100,13 @@ export class Grouper {
       case 'link': {
         if (this.link?.hash !== route.key) {
           this.closeLink();
-          this.link = { kind: 'link', hash: route.key, iri: `${this.base}link/${route.key}`, statements: [], matches: [] };
+          this.link = {
+            kind: 'link',
+            hash: route.key,
+            iri: `${this.base}link/${route.key}`,
+            statements: [],
+            matches: [],
+          };
         }
         this.match = null;
         to = { t: 'link', e: this.link };
@@ -97,8 +119,15 @@ export class Grouper {
         if (e?.hash !== route.key) {
           this.closeEntry();
           e = { kind: k, hash: route.key, iri: st.s, statements: [] };
-          if (k === 'review') { this.closeLink(); this.review = e; this.loose = e; }
-          else { this.match = e; if (this.link) this.link.matches.push(e); else this.loose = e; }
+          if (k === 'review') {
+            this.closeLink();
+            this.review = e;
+            this.loose = e;
+          } else {
+            this.match = e;
+            if (this.link) this.link.matches.push(e);
+            else this.loose = e;
+          }
         }
         to = { t: 'entry', e };
         break;
@@ -138,7 +167,8 @@ export class Grouper {
     this.link = null;
     this.match = null;
     const c = this.cluster;
-    const inside = c !== null && l.statements.some((s) => s.p === SUBJECT_WORK && s.o.kind === 'iri' && c.members.has(s.o.value));
+    const inside =
+      c !== null && l.statements.some((s) => s.p === SUBJECT_WORK && s.o.kind === 'iri' && c.members.has(s.o.value));
     if (inside) c.links.push(l);
     else this.sink.strayLink(l);
   }
@@ -151,7 +181,10 @@ export class Grouper {
     this.sink.cluster(unit);
   }
 
-  /** Flushes what is still open; statements no document took go to the last document (there is none in a release we write). */
+  /**
+   * Flushes what is still open; statements no document took go to the last document (there is none in a release we
+   * write).
+   */
   end(): Statement[] {
     this.closeEntry();
     this.closeCluster();

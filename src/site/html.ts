@@ -3,7 +3,9 @@
 /** Text already made safe HTML (only produced by `html` and the helpers below). */
 export class Safe {
   constructor(readonly text: string) {}
-  toString(): string { return this.text; }
+  toString(): string {
+    return this.text;
+  }
 }
 type Part = Safe | string | number | undefined | null | false | readonly Part[];
 
@@ -18,7 +20,9 @@ function part(p: Part): string {
   return esc(String(p));
 }
 
-/** Tagged template: `html\`<p>${title}</p>\`` escapes `title`; nested `html` results and arrays of them pass through. */
+/**
+ * Tagged template: `html\`<p>${title}</p>\`` escapes `title`; nested `html` results and arrays of them pass through.
+ */
 export function html(strings: TemplateStringsArray, ...values: Part[]): Safe {
   let out = strings[0];
   for (let i = 0; i < values.length; i++) out += part(values[i]) + strings[i + 1];
@@ -26,7 +30,8 @@ export function html(strings: TemplateStringsArray, ...values: Part[]): Safe {
 }
 
 /** Text from outside (titles, IDs) in a bidi-isolated span so right-to-left marks cannot reorder the page around it. */
-export const text = (s: string | undefined) => (s === undefined ? html`<span class="none">none</span>` : html`<bdi>${s}</bdi>`);
+export const text = (s: string | undefined) =>
+  s === undefined ? html`<span class="none">none</span>` : html`<bdi>${s}</bdi>`;
 
 /** Alternate representations of a page's document, named in `<link rel="alternate">` (HTML §4.6.7.1). */
 export const ALTERNATES: readonly { ext: string; type: string; label: string }[] = [
@@ -40,7 +45,10 @@ export interface PageInput {
   doc: string;
   title: string;
   siteTitle: string;
-  /** Whether the document has RDF alternates (false for index, search and vocabulary pages that are not documents of the release). */
+  /**
+   * Whether the document has RDF alternates (false for index, search and vocabulary pages that are not documents of the
+   * release).
+   */
   alternates: boolean;
   /** The thing the page is about, shown under the heading. */
   iri?: string;
@@ -66,8 +74,10 @@ export function page(p: PageInput): string {
 <title>${p.title} · ${p.siteTitle}</title>
 <link rel="stylesheet" href="${root}assets/site.css">
 <link rel="icon" href="${root}assets/icon.svg" type="image/svg+xml">
-${alts.map((a) => html`<link rel="alternate" type="${a.type}" href="${a.href}" title="${a.label}">
-`)}<script src="${root}assets/site.js" defer></script>
+${alts.map(
+  (a) => html`<link rel="alternate" type="${a.type}" href="${a.href}" title="${a.label}">
+`,
+)}<script src="${root}assets/site.js" defer></script>
 </head>
 <body>
 <a class="skip" href="#main">Skip to the content</a>

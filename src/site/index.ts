@@ -1,6 +1,16 @@
 // Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
-import { mkdirSync, writeFileSync, statSync, rmSync, linkSync, copyFileSync, readdirSync, chmodSync, existsSync } from 'node:fs';
+import {
+  mkdirSync,
+  writeFileSync,
+  statSync,
+  rmSync,
+  linkSync,
+  copyFileSync,
+  readdirSync,
+  chmodSync,
+  existsSync,
+} from 'node:fs';
 import path from 'node:path';
 import { writeFolderAtomically } from '../io/atomic.js';
 import { RELEASE_FILES } from '../rdf/formats.js';
@@ -35,7 +45,11 @@ export interface SiteSummary {
 
 /** Shard widths from the size of concordance.nq (bytes per link, match and review measured on generated releases). */
 export function widthsFor(nqBytes: number): ShardWidths {
-  return { link: shardWidth(nqBytes / 16_000), match: shardWidth(nqBytes / 2_500), review: shardWidth(nqBytes / 200_000) };
+  return {
+    link: shardWidth(nqBytes / 16_000),
+    match: shardWidth(nqBytes / 2_500),
+    review: shardWidth(nqBytes / 200_000),
+  };
 }
 
 /** Writes one document in its three forms: `.ttl` (N-Triples lines, which are Turtle too), `.jsonld`, `.html`. */
@@ -79,7 +93,12 @@ export async function writeSite(release: string, out: string, opts: { previous?:
     const spoolLink = (l: LinkEntry, cluster: string | null) => {
       const doc = shardDoc('link', l.hash);
       linkHashes.add(l.hash);
-      spool.add(`link-${l.hash.slice(0, 2)}`, [l.hash, ntOf(l.statements), jsonldNodes(l.statements), linkSection(ctx, l, doc, cluster)]);
+      spool.add(`link-${l.hash.slice(0, 2)}`, [
+        l.hash,
+        ntOf(l.statements),
+        jsonldNodes(l.statements),
+        linkSection(ctx, l, doc, cluster),
+      ]);
       for (const m of l.matches) spoolEntry(m, l.iri);
     };
     const spoolEntry = (e: Entry, link: string | null) => {
@@ -123,17 +142,36 @@ export async function writeSite(release: string, out: string, opts: { previous?:
       if (route?.kind === 'graph' && !own.has(route.key)) own.set(route.key, { kind: 'graph', statements: [] });
     }
     for (const [doc, d] of [...own].sort((a, b) => (a[0] < b[0] ? -1 : 1))) {
-      const extra = d.kind === 'dataset' && info.dataset === info.base + doc.split('/').map(encodeURIComponent).join('/') ? datasetSummary(ctx, doc) : undefined;
-      docs.write(doc, ntOf(d.statements), [jsonldNodes(d.statements)], genericPage(ctx, doc, d.kind, d.statements, extra));
+      const extra =
+        d.kind === 'dataset' && info.dataset === info.base + doc.split('/').map(encodeURIComponent).join('/')
+          ? datasetSummary(ctx, doc)
+          : undefined;
+      docs.write(
+        doc,
+        ntOf(d.statements),
+        [jsonldNodes(d.statements)],
+        genericPage(ctx, doc, d.kind, d.statements, extra),
+      );
     }
 
     // Claims of an earlier site that this release no longer describes: kept as that site described them.
     if (earlier) {
       for (const e of earlierLinks(earlier, info.base)) {
         if (linkHashes.has(e.hash)) continue;
-        const entry: LinkEntry = { kind: 'link', hash: e.hash, iri: `${info.base}link/${e.hash}`, statements: e.statements, matches: [] };
+        const entry: LinkEntry = {
+          kind: 'link',
+          hash: e.hash,
+          iri: `${info.base}link/${e.hash}`,
+          statements: e.statements,
+          matches: [],
+        };
         const note = `<p class="aside">This claim is not in release ${info.version}; it is shown as the site of release ${earlier.version} described it.</p>\n`;
-        spool.add(`link-${e.hash.slice(0, 2)}`, [e.hash, ntOf(e.statements), jsonldNodes(e.statements), linkSection(ctx, entry, shardDoc('link', e.hash), null).replace(/(<\/h2>\n)/, `$1${note}`)]);
+        spool.add(`link-${e.hash.slice(0, 2)}`, [
+          e.hash,
+          ntOf(e.statements),
+          jsonldNodes(e.statements),
+          linkSection(ctx, entry, shardDoc('link', e.hash), null).replace(/(<\/h2>\n)/, `$1${note}`),
+        ]);
       }
       spool.close();
     }
@@ -148,15 +186,36 @@ export async function writeSite(release: string, out: string, opts: { previous?:
         const records = buckets.flatMap((b) => spool.read(`${kind}-${b}`)) as [string, string, string, string][];
         records.sort((a, b) => (a[0] < b[0] ? -1 : a[0] > b[0] ? 1 : 0));
         const shards = new Map<string, typeof records>();
-        for (const r of records) { const key = r[0].slice(0, k); const s = shards.get(key); if (s) s.push(r); else shards.set(key, [r]); }
+        for (const r of records) {
+          const key = r[0].slice(0, k);
+          const s = shards.get(key);
+          if (s) s.push(r);
+          else shards.set(key, [r]);
+        }
         for (const [key, rs] of shards) {
           const doc = `${rule.shardFolder}/${key}`;
           const label = kind === 'link' ? 'Claims' : kind === 'match' ? 'Image matches' : 'Curator reviews';
           const main = html`<p>${rs.length} ${label.toLowerCase()} whose identifier begins with <code>${key}</code>.</p>
-${kind === 'match' ? new Safe(MATCH_TABLE_HEAD + rs.map((r) => r[3]).join('') + MATCH_TABLE_TAIL) : html`<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
-${rs.map((r) => new Safe(r[3]))}`}`;
-          const text = page({ doc, title: `${label} ${key}…`, siteTitle: info.title, alternates: true, main: html`${main}`, licence: info.licence });
-          docs.write(doc, rs.map((r) => r[1]).join(''), rs.map((r) => r[2]), text);
+${
+  kind === 'match'
+    ? new Safe(MATCH_TABLE_HEAD + rs.map((r) => r[3]).join('') + MATCH_TABLE_TAIL)
+    : html`<nav aria-label="On this page"><ul class="toc">${rs.map((r) => html`<li><a href="#${rule.shardFolder}/${r[0]}">${r[0]}</a></li>`)}</ul></nav>
+${rs.map((r) => new Safe(r[3]))}`
+}`;
+          const text = page({
+            doc,
+            title: `${label} ${key}…`,
+            siteTitle: info.title,
+            alternates: true,
+            main: html`${main}`,
+            licence: info.licence,
+          });
+          docs.write(
+            doc,
+            rs.map((r) => r[1]).join(''),
+            rs.map((r) => r[2]),
+            text,
+          );
         }
       }
     }
@@ -168,28 +227,51 @@ ${rs.map((r) => new Safe(r[3]))}`}`;
       if (!f.file) continue;
       const target = path.join(downloads, ...f.file.split('/'));
       mkdirSync(path.dirname(target), { recursive: true });
-      try { linkSync(path.join(release, f.file), target); } catch { copyFileSync(path.join(release, f.file), target); }
+      try {
+        linkSync(path.join(release, f.file), target);
+      } catch {
+        copyFileSync(path.join(release, f.file), target);
+      }
     }
-    writeFileSync(path.join(dir, 'site.json'), JSON.stringify({ base: info.base, version: info.version, dataset: info.dataset, widths: ctx.widths }, null, 2) + '\n');
-    for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths))) writeFileSync(path.join(dir, name), body);
+    writeFileSync(
+      path.join(dir, 'site.json'),
+      JSON.stringify({ base: info.base, version: info.version, dataset: info.dataset, widths: ctx.widths }, null, 2) +
+        '\n',
+    );
+    for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths)))
+      writeFileSync(path.join(dir, name), body);
     rmSync(spoolDir, { recursive: true, force: true });
     // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700
     const mask = process.umask();
     chmodSync(dir, 0o755 & ~mask);
-    const all = measure(dir), dl = measure(path.join(dir, "releases"));
-    return { out: path.resolve(out), base: info.base, version: info.version, documents: docs.documents, files: all.files, bytes: all.bytes - dl.bytes, downloadBytes: dl.bytes, widths: ctx.widths };
+    const all = measure(dir),
+      dl = measure(path.join(dir, 'releases'));
+    return {
+      out: path.resolve(out),
+      base: info.base,
+      version: info.version,
+      documents: docs.documents,
+      files: all.files,
+      bytes: all.bytes - dl.bytes,
+      downloadBytes: dl.bytes,
+      widths: ctx.widths,
+    };
   });
 }
 
 /** Files and bytes under a folder (hard-linked downloads counted once each, as the file system stores them). */
 function measure(dir: string): { files: number; bytes: number } {
-  let files = 0, bytes = 0;
+  let files = 0,
+    bytes = 0;
   const walk = (d: string) => {
     if (!existsSync(d)) return;
     for (const e of readdirSync(d, { withFileTypes: true })) {
       const p = path.join(d, e.name);
       if (e.isDirectory()) walk(p);
-      else { files++; bytes += statSync(p).size; }
+      else {
+        files++;
+        bytes += statSync(p).size;
+      }
     }
   };
   walk(dir);

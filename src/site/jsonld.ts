@@ -10,7 +10,9 @@ const BY_LENGTH = PREFIXES.map((p) => [p, NS[p]] as const).sort((a, b) => b[1].l
 
 /** A property IRI as a compact IRI when a prefix covers it and the rest is a plain name, else the IRI itself. */
 function key(p: string): string {
-  for (const [name, ns] of BY_LENGTH) if (p.startsWith(ns) && /^[A-Za-z_][A-Za-z0-9_-]*$/.test(p.slice(ns.length))) return `${name}:${p.slice(ns.length)}`;
+  for (const [name, ns] of BY_LENGTH)
+    if (p.startsWith(ns) && /^[A-Za-z_][A-Za-z0-9_-]*$/.test(p.slice(ns.length)))
+      return `${name}:${p.slice(ns.length)}`;
   return p;
 }
 

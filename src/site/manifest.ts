@@ -4,11 +4,23 @@ import path from 'node:path';
 import { UserError } from '../errors.js';
 import type { ShardWidths } from './routes.js';
 
-export interface SiteManifest { base: string; version: string; dataset: string; widths: ShardWidths }
+export interface SiteManifest {
+  base: string;
+  version: string;
+  dataset: string;
+  widths: ShardWidths;
+}
 
 /** Reads site.json of a folder written by `concordat site`. */
 export function readManifest(site: string): SiteManifest {
   const f = path.join(site, 'site.json');
-  if (!existsSync(f)) throw new UserError({ file: site, line: 0, field: 'site', message: 'not a site folder (no site.json)', hint: 'name a folder written by concordat site' });
+  if (!existsSync(f))
+    throw new UserError({
+      file: site,
+      line: 0,
+      field: 'site',
+      message: 'not a site folder (no site.json)',
+      hint: 'name a folder written by concordat site',
+    });
   return JSON.parse(readFileSync(f, 'utf8')) as SiteManifest;
 }

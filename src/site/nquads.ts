@@ -1,4 +1,5 @@
-// Lines of a release's N-Quads file → parsed statements (subject, predicate, object term, the triple's own N-Triples text).
+// Lines of a release's N-Quads file → parsed statements (subject, predicate, object term, the triple's own N-Triples
+// text).
 import { createReadStream } from 'node:fs';
 import { UserError } from '../errors.js';
 
@@ -24,7 +25,8 @@ const ESC: Record<string, string> = { t: '\t', b: '\b', n: '\n', r: '\r', f: '\f
 export function unescapeNt(s: string): string {
   if (!s.includes('\\')) return s;
   return s.replace(/\\(?:u([0-9A-Fa-f]{4})|U([0-9A-Fa-f]{8})|(.))/g, (_, u4: string, u8: string, c: string) =>
-    u4 ? String.fromCharCode(parseInt(u4, 16)) : u8 ? String.fromCodePoint(parseInt(u8, 16)) : (ESC[c] ?? c));
+    u4 ? String.fromCharCode(parseInt(u4, 16)) : u8 ? String.fromCodePoint(parseInt(u8, 16)) : (ESC[c] ?? c),
+  );
 }
 
 /** End (exclusive) of the term starting at `i`, or -1 when the text there is no term. */
@@ -43,8 +45,12 @@ function termEnd(line: string, i: number): number {
   for (;;) {
     j = line.indexOf('"', j);
     if (j < 0) return -1;
-    let k = j - 1, bs = 0;
-    while (line.charCodeAt(k) === 92) { bs++; k--; }
+    let k = j - 1,
+      bs = 0;
+    while (line.charCodeAt(k) === 92) {
+      bs++;
+      k--;
+    }
     if (bs % 2 === 0) break;
     j++;
   }
@@ -74,11 +80,19 @@ function objectTerm(text: string): Term {
 
 /**
  * Parses one N-Quads line (RDF 1.1 N-Quads §2) as concordat writes them: one statement per line, single spaces
- * between terms. Returns null for a blank line; throws a UserError naming file and line for anything else it cannot read.
+ * between terms. Returns null for a blank line; throws a UserError naming file and line for anything else it cannot
+ * read.
  */
 export function parseLine(line: string, file: string, lineNo: number): Statement | null {
   if (line.length === 0 || line.charCodeAt(0) === 35 /* # */) return null;
-  const bad = (what: string) => new UserError({ file, line: lineNo, field: what, message: `not an N-Quads statement as concordat writes them`, hint: 'site reads concordance.nq of a release built by concordat' });
+  const bad = (what: string) =>
+    new UserError({
+      file,
+      line: lineNo,
+      field: what,
+      message: `not an N-Quads statement as concordat writes them`,
+      hint: 'site reads concordance.nq of a release built by concordat',
+    });
   const e1 = termEnd(line, 0);
   if (e1 < 0 || line.charCodeAt(0) !== 60) throw bad('subject');
   const e2 = termEnd(line, e1 + 1);
@@ -96,8 +110,14 @@ export function parseLine(line: string, file: string, lineNo: number): Statement
   };
 }
 
-/** Streams the statements of an N-Quads file in file order, 1 MiB at a time; `onStatement` may return a promise (back-pressure). */
-export async function streamNQuads(file: string, onStatement: (st: Statement) => void | Promise<void>): Promise<number> {
+/**
+ * Streams the statements of an N-Quads file in file order, 1 MiB at a time; `onStatement` may return a promise
+ * (back-pressure).
+ */
+export async function streamNQuads(
+  file: string,
+  onStatement: (st: Statement) => void | Promise<void>,
+): Promise<number> {
   let rest = '';
   let lineNo = 0;
   for await (const chunk of createReadStream(file, { encoding: 'utf8', highWaterMark: 1 << 20 })) {
@@ -109,14 +129,20 @@ export async function streamNQuads(file: string, onStatement: (st: Statement) =>
       lineNo++;
       const st = parseLine(text.slice(start, nl), file, lineNo);
       start = nl + 1;
-      if (st) { const r = onStatement(st); if (r) await r; }
+      if (st) {
+        const r = onStatement(st);
+        if (r) await r;
+      }
     }
     rest = text.slice(start);
   }
   if (rest.length) {
     lineNo++;
     const st = parseLine(rest, file, lineNo);
-    if (st) { const r = onStatement(st); if (r) await r; }
+    if (st) {
+      const r = onStatement(st);
+      if (r) await r;
+    }
   }
   return lineNo;
 }

@@ -2,17 +2,33 @@
 // site generator, the preview server and the generated web-server rules.
 
 /** What kind of thing a route names; sharded kinds are described in documents holding every hash with one prefix. */
-export type DocKind = 'cluster' | 'link' | 'match' | 'review' | 'run' | 'agent' | 'curator' | 'release' | 'partner' | 'publisher' | 'dataset' | 'graph';
+export type DocKind =
+  | 'cluster'
+  | 'link'
+  | 'match'
+  | 'review'
+  | 'run'
+  | 'agent'
+  | 'curator'
+  | 'release'
+  | 'partner'
+  | 'publisher'
+  | 'dataset'
+  | 'graph';
 
 export interface RouteRule {
   kind: DocKind;
-  /** Over the percent-decoded path after the base; group 1 is the document's own path (or the hash of a sharded kind). */
+  /**
+   * Over the percent-decoded path after the base; group 1 is the document's own path (or the hash of a sharded kind).
+   */
   pattern: string;
   /** Sharded kinds: the folder of the shard documents (`link` → `link/3f.html`). */
   shardFolder?: string;
 }
 
-/** A segment naming a document of its own: anything but a document's file name (`2027.1.html` is the page, not a thing). */
+/**
+ * A segment naming a document of its own: anything but a document's file name (`2027.1.html` is the page, not a thing).
+ */
 const NAME = '(?![^/]*\\.(?:html|ttl|jsonld|nt)$)[^/]+';
 
 /**
@@ -80,6 +96,11 @@ export function relPath(iri: string, base: string): string | null {
   if (/[?#]/.test(raw)) return null;
   let rel: string;
   if (!raw.includes('%')) rel = raw;
-  else try { rel = raw.split('/').map(decodeURIComponent).join('/'); } catch { return null; }
+  else
+    try {
+      rel = raw.split('/').map(decodeURIComponent).join('/');
+    } catch {
+      return null;
+    }
   return rel.split('/').every(safeSegment) ? rel : null;
 }

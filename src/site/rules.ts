@@ -2,9 +2,13 @@
 // chosen by Accept, documents and downloads served as files with their media types and the same headers as `serve`.
 import { ROUTES, type ShardWidths } from './routes.js';
 
-/** Response headers every page carries (the same as `concordat serve`). Content-Security-Policy Level 3; nosniff (Fetch §3.5). */
+/**
+ * Response headers every page carries (the same as `concordat serve`). Content-Security-Policy Level 3; nosniff (Fetch
+ * §3.5).
+ */
 export const SECURITY_HEADERS: Record<string, string> = {
-  'Content-Security-Policy': "default-src 'none'; script-src 'self'; style-src 'self'; img-src 'self'; connect-src 'self'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'",
+  'Content-Security-Policy':
+    "default-src 'none'; script-src 'self'; style-src 'self'; img-src 'self'; connect-src 'self'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'",
   'X-Content-Type-Options': 'nosniff',
   'Referrer-Policy': 'no-referrer',
   'Cross-Origin-Resource-Policy': 'same-origin',
@@ -16,7 +20,9 @@ export const CACHE = { document: 'public, max-age=3600', redirect: 'public, max-
  * One regex per route kind over the path after the base: group 1 (`rel`) the whole relative path, group 2 (`doc`)
  * the document part; `named` uses named groups, because nginx's map with regexes resets numbered captures.
  */
-export function routePatterns(widths: ShardWidths): { kind: string; regex: string; named: string; doc: string; namedDoc: string; fragment: boolean }[] {
+export function routePatterns(
+  widths: ShardWidths,
+): { kind: string; regex: string; named: string; doc: string; namedDoc: string; fragment: boolean }[] {
   return ROUTES.map((r) => {
     let regex: string, named: string, doc: string, namedDoc: string;
     if (r.shardFolder) {
@@ -38,7 +44,9 @@ export function routePatterns(widths: ShardWidths): { kind: string; regex: strin
 }
 
 const nginxHeaders = (extra: Record<string, string>) =>
-  Object.entries({ ...SECURITY_HEADERS, ...extra }).map(([k, v]) => `    add_header ${k} "${v.replace(/"/g, '\\"')}" always;`).join('\n');
+  Object.entries({ ...SECURITY_HEADERS, ...extra })
+    .map(([k, v]) => `    add_header ${k} "${v.replace(/"/g, '\\"')}" always;`)
+    .join('\n');
 
 /** nginx: a map for the http block and locations for the server block (nginx 1.22, Debian bookworm). */
 function nginx(base: string, widths: ShardWidths): Record<string, string> {
@@ -55,11 +63,15 @@ map $http_accept $concordat_ext {
     "~*application/json" jsonld;
 }
 `;
-  const redirects = routePatterns(widths).map((r) => `    # ${r.kind}
+  const redirects = routePatterns(widths)
+    .map(
+      (r) => `    # ${r.kind}
     location ~ "^${P}${r.named.slice(1)}" {
         return 303 ${P}${r.namedDoc}.$concordat_ext${r.fragment ? '#$rel' : ''};
 ${nginxHeaders({ Vary: 'Accept', 'Cache-Control': CACHE.redirect })}
-    }`).join('\n');
+    }`,
+    )
+    .join('\n');
   const server = `# concordat site rules for ${base}: include in a server { } block whose root holds this folder at ${P}.
 # Minted IRIs answer 303 See Other to their document (W3C "Cool URIs for the Semantic Web" §4.3), chosen by Accept;
 # documents answer 200 as files: .html, .ttl (N-Triples lines, also valid Turtle), .jsonld, and .nt (the .ttl file
@@ -94,7 +106,10 @@ ${nginxHeaders({ 'Cache-Control': CACHE.document })}
 /** Apache httpd 2.4 (mod_rewrite, mod_headers, mod_mime): a .htaccess-style file for the site folder. */
 function apache(base: string, widths: ShardWidths): string {
   const P = new URL(base).pathname;
-  const h = (extra: Record<string, string>, cond = '') => Object.entries({ ...SECURITY_HEADERS, ...extra }).map(([k, v]) => `Header always set ${k} "${v.replace(/"/g, '\\"')}"${cond}`).join('\n');
+  const h = (extra: Record<string, string>, cond = '') =>
+    Object.entries({ ...SECURITY_HEADERS, ...extra })
+      .map(([k, v]) => `Header always set ${k} "${v.replace(/"/g, '\\"')}"${cond}`)
+      .join('\n');
   return `# concordat site rules for ${base} (Apache httpd 2.4): put in the site folder as .htaccess (AllowOverride All), or
 # inside its <Directory>. Needs mod_rewrite, mod_headers, mod_mime. Minted IRIs → 303 See Other to their document by Accept.
 AddType text/turtle .ttl
@@ -118,7 +133,12 @@ RewriteCond %{HTTP_ACCEPT} application/n-triples [NC]
 RewriteRule ^ - [E=CONCORDAT_EXT:nt]
 RewriteCond %{HTTP_ACCEPT} text/turtle [NC]
 RewriteRule ^ - [E=CONCORDAT_EXT:ttl]
-${routePatterns(widths).map((r) => `# ${r.kind}\nRewriteRule "${r.regex}" "${P}${r.doc}.%{ENV:CONCORDAT_EXT}${r.fragment ? '#$1' : ''}" [R=303,NE,L]`).join('\n')}
+${routePatterns(widths)
+  .map(
+    (r) =>
+      `# ${r.kind}\nRewriteRule "${r.regex}" "${P}${r.doc}.%{ENV:CONCORDAT_EXT}${r.fragment ? '#$1' : ''}" [R=303,NE,L]`,
+  )
+  .join('\n')}
 `;
 }
 

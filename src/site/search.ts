@@ -10,16 +10,26 @@ import { workView } from './pages/parts.js';
 /** Records listed per token; a query narrows by more words (common practice, no source). */
 export const MAX_POSTINGS = 200;
 
-/** Lower-case words without diacritics, split on anything but letters and digits (the same code runs in the browser). */
+/**
+ * Lower-case words without diacritics, split on anything but letters and digits (the same code runs in the browser).
+ */
 export function tokens(s: string): string[] {
-  return s.normalize('NFKD').replace(/\p{M}/gu, '').toLowerCase().split(/[^\p{L}\p{N}]+/u).filter((t) => t.length >= 2);
+  return s
+    .normalize('NFKD')
+    .replace(/\p{M}/gu, '')
+    .toLowerCase()
+    .split(/[^\p{L}\p{N}]+/u)
+    .filter((t) => t.length >= 2);
 }
 
 /** Prefix file name of a token: its first two characters, anything outside a–z and 0–9 as `_`. */
 export const shardOf = (t: string) => t.slice(0, 2).replace(/[^a-z0-9]/g, '_');
 
 export class SearchIndex {
-  constructor(private readonly spool: Spool, private readonly ctx: SiteContext) {}
+  constructor(
+    private readonly spool: Spool,
+    private readonly ctx: SiteContext,
+  ) {}
 
   /** Postings for every partner work described in `statements`: ID and title words → (ID, title, archive, page). */
   addWorks(statements: readonly Statement[], doc: string, fragment: string): void {
@@ -48,7 +58,8 @@ export class SearchIndex {
         let m = shards.get(key);
         if (!m) shards.set(key, (m = new Map()));
         const list = m.get(t);
-        if (list) list.push(rest); else m.set(t, [rest]);
+        if (list) list.push(rest);
+        else m.set(t, [rest]);
       }
       for (const [key, m] of shards) {
         const obj: Record<string, { n: number; r: string[][] }> = {};

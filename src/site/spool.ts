@@ -10,7 +10,9 @@ export class Spool {
   private fds = new Map<string, number>();
   private bufs = new Map<string, string[]>();
   private sizes = new Map<string, number>();
-  constructor(private readonly dir: string) { mkdirSync(dir, { recursive: true }); }
+  constructor(private readonly dir: string) {
+    mkdirSync(dir, { recursive: true });
+  }
 
   add(bucket: string, record: unknown[]): void {
     const line = JSON.stringify(record) + '\n';
@@ -18,14 +20,18 @@ export class Spool {
     if (!b) this.bufs.set(bucket, (b = []));
     b.push(line);
     const size = (this.sizes.get(bucket) ?? 0) + line.length;
-    if (size >= FLUSH) this.flush(bucket); else this.sizes.set(bucket, size);
+    if (size >= FLUSH) this.flush(bucket);
+    else this.sizes.set(bucket, size);
   }
 
   private flush(bucket: string): void {
     const b = this.bufs.get(bucket);
     if (!b?.length) return;
     let fd = this.fds.get(bucket);
-    if (fd === undefined) { fd = openSync(path.join(this.dir, bucket), 'a'); this.fds.set(bucket, fd); }
+    if (fd === undefined) {
+      fd = openSync(path.join(this.dir, bucket), 'a');
+      this.fds.set(bucket, fd);
+    }
     writeSync(fd, b.join(''));
     this.bufs.set(bucket, []);
     this.sizes.set(bucket, 0);
@@ -42,6 +48,9 @@ export class Spool {
   read(bucket: string): unknown[][] {
     const f = path.join(this.dir, bucket);
     if (!existsSync(f)) return [];
-    return readFileSync(f, 'utf8').split('\n').filter((l) => l.length).map((l) => JSON.parse(l) as unknown[]);
+    return readFileSync(f, 'utf8')
+      .split('\n')
+      .filter((l) => l.length)
+      .map((l) => JSON.parse(l) as unknown[]);
   }
 }

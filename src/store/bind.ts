@@ -17,6 +17,7 @@ const DECL = /^#\s*param\s+([A-Za-z_][A-Za-z0-9_]*)\s*:\s*([A-Za-z]+)\s*(.*)$/;
 const IRIREF = /<[^<>"{}|^`\\\u0000-\u0020]*>/y;
 const NOT_IN_IRIREF = /[<>"{}|^`\\\u0000-\u0020]/;
 const ABSOLUTE = /^[A-Za-z][A-Za-z0-9+.-]*:/; // RFC 3987 §2.2 scheme ":" …
+// eslint-disable-next-line no-misleading-character-class -- combining marks belong to VARNAME on their own
 const VARNAME = /[\p{L}\p{N}_\u00B7\u0300-\u036F\u203F-\u2040]/u; // §19.8 [166] VARNAME, simplified to letter classes
 // §19.8 [146] INTEGER, [147] DECIMAL (signed forms [149]–[151])
 const INTEGER = /^[+-]?[0-9]+$/;
@@ -35,26 +36,50 @@ export function declaredParams(query: string): ParamDecl[] {
     const m = DECL.exec(line);
     if (!m) continue;
     const type = m[2].toLowerCase();
-    if (!(type in RENDER)) throw bad(m[1], `unknown parameter type "${m[2]}" in the query header`, `use one of ${Object.keys(RENDER).join(', ')}`);
+    if (!(type in RENDER))
+      throw bad(
+        m[1],
+        `unknown parameter type "${m[2]}" in the query header`,
+        `use one of ${Object.keys(RENDER).join(', ')}`,
+      );
     out.push({ name: m[1], type: type as ParamType, doc: m[3].trim() });
   }
   return out;
 }
 
-/** An absolute IRI as a SPARQL IRIREF (§19.8 [139]); refuses characters IRIREF cannot hold instead of guessing an encoding. */
+/**
+ * An absolute IRI as a SPARQL IRIREF (§19.8 [139]); refuses characters IRIREF cannot hold instead of guessing an
+ * encoding.
+ */
 export function sparqlIri(value: string, field = 'iri'): string {
   const m = NOT_IN_IRIREF.exec(value);
   if (m) {
-    const shown = m[0].charCodeAt(0) <= 0x20 ? `U+${m[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}` : `"${m[0]}"`;
-    throw bad(field, `the IRI contains ${shown}, which an IRI cannot hold`, 'percent-encode it (a space is %20) or check the value');
+    const shown =
+      m[0].charCodeAt(0) <= 0x20 ? `U+${m[0].charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}` : `"${m[0]}"`;
+    throw bad(
+      field,
+      `the IRI contains ${shown}, which an IRI cannot hold`,
+      'percent-encode it (a space is %20) or check the value',
+    );
   }
-  if (!ABSOLUTE.test(value)) throw bad(field, `"${value}" is not an absolute IRI`, 'give the full IRI, starting with its scheme such as https:');
+  if (!ABSOLUTE.test(value))
+    throw bad(field, `"${value}" is not an absolute IRI`, 'give the full IRI, starting with its scheme such as https:');
   return `<${value}>`;
 }
 
-const ECHAR: Record<string, string> = { '\\': '\\\\', '"': '\\"', '\n': '\\n', '\r': '\\r', '\t': '\\t', '\b': '\\b', '\f': '\\f' };
+const ECHAR: Record<string, string> = {
+  '\\': '\\\\',
+  '"': '\\"',
+  '\n': '\\n',
+  '\r': '\\r',
+  '\t': '\\t',
+  '\b': '\\b',
+  '\f': '\\f',
+};
 
-/** A string as a SPARQL STRING_LITERAL_QUOTE (§19.8 [156]), escaping with ECHAR ([160]) what that production excludes. */
+/**
+ * A string as a SPARQL STRING_LITERAL_QUOTE (§19.8 [156]), escaping with ECHAR ([160]) what that production excludes.
+ */
 export function sparqlString(value: string): string {
   return `"${value.replace(/[\\"\n\r\t\b\f]/g, (c) => ECHAR[c])}"`;
 }
@@ -98,7 +123,8 @@ export function rewriteVariables(query: string, onVar: (name: string) => string 
     } else if (c === '"' || c === "'") {
       const long = query.startsWith(c.repeat(3), i);
       j = long ? i + 3 : i + 1;
-      while (j < n && !(long ? query.startsWith(c.repeat(3), j) : query[j] === c || query[j] === '\n')) j += query[j] === '\\' ? 2 : 1;
+      while (j < n && !(long ? query.startsWith(c.repeat(3), j) : query[j] === c || query[j] === '\n'))
+        j += query[j] === '\\' ? 2 : 1;
       j = Math.min(n, j + (long ? 3 : 1));
     } else if (c === '<') {
       IRIREF.lastIndex = i;
@@ -106,7 +132,11 @@ export function rewriteVariables(query: string, onVar: (name: string) => string 
     } else if ((c === '?' || c === '$') && VARNAME.test(query[i + 1] ?? '')) {
       while (j < n && VARNAME.test(query[j])) j++;
       const replaced = onVar(query.slice(i + 1, j));
-      if (replaced !== undefined) { out += replaced; i = j; continue; }
+      if (replaced !== undefined) {
+        out += replaced;
+        i = j;
+        continue;
+      }
     }
     out += query.slice(i, j);
     i = j;
@@ -121,7 +151,12 @@ export function bindParams(query: string, values: Record<string, string>): strin
   for (const name of Object.keys(values))
     if (!decls.has(name)) throw bad(name, `the query declares no parameter "${name}"`, `its parameters: ${known}`);
   for (const d of decls.values())
-    if (!(d.name in values)) throw bad(d.name, `missing value for parameter "${d.name}" (${d.type})`, `add --param ${d.name}=<${d.type}>${d.doc ? `: ${d.doc}` : ''}`);
+    if (!(d.name in values))
+      throw bad(
+        d.name,
+        `missing value for parameter "${d.name}" (${d.type})`,
+        `add --param ${d.name}=<${d.type}>${d.doc ? `: ${d.doc}` : ''}`,
+      );
   const rendered = new Map([...decls.values()].map((d) => [d.name, renderParam(d, values[d.name])]));
   return rewriteVariables(query, (name) => rendered.get(name));
 }
@@ -132,16 +167,27 @@ export type QueryForm = (typeof FORMS)[number];
 
 /** Finds the query form keyword after the prologue; update requests and unknown text are user errors. */
 export function queryForm(query: string): QueryForm {
-  const m = /\b(SELECT|ASK|CONSTRUCT|DESCRIBE|INSERT|DELETE|LOAD|CLEAR|DROP|CREATE|ADD|MOVE|COPY|WITH)\b/i.exec(stripNonCode(query));
+  const m = /\b(SELECT|ASK|CONSTRUCT|DESCRIBE|INSERT|DELETE|LOAD|CLEAR|DROP|CREATE|ADD|MOVE|COPY|WITH)\b/i.exec(
+    stripNonCode(query),
+  );
   const first = m ? m[1].toUpperCase() : '';
   if ((FORMS as readonly string[]).includes(first)) return first as QueryForm;
   throw new UserError(
-    { file: 'query', line: 0, field: '', message: first ? `${first} is an update, not a query` : 'no SELECT, ASK, CONSTRUCT or DESCRIBE found', hint: 'concordat query runs read-only queries; use concordat load to change a store' },
+    {
+      file: 'query',
+      line: 0,
+      field: '',
+      message: first ? `${first} is an update, not a query` : 'no SELECT, ASK, CONSTRUCT or DESCRIBE found',
+      hint: 'concordat query runs read-only queries; use concordat load to change a store',
+    },
     EXIT.badInput,
   );
 }
 
 /** The query with comments, strings and IRIs blanked, so keywords inside them are not seen. */
 function stripNonCode(query: string): string {
-  return query.replace(/#[^\n]*|"""[\s\S]*?"""|'''[\s\S]*?'''|"(?:[^"\\\n]|\\.)*"|'(?:[^'\\\n]|\\.)*'|<[^<>"{}|^`\\\u0000-\u0020]*>/g, ' ');
+  return query.replace(
+    /#[^\n]*|"""[\s\S]*?"""|'''[\s\S]*?'''|"(?:[^"\\\n]|\\.)*"|'(?:[^'\\\n]|\\.)*'|<[^<>"{}|^`\\\u0000-\u0020]*>/g,
+    ' ',
+  );
 }

@@ -8,7 +8,9 @@ import { unfinishedFolder } from '../io/atomic.js';
 import { describeOwner } from '../util/owner.js';
 
 export const CHECKSUMS = 'SHA256SUMS';
-/** One line of `sha256sum` output in text mode: 64 hex digits, two spaces, the path (GNU coreutils manual, "sha256sum"). */
+/**
+ * One line of `sha256sum` output in text mode: 64 hex digits, two spaces, the path (GNU coreutils manual, "sha256sum").
+ */
 const LINE = /^([0-9a-f]{64}) [ *](.+)$/;
 
 async function sha256Of(file: string): Promise<string> {
@@ -23,11 +25,24 @@ async function sha256Of(file: string): Promise<string> {
  * Returns the listed paths. Every file is read once (I/O bound: about as long as reading the release).
  */
 export async function verifyRelease(folder: string, needed: string[]): Promise<string[]> {
-  const bad = (file: string, line: number, message: string, hint: string): UserError => new UserError({ file, line, field: '', message, hint }, EXIT.badInput);
+  const bad = (file: string, line: number, message: string, hint: string): UserError =>
+    new UserError({ file, line, field: '', message, hint }, EXIT.badInput);
   const owner = unfinishedFolder(folder);
-  if (owner) throw bad(folder, 0, `is the unfinished folder of ${describeOwner(owner)}, not a release`, 'load the folder the build renamed it to; a stopped build leaves no release');
+  if (owner)
+    throw bad(
+      folder,
+      0,
+      `is the unfinished folder of ${describeOwner(owner)}, not a release`,
+      'load the folder the build renamed it to; a stopped build leaves no release',
+    );
   const sums = path.join(folder, CHECKSUMS);
-  if (!existsSync(sums)) throw bad(sums, 0, `is missing, so ${folder} is not a complete release`, 'load a folder written by concordat build (it ends with SHA256SUMS)');
+  if (!existsSync(sums))
+    throw bad(
+      sums,
+      0,
+      `is missing, so ${folder} is not a complete release`,
+      'load a folder written by concordat build (it ends with SHA256SUMS)',
+    );
   const text = await readFile(sums, 'utf8');
   const listed: string[] = [];
   const lines = text.split('\n');
@@ -35,13 +50,32 @@ export async function verifyRelease(folder: string, needed: string[]): Promise<s
     if (lines[i] === '' && i === lines.length - 1) break;
     const m = LINE.exec(lines[i]);
     const rel = m?.[2] ?? '';
-    if (!m || path.isAbsolute(rel) || rel.split('/').includes('..')) throw bad(sums, i + 1, 'is not a "<sha256>  <path>" line inside the release', 'the release is damaged: build it again');
+    if (!m || path.isAbsolute(rel) || rel.split('/').includes('..'))
+      throw bad(
+        sums,
+        i + 1,
+        'is not a "<sha256>  <path>" line inside the release',
+        'the release is damaged: build it again',
+      );
     const file = path.join(folder, rel);
-    if (!existsSync(file)) throw bad(sums, i + 1, `lists ${rel}, which is missing`, 'the release is incomplete: build it again or copy it whole');
-    if ((await sha256Of(file)) !== m[1]) throw bad(file, 0, `SHA-256 differs from ${CHECKSUMS} line ${i + 1}`, 'the file was changed or cut short: build the release again or copy it whole');
+    if (!existsSync(file))
+      throw bad(
+        sums,
+        i + 1,
+        `lists ${rel}, which is missing`,
+        'the release is incomplete: build it again or copy it whole',
+      );
+    if ((await sha256Of(file)) !== m[1])
+      throw bad(
+        file,
+        0,
+        `SHA-256 differs from ${CHECKSUMS} line ${i + 1}`,
+        'the file was changed or cut short: build the release again or copy it whole',
+      );
     listed.push(rel);
   }
   for (const n of needed)
-    if (!listed.includes(n)) throw bad(sums, 0, `does not list ${n}`, 'the release is incomplete or was changed after it was built');
+    if (!listed.includes(n))
+      throw bad(sums, 0, `does not list ${n}`, 'the release is incomplete or was changed after it was built');
   return listed;
 }

@@ -5,7 +5,17 @@ import { join, relative, resolve } from 'node:path';
 import { Store as OxStore, namedNode } from 'oxigraph';
 import { UserError, EXIT } from '../errors.js';
 import { sparqlIri, queryForm } from './bind.js';
-import { ensureFolder, graphFileName, readManifest, removeStoreLeftovers, sha256, STORE_LOCK, writeAtomic, writeManifest, type Manifest } from './folder.js';
+import {
+  ensureFolder,
+  graphFileName,
+  readManifest,
+  removeStoreLeftovers,
+  sha256,
+  STORE_LOCK,
+  writeAtomic,
+  writeManifest,
+  type Manifest,
+} from './folder.js';
 import { takeLock, type Lock } from '../util/lock.js';
 import { displayPath } from '../errors.js';
 import { removeOnSignal } from '../util/interrupt.js';
@@ -22,7 +32,16 @@ function parseError(err: unknown, source: GraphSource, lines: TripleLines): User
   const message = err instanceof Error ? err.message : String(err);
   const m = /line (\d+)(?: column (\d+))?/.exec(message);
   const line = m ? (lines.lineNos[Number(m[1]) - 1] ?? 0) : 0;
-  return new UserError({ file: source.file, line, field: '', message: message.replace(/^Parser error at line \d+ column \d+: /, ''), hint: 'fix the statement; nothing was loaded' }, EXIT.badInput);
+  return new UserError(
+    {
+      file: source.file,
+      line,
+      field: '',
+      message: message.replace(/^Parser error at line \d+ column \d+: /, ''),
+      hint: 'fix the statement; nothing was loaded',
+    },
+    EXIT.badInput,
+  );
 }
 
 function countIn(db: OxStore, graph?: string): number {
@@ -61,7 +80,9 @@ export class EmbeddedStore implements Store {
     const lock = opts.lock ? takeLock(join(folder, STORE_LOCK), 'load', folder, '--store') : null;
     try {
       const manifest = await readManifest(folder);
-      if (lock) for (const f of await removeStoreLeftovers(folder, manifest)) process.stderr.write(`concordat: removed ${displayPath(f)}, left by a stopped load\n`);
+      if (lock)
+        for (const f of await removeStoreLeftovers(folder, manifest))
+          process.stderr.write(`concordat: removed ${displayPath(f)}, left by a stopped load\n`);
       await EmbeddedStore.fill(db, folder, manifest);
       return new EmbeddedStore(db, folder, manifest, lock);
     } catch (err) {
@@ -75,12 +96,31 @@ export class EmbeddedStore implements Store {
       const entry = manifest.graphs[graph];
       const path = join(folder, entry.file);
       const bytes = await readFile(path).catch(() => {
-        throw new UserError({ file: path, line: 0, field: '', message: 'is named by the manifest but cannot be read', hint: 'a load may have changed the store meanwhile: try again; else load the release into a new folder' }, EXIT.badInput);
+        throw new UserError(
+          {
+            file: path,
+            line: 0,
+            field: '',
+            message: 'is named by the manifest but cannot be read',
+            hint: 'a load may have changed the store meanwhile: try again; else load the release into a new folder',
+          },
+          EXIT.badInput,
+        );
       });
       const damaged = (message: string): UserError =>
-        new UserError({ file: path, line: 0, field: '', message, hint: 'the store folder is damaged; load the release into a new folder' }, EXIT.badInput);
+        new UserError(
+          {
+            file: path,
+            line: 0,
+            field: '',
+            message,
+            hint: 'the store folder is damaged; load the release into a new folder',
+          },
+          EXIT.badInput,
+        );
       if (sha256(bytes) !== entry.sha256) throw damaged(`sha256 differs from ${join(folder, 'manifest.json')}`);
-      db.load(bytes, { format: NQ, no_transaction: true, lenient: true }); // checked at load time, verified by sha256 now
+      // checked at load time, verified by sha256 now
+      db.load(bytes, { format: NQ, no_transaction: true, lenient: true });
       const n = countIn(db, graph);
       if (n !== entry.triples) throw damaged(`holds ${n} triples for <${graph}>, the manifest says ${entry.triples}`);
     }
@@ -102,7 +142,8 @@ export class EmbeddedStore implements Store {
     } catch (err) {
       this.deferred = null;
       for (const forget of this.unnamed.splice(0)) forget();
-      await removeStoreLeftovers(this.folder, before).catch(() => undefined); // the files written for the abandoned state
+      // the files written for the abandoned state
+      await removeStoreLeftovers(this.folder, before).catch(() => undefined);
       throw err;
     }
     const next = this.deferred;
@@ -111,7 +152,8 @@ export class EmbeddedStore implements Store {
     this.manifest = next;
     for (const forget of this.unnamed.splice(0)) forget();
     const keep = new Set(Object.values(next.graphs).map((e) => e.file));
-    for (const e of Object.values(before.graphs)) if (!keep.has(e.file)) await rm(join(this.folder, e.file), { force: true });
+    for (const e of Object.values(before.graphs))
+      if (!keep.has(e.file)) await rm(join(this.folder, e.file), { force: true });
     return result;
   }
 
@@ -143,7 +185,8 @@ export class EmbeddedStore implements Store {
       return { graph, triples: 0, millis: performance.now() - t0 };
     }
     const body = Buffer.from(lines.text);
-    // oxigraph's load is one transaction: into an absent graph it can go directly; an existing graph is replaced by MOVE.
+    // oxigraph's load is one transaction: into an absent graph it can go directly; an existing graph is replaced by
+    // MOVE.
     const replacing = countIn(this.db, graph) > 0;
     const into = replacing ? `${graph}-staging-${randomBytes(6).toString('hex')}` : graph;
     try {
@@ -167,11 +210,21 @@ export class EmbeddedStore implements Store {
     const file = graphFileName(graph, digest);
     await writeAtomic(join(folder, file), text);
     // until the manifest names it, a stop removes the new graph file (unless an earlier state already names it)
-    if (this.deferred && !Object.values(this.manifest.graphs).some((e) => e.file === file)) this.unnamed.push(removeOnSignal(join(folder, file)));
+    if (this.deferred && !Object.values(this.manifest.graphs).some((e) => e.file === file))
+      this.unnamed.push(removeOnSignal(join(folder, file)));
     const old = this.current.graphs[graph]?.file;
     const next: Manifest = {
       version: 1,
-      graphs: { ...this.current.graphs, [graph]: { file, triples: count, sha256: digest, loadedAt: source.issued ?? null, source: relative(resolve(folder), resolve(source.file)) } },
+      graphs: {
+        ...this.current.graphs,
+        [graph]: {
+          file,
+          triples: count,
+          sha256: digest,
+          loadedAt: source.issued ?? null,
+          source: relative(resolve(folder), resolve(source.file)),
+        },
+      },
     };
     await this.commit(next, old && old !== file ? [old] : []);
   }
@@ -190,7 +243,10 @@ export class EmbeddedStore implements Store {
   }
 
   async listGraphs(): Promise<string[]> {
-    const rows = this.db.query('SELECT DISTINCT ?g WHERE { GRAPH ?g { ?s ?p ?o } }') as Map<string, { value: string }>[];
+    const rows = this.db.query('SELECT DISTINCT ?g WHERE { GRAPH ?g { ?s ?p ?o } }') as Map<
+      string,
+      { value: string }
+    >[];
     return rows.map((r) => r.get('g')!.value).sort();
   }
 
@@ -204,9 +260,15 @@ export class EmbeddedStore implements Store {
     const graphForm = form === 'CONSTRUCT' || form === 'DESCRIBE';
     let text: string;
     try {
-      text = this.db.query(sparql, { results_format: graphForm ? NT : JSON_RESULTS, use_default_graph_as_union: true }) as string;
+      text = this.db.query(sparql, {
+        results_format: graphForm ? NT : JSON_RESULTS,
+        use_default_graph_as_union: true,
+      }) as string;
     } catch (err) {
-      throw new UserError({ file: 'query', line: 0, field: '', message: (err as Error).message, hint: 'check the SPARQL text' }, EXIT.badInput);
+      throw new UserError(
+        { file: 'query', line: 0, field: '', message: (err as Error).message, hint: 'check the SPARQL text' },
+        EXIT.badInput,
+      );
     }
     return graphForm ? parseNTriples(text, 'embedded store') : parseResultsJson(text, 'embedded store');
   }

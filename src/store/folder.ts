@@ -1,4 +1,5 @@
-// A store folder on disk: one N-Quads file per graph plus manifest.json, written atomically (temp file, rename, manifest last).
+// A store folder on disk: one N-Quads file per graph plus manifest.json, written atomically (temp file, rename,
+// manifest last).
 import { createHash, randomBytes } from 'node:crypto';
 import { mkdir, readdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -22,7 +23,13 @@ const ManifestSchema = z.object({
   version: z.literal(1),
   graphs: z.record(
     z.string(),
-    z.object({ file: z.string().regex(/^graphs\/[0-9a-f-]+\.nq$/), triples: z.number().int().nonnegative(), sha256: z.string().regex(/^[0-9a-f]{64}$/), loadedAt: z.string().nullable(), source: z.string() }),
+    z.object({
+      file: z.string().regex(/^graphs\/[0-9a-f-]+\.nq$/),
+      triples: z.number().int().nonnegative(),
+      sha256: z.string().regex(/^[0-9a-f]{64}$/),
+      loadedAt: z.string().nullable(),
+      source: z.string(),
+    }),
   ),
 });
 
@@ -62,7 +69,10 @@ export const STORE_LOCK = '.concordat.lock';
 export async function removeStoreLeftovers(folder: string, m: Manifest): Promise<string[]> {
   const named = new Set(Object.values(m.graphs).map((e) => e.file));
   const removed: string[] = [];
-  for (const [sub, names] of [['', await readdir(folder)], ['graphs', await readdir(join(folder, 'graphs'))]] as const)
+  for (const [sub, names] of [
+    ['', await readdir(folder)],
+    ['graphs', await readdir(join(folder, 'graphs'))],
+  ] as const)
     for (const name of names) {
       const rel = sub ? `${sub}/${name}` : name;
       if (TEMP_FILE.test(name) || (sub === 'graphs' && name.endsWith('.nq') && !named.has(rel))) {
@@ -83,22 +93,42 @@ export async function readManifest(folder: string): Promise<Manifest> {
     throw err;
   }
   const parsed = (() => {
-    try { return ManifestSchema.safeParse(JSON.parse(text)); } catch { return null; }
+    try {
+      return ManifestSchema.safeParse(JSON.parse(text));
+    } catch {
+      return null;
+    }
   })();
   if (!parsed?.success) {
     const issue = parsed?.error.issues[0];
-    throw new UserError({ file: join(folder, MANIFEST), line: 0, field: issue ? issue.path.join('.') : '', message: issue ? issue.message : 'not valid JSON', hint: 'the store folder is damaged; load the release into a new folder' }, EXIT.badInput);
+    throw new UserError(
+      {
+        file: join(folder, MANIFEST),
+        line: 0,
+        field: issue ? issue.path.join('.') : '',
+        message: issue ? issue.message : 'not valid JSON',
+        hint: 'the store folder is damaged; load the release into a new folder',
+      },
+      EXIT.badInput,
+    );
   }
   return parsed.data;
 }
 
 /** Writes the manifest with graphs in sorted order, so the same loads give byte-identical files. */
 export async function writeManifest(folder: string, m: Manifest): Promise<void> {
-  const graphs = Object.fromEntries(Object.keys(m.graphs).sort().map((g) => [g, m.graphs[g]]));
+  const graphs = Object.fromEntries(
+    Object.keys(m.graphs)
+      .sort()
+      .map((g) => [g, m.graphs[g]]),
+  );
   await writeAtomic(join(folder, MANIFEST), JSON.stringify({ version: 1, graphs }, null, 2) + '\n');
 }
 
-/** File name for a graph's content: graph hash + content hash, so a new version never overwrites the file the manifest names. */
+/**
+ * File name for a graph's content: graph hash + content hash, so a new version never overwrites the file the manifest
+ * names.
+ */
 export function graphFileName(graph: string, contentSha: string): string {
   return `graphs/${sha256(graph).slice(0, 16)}-${contentSha.slice(0, 16)}.nq`;
 }

@@ -7,7 +7,15 @@ import type { QueryResult, ResultQuad, Term } from './types.js';
 export type ResultFormat = 'table' | 'csv' | 'tsv' | 'json';
 
 const XSD = NS.xsd;
-const NT_ESCAPE: Record<string, string> = { '\\': '\\\\', '"': '\\"', '\n': '\\n', '\r': '\\r', '\t': '\\t', '\b': '\\b', '\f': '\\f' };
+const NT_ESCAPE: Record<string, string> = {
+  '\\': '\\\\',
+  '"': '\\"',
+  '\n': '\\n',
+  '\r': '\\r',
+  '\t': '\\t',
+  '\b': '\\b',
+  '\f': '\\f',
+};
 const u4 = (c: string): string => `\\u${c.charCodeAt(0).toString(16).toUpperCase().padStart(4, '0')}`;
 
 /** A string's body escaped as in RDF 1.1 N-Triples §2.4 (STRING_LITERAL_QUOTE with ECHAR, UCHAR for other controls). */
@@ -52,7 +60,8 @@ function csvTerm(t: Term | undefined): string {
 function tableCell(t: Term | undefined): string {
   if (!t) return '';
   const short = (iri: string): string | undefined => {
-    for (const [p, ns] of Object.entries(NS)) if (iri.startsWith(ns) && /^[A-Za-z0-9_-]*$/.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
+    for (const [p, ns] of Object.entries(NS))
+      if (iri.startsWith(ns) && /^[A-Za-z0-9_-]*$/.test(iri.slice(ns.length))) return `${p}:${iri.slice(ns.length)}`;
     return undefined;
   };
   if (t.type === 'uri') return short(t.value) ?? `<${t.value}>`;
@@ -73,24 +82,41 @@ function table(vars: string[], rows: Record<string, Term>[]): string {
   const cells = rows.map((r) => vars.map((v) => tableCell(r[v])));
   const head = vars.map((v) => `?${v}`);
   const width = vars.map((_, i) => Math.max(head[i].length, ...cells.map((c) => c[i].length)));
-  const line = (c: string[]): string => c.map((s, i) => s.padEnd(width[i])).join('  ').trimEnd();
+  const line = (c: string[]): string =>
+    c
+      .map((s, i) => s.padEnd(width[i]))
+      .join('  ')
+      .trimEnd();
   return [line(head), width.map((w) => '-'.repeat(w)).join('  '), ...cells.map(line)].join('\n') + '\n';
 }
 
 const SELECT_WRITERS: Record<ResultFormat, (vars: string[], rows: Record<string, Term>[]) => string> = {
   // SPARQL 1.1 Query Results JSON Format §3
   json: (vars, rows) =>
-    JSON.stringify({ head: { vars }, results: { bindings: rows.map((r) => Object.fromEntries(vars.filter((v) => r[v]).map((v) => [v, jsonTerm(r[v])]))) } }, null, 2) + '\n',
+    JSON.stringify(
+      {
+        head: { vars },
+        results: {
+          bindings: rows.map((r) => Object.fromEntries(vars.filter((v) => r[v]).map((v) => [v, jsonTerm(r[v])]))),
+        },
+      },
+      null,
+      2,
+    ) + '\n',
   // SPARQL 1.1 Query Results CSV and TSV Formats, "CSV": header of names without "?", CRLF line ends
-  csv: (vars, rows) => [vars.join(','), ...rows.map((r) => vars.map((v) => csvTerm(r[v])).join(','))].join('\r\n') + '\r\n',
+  csv: (vars, rows) =>
+    [vars.join(','), ...rows.map((r) => vars.map((v) => csvTerm(r[v])).join(','))].join('\r\n') + '\r\n',
   // same document, "TSV": header of "?names", LF line ends
-  tsv: (vars, rows) => [vars.map((v) => `?${v}`).join('\t'), ...rows.map((r) => vars.map((v) => tsvCell(r[v])).join('\t'))].join('\n') + '\n',
+  tsv: (vars, rows) =>
+    [vars.map((v) => `?${v}`).join('\t'), ...rows.map((r) => vars.map((v) => tsvCell(r[v])).join('\t'))].join('\n') +
+    '\n',
   table,
 };
 
 /** Writes a query result in the chosen format: ASK → `true`/`false` (JSON: §3.3 boolean), graphs → N-Triples. */
 export function formatResult(result: QueryResult, format: ResultFormat): string {
-  if (result.kind === 'boolean') return format === 'json' ? JSON.stringify({ head: {}, boolean: result.value }) + '\n' : `${result.value}\n`;
+  if (result.kind === 'boolean')
+    return format === 'json' ? JSON.stringify({ head: {}, boolean: result.value }) + '\n' : `${result.value}\n`;
   if (result.kind === 'quads') return result.quads.map((q) => ntLine(q) + '\n').join('');
   return SELECT_WRITERS[format](result.vars, result.rows);
 }

@@ -1,4 +1,5 @@
-// HTTP requests to a SPARQL server → responses, with Basic or Digest auth, timeouts and bounded retries (urllib adapter).
+// HTTP requests to a SPARQL server → responses, with Basic or Digest auth, timeouts and bounded retries (urllib
+// adapter).
 import { setTimeout as sleep } from 'node:timers/promises';
 import { request, type RequestOptions } from 'urllib';
 import { UserError, EXIT } from '../errors.js';
@@ -31,7 +32,15 @@ export interface HttpRequest {
 }
 
 // Connection-level faults worth another try (undici codes; common practice, no source).
-const RETRYABLE = new Set(['ECONNRESET', 'EPIPE', 'UND_ERR_SOCKET', 'UND_ERR_HEADERS_TIMEOUT', 'UND_ERR_BODY_TIMEOUT', 'UND_ERR_CONNECT_TIMEOUT', 'ETIMEDOUT']);
+const RETRYABLE = new Set([
+  'ECONNRESET',
+  'EPIPE',
+  'UND_ERR_SOCKET',
+  'UND_ERR_HEADERS_TIMEOUT',
+  'UND_ERR_BODY_TIMEOUT',
+  'UND_ERR_CONNECT_TIMEOUT',
+  'ETIMEDOUT',
+]);
 
 const codeOf = (err: unknown): string => {
   const e = err as { code?: string; cause?: { code?: string }; name?: string };
@@ -62,7 +71,14 @@ export class Http {
     const headers: Record<string, string> = {};
     if (req.accept) headers.accept = req.accept;
     if (req.contentType) headers['content-type'] = req.contentType;
-    const o: RequestOptions = { method, headers, timeout: this.opts.timeoutMs, dataType: 'text', retry: 0, socketErrorRetry: 0 };
+    const o: RequestOptions = {
+      method,
+      headers,
+      timeout: this.opts.timeoutMs,
+      dataType: 'text',
+      retry: 0,
+      socketErrorRetry: 0,
+    };
     if (req.body !== undefined) o.content = req.body;
     if (req.form) o.data = req.form;
     const c = this.opts.credentials;
@@ -97,7 +113,16 @@ export class Http {
       }
       if (!answer) {
         const code = codeOf(fault);
-        throw new UserError({ file: shownUrl(url), line: 0, field: '', message: this.redact(`no answer (${code}) after ${attempt + 1} attempt(s)`), hint: code === 'ECONNREFUSED' ? 'is the store running at this address?' : 'check the URL and the network' }, EXIT.failure);
+        throw new UserError(
+          {
+            file: shownUrl(url),
+            line: 0,
+            field: '',
+            message: this.redact(`no answer (${code}) after ${attempt + 1} attempt(s)`),
+            hint: code === 'ECONNREFUSED' ? 'is the store running at this address?' : 'check the URL and the network',
+          },
+          EXIT.failure,
+        );
       }
       if (answer.status === 401) throw this.refused(url);
       return answer;
@@ -106,7 +131,18 @@ export class Http {
 
   private refused(url: string): UserError {
     const c = this.opts.credentials;
-    const message = c ? `the store refused the credentials from ${c.from} (HTTP 401)` : 'the store asks for credentials (HTTP 401) and none were given';
-    return new UserError({ file: shownUrl(url), line: 0, field: '', message, hint: `set ${USER_VAR} and ${PASSWORD_VAR}, or add a netrc entry for this host` }, EXIT.failure);
+    const message = c
+      ? `the store refused the credentials from ${c.from} (HTTP 401)`
+      : 'the store asks for credentials (HTTP 401) and none were given';
+    return new UserError(
+      {
+        file: shownUrl(url),
+        line: 0,
+        field: '',
+        message,
+        hint: `set ${USER_VAR} and ${PASSWORD_VAR}, or add a netrc entry for this host`,
+      },
+      EXIT.failure,
+    );
   }
 }

@@ -1,4 +1,5 @@
-// N-Quads / N-Triples text → per-graph lists of triple lines, kept term for term (labels, escapes) with their file lines.
+// N-Quads / N-Triples text → per-graph lists of triple lines, kept term for term (labels, escapes) with their file
+// lines.
 import { UserError } from '../errors.js';
 
 /**
@@ -12,7 +13,16 @@ export interface TripleLines {
   lineNos: number[];
 }
 
-const SPACE = 32, TAB = 9, CR = 13, HASH = 35, DOT = 46, LT = 60, QUOTE = 34, BSLASH = 92, AT = 64, CARET = 94;
+const SPACE = 32,
+  TAB = 9,
+  CR = 13,
+  HASH = 35,
+  DOT = 46,
+  LT = 60,
+  QUOTE = 34,
+  BSLASH = 92,
+  AT = 64,
+  CARET = 94;
 const LANG_CHAR = /[A-Za-z0-9-]/;
 
 const isSpace = (c: number): boolean => c === SPACE || c === TAB || c === CR;
@@ -23,7 +33,14 @@ const isSpace = (c: number): boolean => c === SPACE || c === TAB || c === CR;
  */
 export function scanTerms(line: string, file: string, lineNo: number): string[] | null {
   const fail = (message: string, col: number): never => {
-    throw new UserError({ file, line: lineNo, column: col + 1, field: '', message, hint: 'the file must be N-Quads or N-Triples, one statement per line' });
+    throw new UserError({
+      file,
+      line: lineNo,
+      column: col + 1,
+      field: '',
+      message,
+      hint: 'the file must be N-Quads or N-Triples, one statement per line',
+    });
   };
   const terms: string[] = [];
   const n = line.length;
@@ -31,11 +48,18 @@ export function scanTerms(line: string, file: string, lineNo: number): string[] 
   let ended = false;
   while (i < n) {
     const c = line.charCodeAt(i);
-    if (isSpace(c)) { i++; continue; }
+    if (isSpace(c)) {
+      i++;
+      continue;
+    }
     if (c === HASH) break;
     if (ended) fail('text after the closing "."', i);
     const start = i;
-    if (c === DOT) { ended = true; i++; continue; }
+    if (c === DOT) {
+      ended = true;
+      i++;
+      continue;
+    }
     if (c === LT) {
       const e = line.indexOf('>', i + 1);
       if (e < 0) fail('IRI without closing ">"', i);
@@ -88,7 +112,14 @@ export function splitByGraph(text: string, file: string): Map<string, TripleLine
     const t = scanTerms(line, file, no);
     if (!t) continue;
     const g = t.length === 4 ? t[3] : '';
-    if (g !== '' && g.charCodeAt(0) !== LT) throw new UserError({ file, line: no, field: '', message: `graph name ${g} is a blank node`, hint: 'name graphs with IRIs' });
+    if (g !== '' && g.charCodeAt(0) !== LT)
+      throw new UserError({
+        file,
+        line: no,
+        field: '',
+        message: `graph name ${g} is a blank node`,
+        hint: 'name graphs with IRIs',
+      });
     const key = g === '' ? '' : g.slice(1, -1);
     let bucket = buckets.get(key);
     if (!bucket) buckets.set(key, (bucket = { lines: [], lineNos: [] }));
@@ -96,7 +127,8 @@ export function splitByGraph(text: string, file: string): Map<string, TripleLine
     bucket.lineNos.push(no);
   }
   const out = new Map<string, TripleLines>();
-  for (const [key, b] of buckets) out.set(key, { text: b.lines.join('\n') + '\n', count: b.lines.length, lineNos: b.lineNos });
+  for (const [key, b] of buckets)
+    out.set(key, { text: b.lines.join('\n') + '\n', count: b.lines.length, lineNos: b.lineNos });
   return out;
 }
 
@@ -127,4 +159,3 @@ export function blankLabels(line: string): string[] {
   const t = scanTerms(line, '', 0) ?? [];
   return t.filter((term) => term.startsWith('_:'));
 }
-

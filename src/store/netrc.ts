@@ -41,13 +41,24 @@ export function netrcEntry(text: string, host: string): { login?: string; passwo
   return matched ?? fallback;
 }
 
-/** Credentials for a URL: both environment variables, else a netrc entry ($NETRC or ~/.netrc) for its host, else none. */
+/**
+ * Credentials for a URL: both environment variables, else a netrc entry ($NETRC or ~/.netrc) for its host, else none.
+ */
 export function credentialsFor(url: string, env: NodeJS.ProcessEnv = process.env): Credentials | null {
   const user = env[USER_VAR];
   const password = env[PASSWORD_VAR];
   if (user !== undefined || password !== undefined) {
     if (!user || password === undefined)
-      throw new UserError({ file: 'environment', line: 0, field: user ? PASSWORD_VAR : USER_VAR, message: 'is not set, but the other store credential is', hint: `set both ${USER_VAR} and ${PASSWORD_VAR}, or neither` }, EXIT.badInput);
+      throw new UserError(
+        {
+          file: 'environment',
+          line: 0,
+          field: user ? PASSWORD_VAR : USER_VAR,
+          message: 'is not set, but the other store credential is',
+          hint: `set both ${USER_VAR} and ${PASSWORD_VAR}, or neither`,
+        },
+        EXIT.badInput,
+      );
     return { user, password, from: `${USER_VAR}/${PASSWORD_VAR}` };
   }
   const path = env.NETRC || join(homedir(), '.netrc');

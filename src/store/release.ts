@@ -26,7 +26,8 @@ const RELEASE_GRAPH = /^(.*)graph\/(claims|evidence|provenance|dataset)$/;
 const ISSUED = `<${iri('dcterms', 'issued')}>`;
 const PARTNER_KEY = /^[A-Za-z0-9][A-Za-z0-9_-]*$/;
 
-const bad = (file: string, field: string, message: string, hint: string): UserError => new UserError({ file, line: 0, field, message, hint }, EXIT.badInput);
+const bad = (file: string, field: string, message: string, hint: string): UserError =>
+  new UserError({ file, line: 0, field, message, hint }, EXIT.badInput);
 
 async function readRequired(path: string, field: string, hint: string): Promise<string> {
   try {
@@ -45,22 +46,37 @@ function baseOf(graphs: Iterable<string>): string | null {
   return null;
 }
 
-/** The release's own date: the lexical form of dcterms:issued in its dataset graph (DCAT 3 "release date" property), else null. */
+/**
+ * The release's own date: the lexical form of dcterms:issued in its dataset graph (DCAT 3 "release date" property),
+ * else null.
+ */
 function issuedIn(text: string): string | null {
   for (const line of text.split('\n')) {
     if (!line.includes(ISSUED)) continue;
     const t = scanTerms(line, '', 0);
-    if (t && t[1] === ISSUED && t[2].startsWith('"') && (t.length === 3 || /graph\/dataset>$/.test(t[3]))) return t[2].slice(1, t[2].lastIndexOf('"'));
+    if (t && t[1] === ISSUED && t[2].startsWith('"') && (t.length === 3 || /graph\/dataset>$/.test(t[3])))
+      return t[2].slice(1, t[2].lastIndexOf('"'));
   }
   return null;
 }
 
 async function partnerPlan(folder: string, key: string, graph: string | undefined): Promise<PlannedGraph[]> {
-  if (!PARTNER_KEY.test(key)) throw bad('command line', '--partner', `"${key}" is not a partner key`, 'letters, digits, "-" and "_"');
+  if (!PARTNER_KEY.test(key))
+    throw bad('command line', '--partner', `"${key}" is not a partner key`, 'letters, digits, "-" and "_"');
   const file = join(folder, 'partners', `${key}.nq`);
   if (!existsSync(file)) {
-    const known = existsSync(join(folder, 'partners')) ? (await readdir(join(folder, 'partners'))).filter((f) => f.endsWith('.nq')).map((f) => f.slice(0, -3)).sort() : [];
-    throw bad(file, '--partner', 'no such partner slice in the release', known.length ? `partners in this release: ${known.join(', ')}` : 'the release has no partners/ folder');
+    const known = existsSync(join(folder, 'partners'))
+      ? (await readdir(join(folder, 'partners')))
+          .filter((f) => f.endsWith('.nq'))
+          .map((f) => f.slice(0, -3))
+          .sort()
+      : [];
+    throw bad(
+      file,
+      '--partner',
+      'no such partner slice in the release',
+      known.length ? `partners in this release: ${known.join(', ')}` : 'the release has no partners/ folder',
+    );
   }
   await verifyRelease(folder, [`partners/${key}.nq`]);
   const text = await readRequired(file, '--partner', 'check the release folder');
@@ -68,7 +84,13 @@ async function partnerPlan(folder: string, key: string, graph: string | undefine
   let target = graph;
   if (!target) {
     const base = baseOf(parts.keys());
-    if (!base) throw bad(file, '--graph', 'the slice names no release graph, so the partner graph IRI cannot be derived', 'give --graph <IRI>');
+    if (!base)
+      throw bad(
+        file,
+        '--graph',
+        'the slice names no release graph, so the partner graph IRI cannot be derived',
+        'give --graph <IRI>',
+      );
     target = `${base}graph/partner/${key}`;
   }
   const concordance = join(folder, CONCORDANCE);
@@ -88,11 +110,26 @@ export async function planRelease(folder: string, opts: ReleaseLoadOptions = {})
   const file = join(folder, CONCORDANCE);
   const text = await readRequired(file, '', `a release folder holds ${CONCORDANCE}`);
   const issued = issuedIn(text);
-  if (opts.graph) return [{ graph: opts.graph, source: { format: 'n-quads', text: '', file, issued, lines: dropGraphNames(text, file) } }];
+  if (opts.graph)
+    return [
+      { graph: opts.graph, source: { format: 'n-quads', text: '', file, issued, lines: dropGraphNames(text, file) } },
+    ];
   const parts = splitByGraph(text, file);
   const loose = parts.get('');
-  if (loose) throw new UserError({ file, line: loose.lineNos[0], field: '', message: `${loose.count} statements have no graph name`, hint: 'load the whole file into one graph with --graph <IRI>' }, EXIT.badInput);
-  return [...parts.keys()].sort().map((graph) => ({ graph, source: { format: 'n-quads', text: '', file, issued, lines: parts.get(graph)! } }));
+  if (loose)
+    throw new UserError(
+      {
+        file,
+        line: loose.lineNos[0],
+        field: '',
+        message: `${loose.count} statements have no graph name`,
+        hint: 'load the whole file into one graph with --graph <IRI>',
+      },
+      EXIT.badInput,
+    );
+  return [...parts.keys()]
+    .sort()
+    .map((graph) => ({ graph, source: { format: 'n-quads', text: '', file, issued, lines: parts.get(graph)! } }));
 }
 
 /** Loads every planned graph in order; stops at the first failure (graphs loaded before it stay loaded). */
@@ -142,7 +179,10 @@ const only = (s: Set<string> | undefined): string | null => (s && s.size === 1 ?
  * stay beside release 2's graphs). A graph's release is its dataset description's version; claims, evidence and
  * provenance graphs take the version of `{base}graph/dataset`. Graphs outside `{base}graph/` are never touched.
  */
-async function dropOtherReleases(store: Store, plan: PlannedGraph[]): Promise<{ version: string | null; dropped: DroppedGraph[] }> {
+async function dropOtherReleases(
+  store: Store,
+  plan: PlannedGraph[],
+): Promise<{ version: string | null; dropped: DroppedGraph[] }> {
   const base = plan.map((p) => OWN_GRAPH.exec(p.graph)?.[1]).find((b) => b !== undefined);
   if (base === undefined) return { version: null, dropped: [] };
   const versions = await versionsIn(store);
@@ -166,7 +206,11 @@ async function dropOtherReleases(store: Store, plan: PlannedGraph[]): Promise<{ 
  * removed (see dropOtherReleases). In a store folder all of it is one change (one manifest write); a remote store
  * replaces graph by graph. With `--graph` (everything into one graph of the user's choosing) nothing else is touched.
  */
-export async function loadRelease(store: Store, plan: PlannedGraph[], opts: ReleaseLoadOptions = {}): Promise<ReleaseLoad> {
+export async function loadRelease(
+  store: Store,
+  plan: PlannedGraph[],
+  opts: ReleaseLoadOptions = {},
+): Promise<ReleaseLoad> {
   const run = async (): Promise<ReleaseLoad> => {
     await store.removeLeftovers?.();
     const loads = await loadPlanned(store, plan);

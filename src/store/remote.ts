@@ -38,7 +38,8 @@ export interface RemoteOptions {
 const NT = 'application/n-triples';
 const JSON_RESULTS = 'application/sparql-results+json';
 
-const fail = (where: string, message: string, hint: string): UserError => new UserError({ file: where, line: 0, field: '', message, hint }, EXIT.failure);
+const fail = (where: string, message: string, hint: string): UserError =>
+  new UserError({ file: where, line: 0, field: '', message, hint }, EXIT.failure);
 const excerpt = (text: string): string => text.replace(/\s+/g, ' ').trim().slice(0, 200);
 
 /**
@@ -55,14 +56,29 @@ export class RemoteStore implements Store {
     private readonly opts: RemoteOptions = {},
   ) {
     const anyUrl = endpoints.gsp ?? endpoints.update ?? endpoints.query;
-    this.http = new Http({ credentials: credentialsFor(anyUrl, opts.env), timeoutMs: opts.timeoutMs ?? 300_000, retries: opts.retries ?? 3, backoffMs: opts.backoffMs ?? 1000 });
+    this.http = new Http({
+      credentials: credentialsFor(anyUrl, opts.env),
+      timeoutMs: opts.timeoutMs ?? 300_000,
+      retries: opts.retries ?? 3,
+      backoffMs: opts.backoffMs ?? 1000,
+    });
     this.chunk = opts.chunkTriples ?? 100_000;
     this.progress = opts.progress ?? Boolean(process.stderr.isTTY);
   }
 
   private writeUrls(): { gsp: string; update: string } {
     const { gsp, update } = this.endpoints;
-    if (!gsp || !update) throw new UserError({ file: 'command line', line: 0, field: gsp ? '--update' : '--endpoint', message: 'is needed to change a remote store', hint: 'give --endpoint <Graph Store URL> --update <SPARQL Update URL> --query-endpoint <SPARQL Query URL>' }, EXIT.badInput);
+    if (!gsp || !update)
+      throw new UserError(
+        {
+          file: 'command line',
+          line: 0,
+          field: gsp ? '--update' : '--endpoint',
+          message: 'is needed to change a remote store',
+          hint: 'give --endpoint <Graph Store URL> --update <SPARQL Update URL> --query-endpoint <SPARQL Query URL>',
+        },
+        EXIT.badInput,
+      );
     return { gsp, update };
   }
 
@@ -73,7 +89,12 @@ export class RemoteStore implements Store {
   private async update(sparql: string): Promise<void> {
     const { update } = this.writeUrls();
     const res = await this.http.send('POST', update, { form: { update: sparql }, accept: JSON_RESULTS });
-    if (res.status >= 300) throw fail(shownUrl(update), this.http.redact(`update refused (HTTP ${res.status}): ${excerpt(res.text)}`), 'check the update URL and that the user may write');
+    if (res.status >= 300)
+      throw fail(
+        shownUrl(update),
+        this.http.redact(`update refused (HTTP ${res.status}): ${excerpt(res.text)}`),
+        'check the update URL and that the user may write',
+      );
   }
 
   async loadGraph(graph: string, source: GraphSource): Promise<GraphLoad> {
@@ -91,28 +112,54 @@ export class RemoteStore implements Store {
     try {
       // An empty-body request first: learns the auth challenge and checks credentials before any large body is sent.
       const probe = await this.http.send('GET', stagingUrl, { accept: NT });
-      if (probe.status >= 400 && probe.status !== 404) throw fail(shownUrl(gsp), `Graph Store answered HTTP ${probe.status}: ${excerpt(probe.text)}`, 'check --endpoint');
+      if (probe.status >= 400 && probe.status !== 404)
+        throw fail(
+          shownUrl(gsp),
+          `Graph Store answered HTTP ${probe.status}: ${excerpt(probe.text)}`,
+          'check --endpoint',
+        );
       const chunks = chunkLines(lines, this.chunk);
       for (let i = 0; i < chunks.length; i++) {
         if (this.progress) process.stderr.write(`\r${graph}: chunk ${i + 1}/${chunks.length}`);
         const raw = chunks[i].join('\n') + '\n';
         const body = this.opts.hooks?.chunkBody?.(i, raw) ?? raw;
         const res = await this.http.send('POST', stagingUrl, { body, contentType: NT });
-        if (res.status >= 300) throw fail(shownUrl(gsp), this.http.redact(`chunk ${i + 1} of ${chunks.length} refused (HTTP ${res.status}): ${excerpt(res.text)}`), 'check the file with a validator; the server rejected its syntax or the user may not write');
+        if (res.status >= 300)
+          throw fail(
+            shownUrl(gsp),
+            this.http.redact(`chunk ${i + 1} of ${chunks.length} refused (HTTP ${res.status}): ${excerpt(res.text)}`),
+            'check the file with a validator; the server rejected its syntax or the user may not write',
+          );
       }
       if (this.progress) process.stderr.write('\n');
       const got = await this.countTriples(staging);
-      if (got !== expected) throw fail(shownUrl(this.endpoints.query), `the staging graph holds ${got} triples, the file has ${expected}`, 'the server dropped or merged statements; nothing was replaced');
+      if (got !== expected)
+        throw fail(
+          shownUrl(this.endpoints.query),
+          `the staging graph holds ${got} triples, the file has ${expected}`,
+          'the server dropped or merged statements; nothing was replaced',
+        );
       const move = `MOVE SILENT GRAPH ${sparqlIri(staging)} TO GRAPH ${target}`;
       await this.update(this.opts.hooks?.moveUpdate?.(move) ?? move);
     } catch (err) {
       await this.update(`DROP SILENT GRAPH ${sparqlIri(staging)}`).catch(() => undefined);
       if (!(err instanceof UserError)) throw err;
       const p = err.problems[0];
-      throw new UserError({ ...p, message: `loading <${graph}> from ${source.file} failed: ${p.message}; the staging graph was dropped and <${graph}> is unchanged` }, EXIT.failure);
+      throw new UserError(
+        {
+          ...p,
+          message: `loading <${graph}> from ${source.file} failed: ${p.message}; the staging graph was dropped and <${graph}> is unchanged`,
+        },
+        EXIT.failure,
+      );
     }
     const triples = await this.countTriples(graph);
-    if (triples !== expected) throw fail(shownUrl(this.endpoints.query), `<${graph}> holds ${triples} triples after the move, the file has ${expected}`, 'another writer may have changed the graph meanwhile');
+    if (triples !== expected)
+      throw fail(
+        shownUrl(this.endpoints.query),
+        `<${graph}> holds ${triples} triples after the move, the file has ${expected}`,
+        'another writer may have changed the graph meanwhile',
+      );
     return { graph, triples, millis: performance.now() - t0 };
   }
 
@@ -124,13 +171,19 @@ export class RemoteStore implements Store {
     const where = graph ? `GRAPH ${sparqlIri(graph, '--graph')} { ?s ?p ?o }` : 'GRAPH ?g { ?s ?p ?o }';
     const r = await this.query(`SELECT (COUNT(*) AS ?n) WHERE { ${where} }`);
     const cell = r.kind === 'bindings' ? r.rows[0]?.n : undefined;
-    if (!cell || !/^[0-9]+$/.test(cell.value)) throw fail(shownUrl(this.endpoints.query), 'the count query gave no number', 'check --query');
+    if (!cell || !/^[0-9]+$/.test(cell.value))
+      throw fail(shownUrl(this.endpoints.query), 'the count query gave no number', 'check --query');
     return Number(cell.value);
   }
 
   async listGraphs(): Promise<string[]> {
     const r = await this.query('SELECT DISTINCT ?g WHERE { GRAPH ?g { ?s ?p ?o } }');
-    return r.kind === 'bindings' ? r.rows.map((row) => row.g?.value ?? '').filter(Boolean).sort() : [];
+    return r.kind === 'bindings'
+      ? r.rows
+          .map((row) => row.g?.value ?? '')
+          .filter(Boolean)
+          .sort()
+      : [];
   }
 
   /** SPARQL 1.1 Protocol §2.1.2 (query via URL-encoded POST). */
@@ -140,7 +193,13 @@ export class RemoteStore implements Store {
     const url = this.endpoints.query;
     const res = await this.http.send('POST', url, { form: { query: sparql }, accept: graphForm ? NT : JSON_RESULTS });
     if (res.status >= 300) {
-      const problem = { file: shownUrl(url), line: 0, field: '', message: this.http.redact(`query refused (HTTP ${res.status}): ${excerpt(res.text)}`), hint: 'check the SPARQL text and --query' };
+      const problem = {
+        file: shownUrl(url),
+        line: 0,
+        field: '',
+        message: this.http.redact(`query refused (HTTP ${res.status}): ${excerpt(res.text)}`),
+        hint: 'check the SPARQL text and --query',
+      };
       throw new UserError(problem, res.status === 400 ? EXIT.badInput : EXIT.failure);
     }
     return graphForm ? parseNTriples(res.text, shownUrl(url)) : parseResultsJson(res.text, shownUrl(url));

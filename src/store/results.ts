@@ -1,4 +1,5 @@
-// Store answers (SPARQL JSON results text, N-Triples text) → QueryResult with blank nodes relabelled b0, b1, … in order.
+// Store answers (SPARQL JSON results text, N-Triples text) → QueryResult with blank nodes relabelled b0, b1, … in
+// order.
 import { Parser, type Term as N3Term } from 'n3';
 import { UserError, EXIT } from '../errors.js';
 import { NS } from '../namespaces.js';
@@ -32,10 +33,20 @@ function fromJson(j: JsonTerm, where: string): Term {
   if (j.type === 'literal' || j.type === 'typed-literal') {
     const lang = j['xml:lang'];
     if (lang) return { type: 'literal', value: j.value, lang: lang.toLowerCase() };
-    if (j.datatype && j.datatype !== XSD_STRING && j.datatype !== RDF_LANG_STRING) return { type: 'literal', value: j.value, datatype: j.datatype };
+    if (j.datatype && j.datatype !== XSD_STRING && j.datatype !== RDF_LANG_STRING)
+      return { type: 'literal', value: j.value, datatype: j.datatype };
     return { type: 'literal', value: j.value };
   }
-  throw new UserError({ file: where, line: 0, field: 'type', message: `unknown term type "${j.type}" in the store's answer`, hint: 'the endpoint must answer in SPARQL 1.1 Query Results JSON' }, EXIT.failure);
+  throw new UserError(
+    {
+      file: where,
+      line: 0,
+      field: 'type',
+      message: `unknown term type "${j.type}" in the store's answer`,
+      hint: 'the endpoint must answer in SPARQL 1.1 Query Results JSON',
+    },
+    EXIT.failure,
+  );
 }
 
 /** Parses a SPARQL 1.1 Query Results JSON document (§3: head.vars + results.bindings, or boolean). */
@@ -44,7 +55,16 @@ export function parseResultsJson(text: string, where: string): QueryResult {
   try {
     doc = JSON.parse(text);
   } catch {
-    throw new UserError({ file: where, line: 0, field: '', message: `the store's answer is not JSON: ${text.slice(0, 120)}`, hint: 'check the query endpoint URL' }, EXIT.failure);
+    throw new UserError(
+      {
+        file: where,
+        line: 0,
+        field: '',
+        message: `the store's answer is not JSON: ${text.slice(0, 120)}`,
+        hint: 'check the query endpoint URL',
+      },
+      EXIT.failure,
+    );
   }
   if (typeof doc.boolean === 'boolean') return { kind: 'boolean', value: doc.boolean };
   const vars = doc.head?.vars ?? [];
@@ -63,7 +83,9 @@ function fromN3(t: N3Term): Term {
   if (t.termType === 'Literal') {
     if (t.language) return { type: 'literal', value: t.value, lang: t.language.toLowerCase() };
     const dt = t.datatype.value;
-    return dt === XSD_STRING || dt === RDF_LANG_STRING ? { type: 'literal', value: t.value } : { type: 'literal', value: t.value, datatype: dt };
+    return dt === XSD_STRING || dt === RDF_LANG_STRING
+      ? { type: 'literal', value: t.value }
+      : { type: 'literal', value: t.value, datatype: dt };
   }
   throw new Error(`unexpected term type ${t.termType}`);
 }
@@ -74,7 +96,16 @@ export function parseNTriples(text: string, where: string): QueryResult {
   try {
     parsed = new Parser({ format: 'N-Triples', blankNodePrefix: '' }).parse(text);
   } catch (err) {
-    throw new UserError({ file: where, line: 0, field: '', message: `the store's answer is not N-Triples: ${(err as Error).message}`, hint: 'check the query endpoint URL' }, EXIT.failure);
+    throw new UserError(
+      {
+        file: where,
+        line: 0,
+        field: '',
+        message: `the store's answer is not N-Triples: ${(err as Error).message}`,
+        hint: 'check the query endpoint URL',
+      },
+      EXIT.failure,
+    );
   }
   const relabel = new Relabel();
   const quads: ResultQuad[] = parsed.map((q) => ({

@@ -1,4 +1,5 @@
-// The one store interface both adapters implement, and the plain data it passes: RDF terms, query results, load sources.
+// The one store interface both adapters implement, and the plain data it passes: RDF terms, query results, load
+// sources.
 import type { TripleLines } from './lines.js';
 
 /** An RDF term as in SPARQL 1.1 Query Results JSON Format §3.2.2 (type `uri`, `bnode` or `literal`). */
@@ -15,7 +16,9 @@ export interface ResultQuad {
   graph?: Term;
 }
 
-/** A query outcome per SPARQL 1.1 Query §16: solutions (SELECT), a boolean (ASK) or an RDF graph (CONSTRUCT, DESCRIBE). */
+/**
+ * A query outcome per SPARQL 1.1 Query §16: solutions (SELECT), a boolean (ASK) or an RDF graph (CONSTRUCT, DESCRIBE).
+ */
 export type QueryResult =
   | { kind: 'bindings'; vars: string[]; rows: Record<string, Term>[] }
   | { kind: 'boolean'; value: boolean }
@@ -43,7 +46,9 @@ export interface GraphLoad {
   millis: number;
 }
 
-/** A triple store holding named graphs (SPARQL 1.1 Graph Store HTTP Protocol §1 terms: a graph store of named graphs). */
+/**
+ * A triple store holding named graphs (SPARQL 1.1 Graph Store HTTP Protocol §1 terms: a graph store of named graphs).
+ */
 export interface Store {
   /** Replaces `graph` with the source's triples, all or nothing (Update §3.2.4 MOVE semantics). */
   loadGraph(graph: string, source: GraphSource): Promise<GraphLoad>;

@@ -7,7 +7,10 @@ type Ctor<T extends TypedArray> = { new (n: number): T };
 export class Column<T extends TypedArray> {
   data: T;
   length = 0;
-  constructor(private readonly ctor: Ctor<T>, initial = 1024) {
+  constructor(
+    private readonly ctor: Ctor<T>,
+    initial = 1024,
+  ) {
     this.data = new ctor(initial);
   }
   push(v: number): void {

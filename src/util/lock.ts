@@ -23,7 +23,16 @@ export function takeLock(lockFile: string, command: string, what: string, field:
     } catch (err) {
       const code = (err as NodeJS.ErrnoException).code;
       if (code !== 'EEXIST')
-        throw new UserError({ file: path.dirname(lockFile), line: 0, field, message: `no file can be made in this folder (${code})`, hint: 'choose a folder on an ordinary, writable file system' }, EXIT.badInput);
+        throw new UserError(
+          {
+            file: path.dirname(lockFile),
+            line: 0,
+            field,
+            message: `no file can be made in this folder (${code})`,
+            hint: 'choose a folder on an ordinary, writable file system',
+          },
+          EXIT.badInput,
+        );
       const owner = readOwner(lockFile);
       if (owner && ownerState(owner) === 'gone') {
         rmSync(lockFile, { force: true });
@@ -31,7 +40,16 @@ export function takeLock(lockFile: string, command: string, what: string, field:
       }
       const who = owner ? describeOwner(owner) : 'another run';
       throw new UserError(
-        { file: lockFile, line: 0, field, message: `${who} is writing ${displayPath(what)}`, hint: owner && ownerState(owner) === 'alive' ? 'wait for it to finish' : `if no such run is going on, remove ${displayPath(lockFile)}` },
+        {
+          file: lockFile,
+          line: 0,
+          field,
+          message: `${who} is writing ${displayPath(what)}`,
+          hint:
+            owner && ownerState(owner) === 'alive'
+              ? 'wait for it to finish'
+              : `if no such run is going on, remove ${displayPath(lockFile)}`,
+        },
         EXIT.badInput,
       );
     }
@@ -52,5 +70,8 @@ export function takeLock(lockFile: string, command: string, what: string, field:
       },
     };
   }
-  throw new UserError({ file: lockFile, line: 0, field, message: 'the lock changed hands while it was being taken', hint: 'try again' }, EXIT.badInput);
+  throw new UserError(
+    { file: lockFile, line: 0, field, message: 'the lock changed hands while it was being taken', hint: 'try again' },
+    EXIT.badInput,
+  );
 }

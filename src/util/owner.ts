@@ -25,7 +25,14 @@ function bootId(): string {
 
 /** The record for this process. */
 export function ownerRecord(command: string): Owner {
-  return { tool: 'concordat', pid: process.pid, host: hostname(), boot: bootId(), started: new Date().toISOString(), command };
+  return {
+    tool: 'concordat',
+    pid: process.pid,
+    host: hostname(),
+    boot: bootId(),
+    started: new Date().toISOString(),
+    command,
+  };
 }
 
 /** Reads an owner record; null when the file is missing or is not one (a partly written record included). */
@@ -40,7 +47,8 @@ export function readOwner(file: string): Owner | null {
 
 /**
  * What is known of an owner: `gone` when it ran on this host and its process no longer exists (or the machine has
- * rebooted since), `alive` when its process exists, `elsewhere` when it ran on another host (cannot be checked from here).
+ * rebooted since), `alive` when its process exists, `elsewhere` when it ran on another host (cannot be checked from
+ * here).
  * A reused PID makes a gone owner look alive: the leftover then stays until that process ends (the safe side).
  */
 export function ownerState(o: Owner): 'gone' | 'alive' | 'elsewhere' {
@@ -57,4 +65,5 @@ export function ownerState(o: Owner): 'gone' | 'alive' | 'elsewhere' {
 }
 
 /** "pid 123 on host h, since 2026-…" for messages. */
-export const describeOwner = (o: Owner): string => `concordat ${o.command} (pid ${o.pid} on ${o.host}, started ${o.started})`;
+export const describeOwner = (o: Owner): string =>
+  `concordat ${o.command} (pid ${o.pid} on ${o.host}, started ${o.started})`;

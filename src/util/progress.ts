@@ -17,7 +17,13 @@ const silent: Progress = { update: () => undefined, stop: () => undefined };
 export function progress(label: string, total: number, unit = ''): Progress {
   if (!process.stderr.isTTY || total <= 0 || process.env.CONCORDAT_NO_PROGRESS === '1') return silent;
   const bar = new cliProgress.SingleBar(
-    { format: `${label.padEnd(22)} [{bar}] {percentage}% {value}/{total}${unit ? ' ' + unit : ''} {eta_formatted} left`, stream: process.stderr, fps: 10, clearOnComplete: true, hideCursor: true },
+    {
+      format: `${label.padEnd(22)} [{bar}] {percentage}% {value}/{total}${unit ? ' ' + unit : ''} {eta_formatted} left`,
+      stream: process.stderr,
+      fps: 10,
+      clearOnComplete: true,
+      hideCursor: true,
+    },
     cliProgress.Presets.shades_classic,
   );
   bar.start(total, 0);

@@ -35,7 +35,8 @@ export function denseRank(values: Float64Array): { rank: Int32Array; size: numbe
   for (let i = 0; i < sorted.length; i++) if (i === 0 || sorted[i] !== sorted[i - 1]) sorted[size++] = sorted[i];
   const rank = new Int32Array(values.length);
   for (let i = 0; i < values.length; i++) {
-    let lo = 0, hi = size - 1;
+    let lo = 0,
+      hi = size - 1;
     while (lo < hi) {
       const mid = (lo + hi) >> 1;
       if (sorted[mid] < values[i]) lo = mid + 1;

@@ -23,9 +23,11 @@ export function readBatch(task: BatchTask): BatchData {
   const ids: string[] = [];
   // a triple's line is the same bytes wherever it was read, and it lies in its subject's bucket only: distinct lines
   // per bucket are distinct triples
-  for (const b of task.owned) for (const t of readLines<Triple>(fileOf(task.dir, 'own', b), true)) ids.push(t[0], t[1], t[2], '');
+  for (const b of task.owned)
+    for (const t of readLines<Triple>(fileOf(task.dir, 'own', b), true)) ids.push(t[0], t[1], t[2], '');
   const ownTriples = ids.length / 4;
-  for (const b of task.owned) for (const t of readLines<Triple>(fileOf(task.dir, 'ctx', b))) ids.push(t[0], t[1], t[2], '');
+  for (const b of task.owned)
+    for (const t of readLines<Triple>(fileOf(task.dir, 'ctx', b))) ids.push(t[0], t[1], t[2], '');
   for (const t of task.subclass) ids.push(t[0], t[1], t[2], '');
   const owned = new Set(task.owned);
   return { ids, ownTriples, owns: (node) => owned.has(bucketOf(node, task.buckets)) };

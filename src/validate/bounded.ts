@@ -1,4 +1,5 @@
-// Triples pushed one by one + a shapes graph → the whole-graph SHACL outcome in bounded memory: small input validated at
+// Triples pushed one by one + a shapes graph → the whole-graph SHACL outcome in bounded memory: small input validated
+// at
 // once, large input spilled into hashed buckets each carrying its focus nodes' footprint, batches on worker threads.
 import { rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -50,9 +51,12 @@ function wholeReason(footprint: Footprint, opts: BoundedOptions): string | null 
 
 /**
  * Validates a data graph given triple by triple (SHACL §3) with exactly the outcome of validating it whole. Above
- * `inMemoryUpTo` triples the input is spilled to a temp folder, bucketed by a hash of the subject, and each bucket is given
- * the context its focus nodes' footprint reaches (see footprint.ts, spill.ts); each batch judges only the focus nodes it
- * owns, so every result is found exactly once. Shapes of unbounded reach are validated whole, up to `wholeLimit` triples,
+ * `inMemoryUpTo` triples the input is spilled to a temp folder, bucketed by a hash of the subject, and each bucket is
+ * given
+ * the context its focus nodes' footprint reaches (see footprint.ts, spill.ts); each batch judges only the focus nodes
+ * it
+ * owns, so every result is found exactly once. Shapes of unbounded reach are validated whole, up to `wholeLimit`
+ * triples,
  * beyond which the input is refused with a UserError naming the limit. The temp folder is removed on every exit.
  */
 export class BoundedValidation {
@@ -67,7 +71,10 @@ export class BoundedValidation {
   private readonly compiled: CompiledShapes;
 
   /** Compiles the shapes at once, so a shapes graph the engine refuses fails before any data is read. */
-  constructor(private readonly shapes: Quad[], private readonly opts: BoundedOptions = {}) {
+  constructor(
+    private readonly shapes: Quad[],
+    private readonly opts: BoundedOptions = {},
+  ) {
     this.compiled = compileShapes(shapes, this.options);
     this.footprint = footprintOf(shapes);
     this.whole = wholeReason(this.footprint, opts);
@@ -81,7 +88,10 @@ export class BoundedValidation {
     return this.opts.wholeLimit ?? (this.opts.engine === 'rdf-validate-shacl' ? 400_000 : 2_000_000);
   }
 
-  /** Adds one triple (named graphs are merged into the data graph, SHACL §1.5). Never throws: a refusal waits for finish(). */
+  /**
+   * Adds one triple (named graphs are merged into the data graph, SHACL §1.5). Never throws: a refusal waits for
+   * finish().
+   */
   add(q: Quad): void {
     if (this.refused) return;
     const t: Triple = [ID(q.subject), ID(q.predicate), ID(q.object)];
@@ -91,16 +101,22 @@ export class BoundedValidation {
       if (this.keys.has(key)) return;
       this.keys.add(key);
       this.ids.push(t[0], t[1], t[2], '');
-      if (this.keys.size <= (this.whole ? this.limit : this.opts.inMemoryUpTo ?? this.opts.batchTriples ?? 100_000)) return;
+      if (this.keys.size <= (this.whole ? this.limit : (this.opts.inMemoryUpTo ?? this.opts.batchTriples ?? 100_000)))
+        return;
       if (this.whole) {
-        this.refuse(`the shapes must see the whole graph at once (${this.whole}), and the data has more than ${this.limit.toLocaleString('en')} triples, the most validated at once in bounded memory`,
-          'validate a smaller part of the data, or bound the shape\'s reach (e.g. a path of fixed length such as ( ex:p ex:p ) instead of sh:zeroOrMorePath)');
+        this.refuse(
+          `the shapes must see the whole graph at once (${this.whole}), and the data has more than ${this.limit.toLocaleString('en')} triples, the most validated at once in bounded memory`,
+          "validate a smaller part of the data, or bound the shape's reach (e.g. a path of fixed length such as ( ex:p ex:p ) instead of sh:zeroOrMorePath)",
+        );
         return;
       }
       this.startSpill();
     } catch (err) {
       if (err instanceof RangeError && err.message === 'subclass')
-        this.refuse(`the data has more than ${SUBCLASS_LIMIT.toLocaleString('en')} rdfs:subClassOf triples, which every batch needs (SHACL §3.2 SHACL subclass)`, 'validate the class hierarchy separately from the instance data');
+        this.refuse(
+          `the data has more than ${SUBCLASS_LIMIT.toLocaleString('en')} rdfs:subClassOf triples, which every batch needs (SHACL §3.2 SHACL subclass)`,
+          'validate the class hierarchy separately from the instance data',
+        );
       else throw err;
     }
   }
@@ -180,7 +196,13 @@ export class BoundedValidation {
       for (const task of tasks) {
         const slot = await pool.acquire();
         if (failure) break;
-        pending.push(pool.reply(slot, (id) => ({ id, batch: task })).then(collect, (err) => { failure ??= err; }));
+        pending.push(
+          pool
+            .reply(slot, (id) => ({ id, batch: task }))
+            .then(collect, (err) => {
+              failure ??= err;
+            }),
+        );
       }
       await Promise.all(pending);
       if (failure) throw failure;

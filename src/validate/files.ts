@@ -23,11 +23,26 @@ export async function loadShapesFolder(dir: string): Promise<ShapesGraph> {
   try {
     names = await readdir(dir);
   } catch (err) {
-    throw new UserError({ file: dir, line: 0, field: '--shapes', message: `cannot read the shapes folder (${(err as NodeJS.ErrnoException).code ?? err})`, hint: 'pass --shapes <folder> holding SHACL shapes as .ttl files' });
+    throw new UserError({
+      file: dir,
+      line: 0,
+      field: '--shapes',
+      message: `cannot read the shapes folder (${(err as NodeJS.ErrnoException).code ?? err})`,
+      hint: 'pass --shapes <folder> holding SHACL shapes as .ttl files',
+    });
   }
-  const files = names.filter((n) => n.endsWith('.ttl')).sort().map((n) => join(dir, n));
+  const files = names
+    .filter((n) => n.endsWith('.ttl'))
+    .sort()
+    .map((n) => join(dir, n));
   if (files.length === 0)
-    throw new UserError({ file: dir, line: 0, field: '--shapes', message: 'the shapes folder has no .ttl file', hint: 'put SHACL shapes in Turtle there or pass --shapes <folder>' });
+    throw new UserError({
+      file: dir,
+      line: 0,
+      field: '--shapes',
+      message: 'the shapes folder has no .ttl file',
+      hint: 'put SHACL shapes in Turtle there or pass --shapes <folder>',
+    });
   const quads: N3.Quad[] = [];
   for (const f of files) await streamRdfFile(f, (q) => quads.push(q));
   return { files, quads };
@@ -39,7 +54,10 @@ export async function loadDataFiles(files: string[]): Promise<N3.Store> {
   const { quad, defaultGraph } = N3.DataFactory;
   const g = defaultGraph();
   // SHACL validates a data graph (§1.5); named graphs of N-Quads/TriG/JSON-LD input are merged into it.
-  for (const f of files) await streamRdfFile(f, (q) => store.addQuad(q.graph.termType === 'DefaultGraph' ? q : quad(q.subject, q.predicate, q.object, g)));
+  for (const f of files)
+    await streamRdfFile(f, (q) =>
+      store.addQuad(q.graph.termType === 'DefaultGraph' ? q : quad(q.subject, q.predicate, q.object, g)),
+    );
   return store;
 }
 
@@ -53,13 +71,25 @@ export const JSONLD_LIMIT_BYTES = 64 * 1024 * 1024;
  * they are read; a JSON-LD document above {@link JSONLD_LIMIT_BYTES} is refused before it is read, since it cannot be
  * streamed.
  */
-export async function streamDataFiles(files: string[], onQuad: (q: N3.Quad) => void, jsonldLimit = JSONLD_LIMIT_BYTES): Promise<void> {
+export async function streamDataFiles(
+  files: string[],
+  onQuad: (q: N3.Quad) => void,
+  jsonldLimit = JSONLD_LIMIT_BYTES,
+): Promise<void> {
   for (const f of files) {
     if (extname(f).toLowerCase() === '.jsonld') {
-      const size = await stat(f).then((s) => s.size, () => 0);
+      const size = await stat(f).then(
+        (s) => s.size,
+        () => 0,
+      );
       if (size > jsonldLimit)
-        throw new UserError({ file: f, line: 0, field: '', message: `a JSON-LD document is read whole, and this one is ${(size / 2 ** 20).toFixed(1)} MiB, above the ${(jsonldLimit / 2 ** 20).toFixed(1)} MiB that validate reads in bounded memory`,
-          hint: 'validate the release\'s N-Quads or Turtle instead (concordance.nq), or convert the document to N-Quads first' });
+        throw new UserError({
+          file: f,
+          line: 0,
+          field: '',
+          message: `a JSON-LD document is read whole, and this one is ${(size / 2 ** 20).toFixed(1)} MiB, above the ${(jsonldLimit / 2 ** 20).toFixed(1)} MiB that validate reads in bounded memory`,
+          hint: "validate the release's N-Quads or Turtle instead (concordance.nq), or convert the document to N-Quads first",
+        });
     }
     await streamRdfFile(f, onQuad);
   }

@@ -28,7 +28,8 @@ export const MAX_DEPTH = 6;
  * The data a shapes graph reads around each focus node: `levels[0]` at the focus node itself, `levels[k]` at nodes
  * k hops away. `objectsOf` are the sh:targetObjectsOf predicates (the focus node is found through a triple of another
  * subject, SHACL §2.1.3.5). `unbounded` names a shape whose reach has no bound (a `*`/`+` path, a shape reaching
- * itself through a path) or exceeds {@link MAX_DEPTH}: such shapes are validated on the whole graph. `nestedFocus` names
+ * itself through a path) or exceeds {@link MAX_DEPTH}: such shapes are validated on the whole graph. `nestedFocus`
+ * names
  * a shape whose results have value nodes as focus nodes (sh:property on a property shape, SHACL §4.7.2).
  */
 export interface Footprint {
@@ -51,10 +52,17 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
   const store = shapes instanceof N3.Store ? shapes : new N3.Store([...shapes] as N3.Quad[]);
   const objects = (node: N3.Term, local: string) => store.getObjects(node, sh(local), null);
   const result: Footprint = { levels: [level()], objectsOf: new Set(), unbounded: null, nestedFocus: null };
-  const at = (d: number) => { while (result.levels.length <= d) result.levels.push(level()); return result.levels[d]; };
+  const at = (d: number) => {
+    while (result.levels.length <= d) result.levels.push(level());
+    return result.levels[d];
+  };
   const list = (head: N3.Term): N3.Term[] => {
     const items: N3.Term[] = [];
-    for (let n: N3.Term | null = head; n && n.value !== iri('rdf', 'nil') && items.length <= 100_000; n = store.getObjects(n, iri('rdf', 'rest'), null)[0] ?? null) {
+    for (
+      let n: N3.Term | null = head;
+      n && n.value !== iri('rdf', 'nil') && items.length <= 100_000;
+      n = store.getObjects(n, iri('rdf', 'rest'), null)[0] ?? null
+    ) {
       const first = store.getObjects(n, iri('rdf', 'first'), null)[0];
       if (!first) break;
       items.push(first);
@@ -62,16 +70,29 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     return items;
   };
   let stop = false;
-  const unbounded = (why: string) => { result.unbounded ??= why; stop = true; };
+  const unbounded = (why: string) => {
+    result.unbounded ??= why;
+    stop = true;
+  };
 
   /**
    * Where a path leads: a depth, and `commit`, which records the moves that lead there. Moves are recorded only when
-   * something is read at the node they reach, so a value that is only compared (sh:datatype, sh:in, …) costs no context.
+   * something is read at the node they reach, so a value that is only compared (sh:datatype, sh:in, …) costs no
+   * context.
    */
   type Pos = { depth: number; commit: () => void };
   const reached = (from: Pos, move: 'fwd' | 'inv', p: string): Pos => {
     let done = false;
-    return { depth: from.depth + 1, commit: () => { if (!done) { done = true; from.commit(); at(from.depth)[move].add(p); } } };
+    return {
+      depth: from.depth + 1,
+      commit: () => {
+        if (!done) {
+          done = true;
+          from.commit();
+          at(from.depth)[move].add(p);
+        }
+      },
+    };
   };
 
   /** The positions the values of `path` are found at from `from` (SHACL §2.3.1), recording each lookup. */
@@ -79,10 +100,18 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     if (stop) return [];
     let out: Pos[] = [];
     if (typeof path === 'string') {
-      for (const f of from) { at(f.depth).out.add(path); f.commit(); out.push(reached(f, 'fwd', path)); }
+      for (const f of from) {
+        at(f.depth).out.add(path);
+        f.commit();
+        out.push(reached(f, 'fwd', path));
+      }
     } else if ('inverse' in path) {
       if (typeof path.inverse !== 'string') return walk(flipPath(path.inverse), from, shape);
-      for (const f of from) { at(f.depth).in.add(path.inverse); f.commit(); out.push(reached(f, 'inv', path.inverse)); }
+      for (const f of from) {
+        at(f.depth).in.add(path.inverse);
+        f.commit();
+        out.push(reached(f, 'inv', path.inverse));
+      }
     } else if ('sequence' in path) {
       out = from;
       for (const step of path.sequence) out = walk(step, out, shape);
@@ -107,7 +136,10 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     const key = ID(node);
     if (stop || objects(node, 'deactivated').some((t) => t.value === 'true')) return;
     const memo = done.get(`${key} ${pos.depth}`);
-    if (memo !== undefined) { if (memo) pos.commit(); return; }
+    if (memo !== undefined) {
+      if (memo) pos.commit();
+      return;
+    }
     const shallower = onStack.get(key);
     if (shallower !== undefined) {
       // a shape reached from itself: at the same depth it reads nothing new (its node is kept, to be safe: what the
@@ -118,13 +150,25 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
     }
     onStack.set(key, pos.depth);
     let reads = false;
-    const probe: Pos = { depth: pos.depth, commit: () => { reads = true; pos.commit(); } };
-    const read = (p: Pos, what: (l: Level) => void) => { what(at(p.depth)); p.commit(); };
+    const probe: Pos = {
+      depth: pos.depth,
+      commit: () => {
+        reads = true;
+        pos.commit();
+      },
+    };
+    const read = (p: Pos, what: (l: Level) => void) => {
+      what(at(p.depth));
+      p.commit();
+    };
     const pathNode = objects(node, 'path')[0];
     const values = pathNode ? walk(readPath(store, pathNode), [probe], key) : [probe];
     for (const v of values) {
       if (objects(node, 'class').length > 0) read(v, (l) => l.out.add(RDF_TYPE));
-      if (objects(node, 'closed').some((t) => t.value === 'true')) read(v, (l) => { l.all = true; });
+      if (objects(node, 'closed').some((t) => t.value === 'true'))
+        read(v, (l) => {
+          l.all = true;
+        });
       for (const local of SHAPE_PARAMS) for (const s of objects(node, local)) visit(s, v);
       for (const local of LIST_PARAMS) for (const head of objects(node, local)) for (const s of list(head)) visit(s, v);
       for (const s of objects(node, 'property')) {
@@ -162,4 +206,3 @@ export function footprintOf(shapes: Iterable<Quad>): Footprint {
 function isEmpty(l: Level): boolean {
   return l.out.size === 0 && !l.all && l.in.size === 0;
 }
-

@@ -19,7 +19,9 @@ export interface ShaclGate {
 export function shaclGate(shapes: Quad[], opts: BoundedOptions & { validate?: boolean } = {}): ShaclGate {
   if (opts.validate === false) {
     return {
-      async *pass(units) { yield* units; },
+      async *pass(units) {
+        yield* units;
+      },
       outcome: async () => outcomeOf([]),
     };
   }
@@ -37,6 +39,9 @@ export function shaclGate(shapes: Quad[], opts: BoundedOptions & { validate?: bo
         if (!ended) run.cleanup();
       }
     },
-    outcome: () => (ended ? run.finish() : Promise.reject(new Error('the SHACL gate was asked for its outcome before every unit passed'))),
+    outcome: () =>
+      ended
+        ? run.finish()
+        : Promise.reject(new Error('the SHACL gate was asked for its outcome before every unit passed')),
   };
 }

@@ -18,7 +18,12 @@ export class Pool {
 
   constructor(size: number, init: WorkerInit) {
     for (let i = 0; i < size; i++) {
-      const slot: Slot = { worker: new Worker(new URL('./worker.js', import.meta.url), { workerData: init, resourceLimits: { maxYoungGenerationSizeMb: 16, maxOldGenerationSizeMb: 1024 } }) };
+      const slot: Slot = {
+        worker: new Worker(new URL('./worker.js', import.meta.url), {
+          workerData: init,
+          resourceLimits: { maxYoungGenerationSizeMb: 16, maxOldGenerationSizeMb: 1024 },
+        }),
+      };
       slot.worker.on('message', (reply: WorkerReply) => slot.settle?.(reply));
       slot.worker.on('error', (err) => slot.settle?.(err));
       slot.worker.on('exit', (code) => slot.settle?.(new Error(`validation worker exited with code ${code}`)));

@@ -42,7 +42,16 @@ const SEVERITY_COUNTER: ReadonlyArray<[string, 'violations' | 'warnings' | 'info
 
 /** A stable sort and identity key for a row. */
 export function rowKey(r: ResultRow): string {
-  return JSON.stringify([r.focusNode, r.path, r.component, r.sourceShape, r.value, r.severity, r.sourceConstraint, r.messages]);
+  return JSON.stringify([
+    r.focusNode,
+    r.path,
+    r.component,
+    r.sourceShape,
+    r.value,
+    r.severity,
+    r.sourceConstraint,
+    r.messages,
+  ]);
 }
 
 function compare(a: string, b: string): number {
@@ -85,14 +94,17 @@ export function reportQuads(rows: ResultRow[]): N3.Quad[] {
   const report = blankNode('report');
   out.push(quad(report, namedNode(iri('rdf', 'type')), sh('ValidationReport')));
   // SHACL §3.6.1.1: sh:conforms is true only when there are no results at all.
-  out.push(quad(report, sh('conforms'), literal(rows.length === 0 ? 'true' : 'false', namedNode(iri('xsd', 'boolean')))));
+  out.push(
+    quad(report, sh('conforms'), literal(rows.length === 0 ? 'true' : 'false', namedNode(iri('xsd', 'boolean')))),
+  );
   rows.forEach((_, i) => out.push(quad(report, sh('result'), blankNode(`r${i + 1}`))));
   rows.forEach((r, i) => {
     const node = blankNode(`r${i + 1}`);
     out.push(quad(node, namedNode(iri('rdf', 'type')), sh('ValidationResult')));
     out.push(quad(node, sh('focusNode'), term(r.focusNode)));
     const structure: N3.Quad[] = [];
-    if (r.path !== null) out.push(quad(node, sh('resultPath'), pathQuads(r.path, `r${i + 1}`, structure) as N3.Quad_Object));
+    if (r.path !== null)
+      out.push(quad(node, sh('resultPath'), pathQuads(r.path, `r${i + 1}`, structure) as N3.Quad_Object));
     if (r.value !== null) out.push(quad(node, sh('value'), term(r.value)));
     out.push(quad(node, sh('resultSeverity'), namedNode(r.severity)));
     out.push(quad(node, sh('sourceConstraintComponent'), namedNode(r.component)));

@@ -31,10 +31,14 @@ export type ShaclEngine = (typeof SHACL_ENGINES)[number];
  */
 let reference: Promise<{ Validator: typeof SHACLValidator; factory: object }> | null = null;
 function loadReference() {
-  reference ??= Promise.all([import('rdf-validate-shacl'), import('rdf-validate-shacl/src/defaultEnv.js')]).then(([v, env]) => ({
-    Validator: v.default,
-    factory: Object.assign(Object.create(env.default) as typeof env.default, { dataset: (quads?: Iterable<Quad>) => new N3.Store(quads ? [...quads] : undefined) }),
-  }));
+  reference ??= Promise.all([import('rdf-validate-shacl'), import('rdf-validate-shacl/src/defaultEnv.js')]).then(
+    ([v, env]) => ({
+      Validator: v.default,
+      factory: Object.assign(Object.create(env.default) as typeof env.default, {
+        dataset: (quads?: Iterable<Quad>) => new N3.Store(quads ? [...quads] : undefined),
+      }),
+    }),
+  );
   return reference;
 }
 
@@ -86,7 +90,13 @@ export function compileShapes(shapes: Iterable<Quad>, opts: ValidateOptions = {}
 /** rdf-validate-shacl behind the same interface. */
 function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): CompiledShapes {
   const fail = (err: unknown): never => {
-    throw new UserError({ file: opts.shapesLabel ?? 'shapes', line: 0, field: '', message: `SHACL validation failed: ${(err as Error).message}`, hint: 'check the shapes graph' });
+    throw new UserError({
+      file: opts.shapesLabel ?? 'shapes',
+      line: 0,
+      field: '',
+      message: `SHACL validation failed: ${(err as Error).message}`,
+      hint: 'check the shapes graph',
+    });
   };
   const shapesStore = toStore(shapes);
   let validator: Promise<SHACLValidator> | null = null;
@@ -107,7 +117,10 @@ function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): Compil
       return fail(err);
     }
   };
-  return { rows, rowsOfIds: async (ids, owns) => (await rows(decodeQuads(ids))).filter((r) => !owns || owns(r.focusNode)) };
+  return {
+    rows,
+    rowsOfIds: async (ids, owns) => (await rows(decodeQuads(ids))).filter((r) => !owns || owns(r.focusNode)),
+  };
 }
 
 /**
@@ -115,6 +128,10 @@ function compileReference(shapes: Iterable<Quad>, opts: ValidateOptions): Compil
  * result rows and the report graph. `conforms` is false only when some result has severity sh:Violation;
  * the report's own sh:conforms follows SHACL §3.6.1.1 (false when any result exists).
  */
-export async function validate(data: Iterable<Quad>, shapes: Iterable<Quad>, opts: ValidateOptions = {}): Promise<ValidationOutcome> {
+export async function validate(
+  data: Iterable<Quad>,
+  shapes: Iterable<Quad>,
+  opts: ValidateOptions = {},
+): Promise<ValidationOutcome> {
   return outcomeOf(await compileShapes(shapes, opts).rows(data));
 }

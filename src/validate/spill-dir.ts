@@ -23,13 +23,22 @@ function alive(pid: number): boolean {
  */
 export function makeSpillDir(parent: string): string {
   let names: string[] = [];
-  try { names = readdirSync(parent).filter((n) => n.startsWith(PREFIX)); } catch { /* the parent is made below or fails there */ }
+  try {
+    names = readdirSync(parent).filter((n) => n.startsWith(PREFIX));
+  } catch {
+    /* the parent is made below or fails there */
+  }
   for (const name of names) {
     const dir = join(parent, name);
     let owner: string;
-    try { owner = readFileSync(join(dir, OWNER), 'utf8'); } catch { continue; }
+    try {
+      owner = readFileSync(join(dir, OWNER), 'utf8');
+    } catch {
+      continue;
+    }
     const [pid, host] = owner.trim().split(' ');
-    if (host === hostname() && Number(pid) !== process.pid && !alive(Number(pid))) rmSync(dir, { recursive: true, force: true });
+    if (host === hostname() && Number(pid) !== process.pid && !alive(Number(pid)))
+      rmSync(dir, { recursive: true, force: true });
   }
   const dir = mkdtempSync(join(parent, PREFIX));
   writeFileSync(join(dir, OWNER), `${process.pid} ${hostname()}\n`);

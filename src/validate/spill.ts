@@ -80,7 +80,11 @@ export class Spill {
   private readonly deeperIn: Set<string>;
   private readonly deeperOut: Set<string> | 'all';
   private readonly paths = new Map<FileKind, string[]>();
-  constructor(readonly dir: string, readonly buckets: number, readonly footprint: Footprint) {
+  constructor(
+    readonly dir: string,
+    readonly buckets: number,
+    readonly footprint: Footprint,
+  ) {
     this.bucketTriples = new Array<number>(buckets).fill(0);
     const deeper = footprint.levels.slice(1);
     this.deeperIn = new Set(deeper.flatMap((l) => [...l.in]));
@@ -90,11 +94,15 @@ export class Spill {
   /** The file of a kind and bucket (names made once). */
   private file(kind: FileKind, bucket: number): string {
     let names = this.paths.get(kind);
-    if (!names) this.paths.set(kind, (names = Array.from({ length: this.buckets }, (_, b) => fileOf(this.dir, kind, b))));
+    if (!names)
+      this.paths.set(kind, (names = Array.from({ length: this.buckets }, (_, b) => fileOf(this.dir, kind, b))));
     return names[bucket];
   }
 
-  /** Files one triple: to its subject's bucket, as context of its object's bucket where level 0 reads it, and as requests. */
+  /**
+   * Files one triple: to its subject's bucket, as context of its object's bucket where level 0 reads it, and as
+   * requests.
+   */
   add(t: Triple): void {
     const [s, p, o] = t;
     const line = JSON.stringify(t) + '\n';
@@ -103,7 +111,10 @@ export class Spill {
     this.bucketTriples[bs]++;
     if (this.deeperOut !== 'all' && this.deeperOut.has(p)) this.out.write(this.file('look', bs), line);
     const l0 = this.footprint.levels[0];
-    const bo = l0.in.has(p) || this.footprint.objectsOf.has(p) || this.deeperIn.has(p) || l0.inv.has(p) || l0.fwd.has(p) ? bucketOf(o, this.buckets) : -1;
+    const bo =
+      l0.in.has(p) || this.footprint.objectsOf.has(p) || this.deeperIn.has(p) || l0.inv.has(p) || l0.fwd.has(p)
+        ? bucketOf(o, this.buckets)
+        : -1;
     if (l0.in.has(p) || this.footprint.objectsOf.has(p)) this.out.write(this.file('ctx', bo), line);
     if (this.deeperIn.has(p)) this.out.write(this.file('inv', bo), line);
     if (l0.fwd.has(p) && this.leadsTo(1, o)) this.request(1, o, bo, bs);
@@ -148,7 +159,8 @@ export class Spill {
         if (requests.length === 0) continue;
         const bySubject = new Map<string, Triple[]>();
         const byObject = new Map<string, Triple[]>();
-        for (const t of readLines<Triple>(this.file(this.deeperOut === 'all' ? 'own' : 'look', c))) push(bySubject, t[0], t);
+        for (const t of readLines<Triple>(this.file(this.deeperOut === 'all' ? 'own' : 'look', c)))
+          push(bySubject, t[0], t);
         if (level.in.size > 0) for (const t of readLines<Triple>(this.file('inv', c))) push(byObject, t[2], t);
         const answered = new Set<string>();
         for (const [n, b] of requests) {
@@ -158,7 +170,8 @@ export class Spill {
           for (const t of bySubject.get(n) ?? []) {
             if (!level.all && !level.out.has(t[1])) continue;
             this.out.write(this.file('ctx', b), JSON.stringify(t) + '\n');
-            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2])) this.request(k + 1, t[2], bucketOf(t[2], this.buckets), b);
+            if (level.fwd.has(t[1]) && this.leadsTo(k + 1, t[2]))
+              this.request(k + 1, t[2], bucketOf(t[2], this.buckets), b);
           }
           for (const t of byObject.get(n) ?? []) {
             if (!level.in.has(t[1])) continue;

@@ -7,7 +7,8 @@ import type { ResultRow, ValidationOutcome } from './report.js';
 /** Shows an IRI as prefix:local when a known namespace (src/namespaces.ts) covers it, else as <iri>. */
 export function showIri(value: string): string {
   for (const [prefix, ns] of Object.entries(NS))
-    if (value.startsWith(ns) && /^[A-Za-z_][\w.-]*$/.test(value.slice(ns.length))) return `${prefix}:${value.slice(ns.length)}`;
+    if (value.startsWith(ns) && /^[A-Za-z_][\w.-]*$/.test(value.slice(ns.length)))
+      return `${prefix}:${value.slice(ns.length)}`;
   return `<${value}>`;
 }
 
@@ -25,7 +26,9 @@ export function showTerm(id: string): string {
 }
 
 function messageOf(r: ResultRow): string {
-  return r.messages.length > 0 ? (N3.termFromId(r.messages[0]) as N3.Literal).value : `${r.component.slice(NS.sh.length)} not satisfied`;
+  return r.messages.length > 0
+    ? (N3.termFromId(r.messages[0]) as N3.Literal).value
+    : `${r.component.slice(NS.sh.length)} not satisfied`;
 }
 
 function localName(severity: string): string {
@@ -37,7 +40,10 @@ function plural(n: number, word: string): string {
 }
 
 /** The human-readable summary: a headline, counts, then one line per result (severity, focus node, path, message). */
-export function summaryText(outcome: ValidationOutcome, context: { files: number; quads: number; shapesFiles: number }): string {
+export function summaryText(
+  outcome: ValidationOutcome,
+  context: { files: number; quads: number; shapesFiles: number },
+): string {
   const lines = [
     `Validated ${plural(context.files, 'file')} (${plural(context.quads, 'triple')}) against ${plural(context.shapesFiles, 'shapes file')}.`,
     `${outcome.conforms ? 'Conforms' : 'Does not conform'}: ${plural(outcome.violations, 'violation')}, ${plural(outcome.warnings, 'warning')}, ${plural(outcome.infos, 'info')}.`,
@@ -51,7 +57,10 @@ export function summaryText(outcome: ValidationOutcome, context: { files: number
 }
 
 /** The machine-readable outcome: counts and one object per result with full IRIs. */
-export function summaryJson(outcome: ValidationOutcome, context: { files: number; quads: number; shapesFiles: number }): object {
+export function summaryJson(
+  outcome: ValidationOutcome,
+  context: { files: number; quads: number; shapesFiles: number },
+): object {
   return {
     conforms: outcome.conforms,
     violations: outcome.violations,

@@ -16,7 +16,10 @@ export interface WorkerInit {
  *  spilled bucket files the worker reads itself. */
 export type WorkerTask = { id: number; quads: string } | { id: number; batch: BatchTask };
 
-/** A worker's answer: rows (and, for a spilled batch, its distinct own triples), a user error's problems, or a bug's stack. */
+/**
+ * A worker's answer: rows (and, for a spilled batch, its distinct own triples), a user error's problems, or a bug's
+ * stack.
+ */
 export type WorkerReply =
   | { id: number; rows: ResultRow[]; ownTriples?: number }
   | { id: number; problems: Problem[] }

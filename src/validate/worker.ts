@@ -19,9 +19,10 @@ port.on('message', async (task: WorkerTask) => {
       reply = { id: task.id, rows: await compiled.rowsOfIds(ids, owns), ownTriples };
     } else reply = { id: task.id, rows: await compiled.rowsOfIds(JSON.parse(task.quads) as string[]) };
   } catch (err) {
-    reply = err instanceof UserError
-      ? { id: task.id, problems: err.problems }
-      : { id: task.id, error: (err as Error).stack ?? String(err) };
+    reply =
+      err instanceof UserError
+        ? { id: task.id, problems: err.problems }
+        : { id: task.id, error: (err as Error).stack ?? String(err) };
   }
   port.postMessage(reply);
 });

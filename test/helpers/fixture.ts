@@ -5,7 +5,12 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 /** Repo root, from dist/test/helpers/ or test/helpers/. */
-export const repoRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..', '..', ...(import.meta.url.includes('/dist/') ? ['..'] : []));
+export const repoRoot = path.resolve(
+  path.dirname(fileURLToPath(import.meta.url)),
+  '..',
+  '..',
+  ...(import.meta.url.includes('/dist/') ? ['..'] : []),
+);
 export const fixtures = path.join(repoRoot, 'test', 'fixtures');
 
 const made: string[] = [];

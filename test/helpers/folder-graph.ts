@@ -37,7 +37,8 @@ export function folderEdges(srcDir: string): FolderEdge[] {
     for (const { fileName: spec } of info.importedFiles) {
       if (!spec.startsWith('.')) continue;
       const target = path.resolve(path.dirname(file), spec.replace(/\.js$/, '.ts'));
-      const from = folderOf(srcDir, file), to = folderOf(srcDir, target);
+      const from = folderOf(srcDir, file),
+        to = folderOf(srcDir, target);
       if (from !== to) edges.push({ from, to, file: path.relative(srcDir, file), spec });
     }
   }
@@ -52,7 +53,10 @@ export function folderCycles(edges: readonly Pick<FolderEdge, 'from' | 'to'>[]):
     if (!next.has(to)) next.set(to, new Set());
     next.get(from)!.add(to);
   }
-  const index = new Map<string, number>(), low = new Map<string, number>(), stack: string[] = [], onStack = new Set<string>();
+  const index = new Map<string, number>(),
+    low = new Map<string, number>(),
+    stack: string[] = [],
+    onStack = new Set<string>();
   const components: string[][] = [];
   const visit = (v: string): void => {
     index.set(v, index.size);

@@ -15,10 +15,22 @@ export const HOSTILE: { id: string; title: string }[] = [
 /** Writes the project (partner `a` with the hostile records) into `dir` and returns the project file. */
 export function writeHostileProject(dir: string): string {
   const file = writeTinyProject(dir, {
-    version: '1', issued: '2026-06-01',
-    evidence: ['a:p1,b:p1,0.9,1', 'a:p2,b:p2,0.93,1', 'a:p3,c:p3,0.85,1', 'a:p4,b:p4,0.94,1', 'a:p5,c:p5,0.95,1', 'b:p1,c:p1,0.88,1'],
+    version: '1',
+    issued: '2026-06-01',
+    evidence: [
+      'a:p1,b:p1,0.9,1',
+      'a:p2,b:p2,0.93,1',
+      'a:p3,c:p3,0.85,1',
+      'a:p4,b:p4,0.94,1',
+      'a:p5,c:p5,0.95,1',
+      'b:p1,c:p1,0.88,1',
+    ],
   });
-  const rows = ['work,photo,title,date', ...HOSTILE.map((h, i) => `${csv(h.id)},p${i + 1},${csv(h.title)},1475`), ...[6, 7, 8, 9].map((i) => `${i},p${i},Panel A${i},1475`)];
+  const rows = [
+    'work,photo,title,date',
+    ...HOSTILE.map((h, i) => `${csv(h.id)},p${i + 1},${csv(h.title)},1475`),
+    ...[6, 7, 8, 9].map((i) => `${i},p${i},Panel A${i},1475`),
+  ];
   writeFileSync(path.join(dir, 'catalogues', 'a.csv'), rows.join('\n') + '\n');
   return file;
 }

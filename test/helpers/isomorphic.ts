@@ -18,7 +18,8 @@ function canonizer(): Promise<Canonize> {
 function distinct(quads: Iterable<Quad>): Quad[] {
   const seen = new Map<string, Quad>();
   const id = (t: Quad['subject'] | Quad['object'] | Quad['graph']) => N3.termToId(t as N3.Term);
-  for (const q of quads) seen.set(`${id(q.subject)}\u0000${id(q.predicate)}\u0000${id(q.object)}\u0000${id(q.graph)}`, q);
+  for (const q of quads)
+    seen.set(`${id(q.subject)}\u0000${id(q.predicate)}\u0000${id(q.object)}\u0000${id(q.graph)}`, q);
   return [...seen.values()];
 }
 

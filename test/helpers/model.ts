@@ -1,5 +1,12 @@
 // Test helper: a tiny Model built in code (partners, works, image matches, decisions, gold) without any files.
-import { IMAGE_ROLES, type CenturyConvention, type ImageRole, type Model, type Policy, type Verdict } from '../../src/model.js';
+import {
+  IMAGE_ROLES,
+  type CenturyConvention,
+  type ImageRole,
+  type Model,
+  type Policy,
+  type Verdict,
+} from '../../src/model.js';
 
 export interface TinyWork {
   ref: string;
@@ -21,7 +28,14 @@ export interface TinySpec {
   roles?: Record<string, ImageRole>;
 }
 
-export const DEFAULT_POLICY: Policy = { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3, indiscriminateAbove: null, reviewLimit: 500 };
+export const DEFAULT_POLICY: Policy = {
+  proposeAt: 0.5,
+  autoConfirmAt: null,
+  partOverlapBelow: 0.7,
+  minOverlap: 0.3,
+  indiscriminateAbove: null,
+  reviewLimit: 500,
+};
 
 const split = (ref: string): [string, string] => {
   const i = ref.indexOf(':');
@@ -35,7 +49,8 @@ export function tinyModel(spec: TinySpec): Model {
   const workIndex = partners.map(() => new Map<string, number>());
   const imageIndex = partners.map(() => new Map<string, number>());
   const works: Model['works'] = [];
-  const imgWork: number[] = [], imgId: string[] = [];
+  const imgWork: number[] = [],
+    imgId: string[] = [];
   for (const raw of spec.works) {
     const w = typeof raw === 'string' ? { ref: raw } : raw;
     const [key, id] = split(w.ref);
@@ -43,7 +58,14 @@ export function tinyModel(spec: TinySpec): Model {
     if (p === undefined) throw new Error(`unknown partner in ${w.ref}`);
     const n = works.length;
     const count = w.images ?? 1;
-    works.push({ partner: p, id, title: w.title ?? `Title of ${w.ref}`, date: w.date ?? '', line: n + 2, imageCount: count });
+    works.push({
+      partner: p,
+      id,
+      title: w.title ?? `Title of ${w.ref}`,
+      date: w.date ?? '',
+      line: n + 2,
+      imageCount: count,
+    });
     workIndex[p].set(id, n);
     for (let k = 0; k < count; k++) {
       imageIndex[p].set(`${id}#${k}`, imgId.length);
@@ -81,7 +103,11 @@ export function tinyModel(spec: TinySpec): Model {
         imageIri: `https://${p.key}.example.org/id/image/{image}`,
         recordPage: p.recordPage ?? `https://${p.key}.example.org/records/{work}`,
         centuryConvention: p.convention ?? 'ordinal',
-        catalogue: { file: `${p.key}.csv`, delimiter: ',', columns: { work: 'work', image: 'image', title: 'title', date: 'date' } },
+        catalogue: {
+          file: `${p.key}.csv`,
+          delimiter: ',',
+          columns: { work: 'work', image: 'image', title: 'title', date: 'date' },
+        },
       })),
       evidence: [{ file: 'evidence.csv' }],
       decisions: [],
@@ -90,7 +116,15 @@ export function tinyModel(spec: TinySpec): Model {
     },
     works,
     workIndex,
-    images: { count: imgId.length, work: Int32Array.from(imgWork), id: imgId, line: Int32Array.from(imgId, (_, i) => i + 2), role, width: new Int32Array(imgId.length), height: new Int32Array(imgId.length) },
+    images: {
+      count: imgId.length,
+      work: Int32Array.from(imgWork),
+      id: imgId,
+      line: Int32Array.from(imgId, (_, i) => i + 2),
+      role,
+      width: new Int32Array(imgId.length),
+      height: new Int32Array(imgId.length),
+    },
     matches: {
       count: m.length,
       a: Int32Array.from(m, (r) => imageNo(r[0])),
@@ -104,7 +138,14 @@ export function tinyModel(spec: TinySpec): Model {
     runs: [{ id: 'run-1', software: 'test-matcher', version: '1.0', started: '2026-01-01T00:00:00Z', parameters: {} }],
     evidenceFiles: ['evidence.csv'],
     decisions: (spec.decisions ?? []).map(([a, b, verdict, curator, date], i) => ({
-      a: workNo(a), b: workNo(b), verdict, curator: curator ?? 'A. Curator', date: date ?? '2026-01-01', note: '', file: 'decisions.csv', line: i + 2,
+      a: workNo(a),
+      b: workNo(b),
+      verdict,
+      curator: curator ?? 'A. Curator',
+      date: date ?? '2026-01-01',
+      note: '',
+      file: 'decisions.csv',
+      line: i + 2,
     })),
     gold: (spec.gold ?? []).map(([a, b], i) => ({ a: workNo(a), b: workNo(b), line: i + 2 })),
     warnings: [],

@@ -1,5 +1,6 @@
 // SHACL test manifests (the W3C SHACL test suite's format) → runnable cases checked through src/validate/shacl.ts.
-// Comparison rules: the suite's own document (w3c/data-shapes, data-shapes-test-suite/index.html, "Validation Reports" /
+// Comparison rules: the suite's own document (w3c/data-shapes, data-shapes-test-suite/index.html, "Validation Reports"
+// /
 // compliance levels): full compliance = the post-processed report is isomorphic to the expected mf:result graph;
 // partial compliance = same sh:conforms.
 import assert from 'node:assert/strict';
@@ -16,7 +17,17 @@ const { namedNode } = N3.DataFactory;
 /** Predicates kept in the actual report before comparing (the suite document's post-processing list). */
 const KEPT = new Set([
   RDF_TYPE,
-  ...['result', 'conforms', 'focusNode', 'resultPath', 'resultSeverity', 'sourceConstraint', 'sourceConstraintComponent', 'sourceShape', 'value'].map((l) => iri('sh', l)),
+  ...[
+    'result',
+    'conforms',
+    'focusNode',
+    'resultPath',
+    'resultSeverity',
+    'sourceConstraint',
+    'sourceConstraintComponent',
+    'sourceShape',
+    'value',
+  ].map((l) => iri('sh', l)),
 ]);
 
 const cache = new Map<string, N3.Quad[]>();
@@ -33,7 +44,10 @@ export async function loadTestFile(url: string): Promise<N3.Quad[]> {
 /** Follows mf:include triples (repeated, not a list) from a manifest to the test files. */
 export async function testFiles(manifestUrl: string): Promise<string[]> {
   const store = new N3.Store(await loadTestFile(manifestUrl));
-  const includes = store.getObjects(namedNode(manifestUrl), iri('mf', 'include'), null).map((t) => t.value).sort();
+  const includes = store
+    .getObjects(namedNode(manifestUrl), iri('mf', 'include'), null)
+    .map((t) => t.value)
+    .sort();
   if (includes.length === 0) return [manifestUrl];
   const nested = await Promise.all(includes.map(testFiles));
   return nested.flat();
@@ -41,7 +55,8 @@ export async function testFiles(manifestUrl: string): Promise<string[]> {
 
 function list(store: N3.Store, head: N3.Term): N3.Term[] {
   const out: N3.Term[] = [];
-  for (let n = head; n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0]) out.push(store.getObjects(n, iri('rdf', 'first'), null)[0]);
+  for (let n = head; n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0])
+    out.push(store.getObjects(n, iri('rdf', 'first'), null)[0]);
   return out;
 }
 
@@ -66,13 +81,22 @@ function expectedGraph(store: N3.Store, report: N3.Term): N3.Quad[] {
   return out.map((q) => N3.DataFactory.quad(q.subject, q.predicate, q.object));
 }
 
-/** Post-processing of the actual report described by the suite (keep listed predicates, path structures, matching messages). */
+/**
+ * Post-processing of the actual report described by the suite (keep listed predicates, path structures, matching
+ * messages).
+ */
 function postProcess(actual: N3.Quad[], expected: N3.Quad[]): N3.Quad[] {
   const store = new N3.Store(actual);
   const pathNodes: N3.Quad[] = [];
   for (const q of actual) if (q.predicate.value === iri('sh', 'resultPath')) closure(store, q.object, pathNodes);
-  const expectedMessages = new Set(expected.filter((q) => q.predicate.value === iri('sh', 'resultMessage')).map((q) => N3.termToId(q.object)));
-  const kept = actual.filter((q) => KEPT.has(q.predicate.value) || (q.predicate.value === iri('sh', 'resultMessage') && expectedMessages.has(N3.termToId(q.object))));
+  const expectedMessages = new Set(
+    expected.filter((q) => q.predicate.value === iri('sh', 'resultMessage')).map((q) => N3.termToId(q.object)),
+  );
+  const kept = actual.filter(
+    (q) =>
+      KEPT.has(q.predicate.value) ||
+      (q.predicate.value === iri('sh', 'resultMessage') && expectedMessages.has(N3.termToId(q.object))),
+  );
   return [...kept, ...pathNodes];
 }
 
@@ -88,7 +112,10 @@ export interface ManifestCase {
   run(): Promise<void>;
 }
 
-/** The entries (mf:entries list) of one test file, each ready to run (SHACL test suite: sht:Validate, mf:action, mf:result). */
+/**
+ * The entries (mf:entries list) of one test file, each ready to run (SHACL test suite: sht:Validate, mf:action,
+ * mf:result).
+ */
 export async function manifestCases(fileUrl: string, engine: ShaclEngine = 'builtin'): Promise<ManifestCase[]> {
   const store = new N3.Store(await loadTestFile(fileUrl));
   const entriesHead = store.getObjects(namedNode(fileUrl), iri('mf', 'entries'), null)[0];
@@ -99,7 +126,12 @@ export async function manifestCases(fileUrl: string, engine: ShaclEngine = 'buil
       file: fileUrl,
       expectedResults: expectedNode ? store.getObjects(expectedNode, iri('sh', 'result'), null).length : 0,
       async run() {
-        assert.ok(store.has(N3.DataFactory.quad(entry as N3.Quad_Subject, namedNode(RDF_TYPE), namedNode(iri('sht', 'Validate')))), 'entry is an sht:Validate');
+        assert.ok(
+          store.has(
+            N3.DataFactory.quad(entry as N3.Quad_Subject, namedNode(RDF_TYPE), namedNode(iri('sht', 'Validate'))),
+          ),
+          'entry is an sht:Validate',
+        );
         const action = store.getObjects(entry, iri('mf', 'action'), null)[0];
         const dataUrl = store.getObjects(action, iri('sht', 'dataGraph'), null)[0].value;
         const shapesUrl = store.getObjects(action, iri('sht', 'shapesGraph'), null)[0].value;
@@ -112,10 +144,14 @@ export async function manifestCases(fileUrl: string, engine: ShaclEngine = 'buil
         const outcome = await validate(data, shapes, { engine });
         const expected = expectedGraph(store, expectedNode);
         const expectedConforms = store.getObjects(expectedNode, iri('sh', 'conforms'), null)[0].value === 'true';
-        const actualConforms = outcome.reportQuads.find((q) => q.predicate.value === iri('sh', 'conforms'))!.object.value === 'true';
+        const actualConforms =
+          outcome.reportQuads.find((q) => q.predicate.value === iri('sh', 'conforms'))!.object.value === 'true';
         assert.equal(actualConforms, expectedConforms, 'partial compliance: sh:conforms');
         const actual = postProcess(outcome.reportQuads, expected);
-        assert.ok(await isomorphic(actual, expected), `full compliance: report isomorphic to the expected one\nactual:\n${new N3.Writer().quadsToString(actual)}\nexpected:\n${new N3.Writer().quadsToString(expected)}`);
+        assert.ok(
+          await isomorphic(actual, expected),
+          `full compliance: report isomorphic to the expected one\nactual:\n${new N3.Writer().quadsToString(actual)}\nexpected:\n${new N3.Writer().quadsToString(expected)}`,
+        );
       },
     };
   });

@@ -12,17 +12,25 @@ import { repoRoot, tempDir } from './fixture.js';
 
 const demo = path.join(repoRoot, 'demo-data');
 
-export interface DemoSites { tmp: string; release1: string; release2: string; site1: string; site2: string }
+export interface DemoSites {
+  tmp: string;
+  release1: string;
+  release2: string;
+  site1: string;
+  site2: string;
+}
 
 let demoSites: Promise<DemoSites> | undefined;
 /** Demo releases 2026.1 and 2027.1 (with the first as previous) and a site of each, built once per process. */
 export function demoSitesOnce(): Promise<DemoSites> {
   demoSites ??= (async () => {
     const tmp = tempDir('concordat-site-');
-    const release1 = path.join(tmp, 'releases', '2026.1'), release2 = path.join(tmp, 'releases', '2027.1');
+    const release1 = path.join(tmp, 'releases', '2026.1'),
+      release2 = path.join(tmp, 'releases', '2027.1');
     await build(path.join(demo, 'concordance.json'), release1);
     await build(path.join(demo, 'release-2', 'concordance.json'), release2, { previous: release1 });
-    const site1 = path.join(tmp, 'site', '2026.1'), site2 = path.join(tmp, 'site', '2027.1');
+    const site1 = path.join(tmp, 'site', '2026.1'),
+      site2 = path.join(tmp, 'site', '2027.1');
     await writeSite(release1, site1);
     await writeSite(release2, site2, { previous: site1 });
     return { tmp, release1, release2, site1, site2 };
@@ -31,7 +39,9 @@ export function demoSitesOnce(): Promise<DemoSites> {
 }
 
 /** The release's triples by subject (N-Triples text of each, graph dropped), read with n3's own parser. */
-export async function triplesBySubject(release: string): Promise<{ bySubject: Map<string, Set<string>>; graphs: Set<string> }> {
+export async function triplesBySubject(
+  release: string,
+): Promise<{ bySubject: Map<string, Set<string>>; graphs: Set<string> }> {
   const bySubject = new Map<string, Set<string>>();
   const graphs = new Set<string>();
   const w = new N3.Writer({ format: 'N-Triples' });
@@ -51,11 +61,20 @@ export function sampleIris(base: string, iris: Iterable<string>): Map<string, st
   for (const x of iris) {
     const rel = relPath(x, base);
     if (rel === null || !routeOf(rel)) continue;
-    const shape = `${routeOf(rel)!.kind}:${rel.split('/').map((s, i) => (i === 0 || /^(v|plan|association|implied|conflict|linkset|file|partner|publisher)$/.test(s) ? s : '*')).join('/')}`;
+    const shape = `${routeOf(rel)!.kind}:${rel
+      .split('/')
+      .map((s, i) =>
+        i === 0 || /^(v|plan|association|implied|conflict|linkset|file|partner|publisher)$/.test(s) ? s : '*',
+      )
+      .join('/')}`;
     const l = byShape.get(shape);
-    if (l) l.push(x); else byShape.set(shape, [x]);
+    if (l) l.push(x);
+    else byShape.set(shape, [x]);
   }
-  for (const [k, l] of byShape) { l.sort(); byShape.set(k, [...new Set([l[0], l[l.length - 1]])]); }
+  for (const [k, l] of byShape) {
+    l.sort();
+    byShape.set(k, [...new Set([l[0], l[l.length - 1]])]);
+  }
   return byShape;
 }
 
@@ -63,11 +82,32 @@ const NT = new N3.Writer({ format: 'N-Triples' });
 const lines = (quads: N3.Quad[]) => new Set(quads.map((q) => NT.quadToString(q.subject, q.predicate, q.object)));
 
 /** Accept header → media type of the 200 that follows the 303, and how its body is read into triples. */
-export const ACCEPTS: { accept: string; type: string; ext: string; parse: (body: string, url: string) => Promise<Set<string>> }[] = [
+export const ACCEPTS: {
+  accept: string;
+  type: string;
+  ext: string;
+  parse: (body: string, url: string) => Promise<Set<string>>;
+}[] = [
   { accept: 'text/html', type: 'text/html', ext: '.html', parse: async () => new Set() },
-  { accept: 'text/turtle', type: 'text/turtle', ext: '.ttl', parse: async (b, url) => lines(new N3.Parser({ format: 'text/turtle', baseIRI: url }).parse(b)) },
-  { accept: 'application/ld+json', type: 'application/ld+json', ext: '.jsonld', parse: async (b, url) => lines(new N3.Parser({ format: 'application/n-quads' }).parse(await jsonldToNQuads(b, url, url))) },
-  { accept: 'application/n-triples', type: 'application/n-triples', ext: '.nt', parse: async (b) => lines(new N3.Parser({ format: 'application/n-triples' }).parse(b)) },
+  {
+    accept: 'text/turtle',
+    type: 'text/turtle',
+    ext: '.ttl',
+    parse: async (b, url) => lines(new N3.Parser({ format: 'text/turtle', baseIRI: url }).parse(b)),
+  },
+  {
+    accept: 'application/ld+json',
+    type: 'application/ld+json',
+    ext: '.jsonld',
+    parse: async (b, url) =>
+      lines(new N3.Parser({ format: 'application/n-quads' }).parse(await jsonldToNQuads(b, url, url))),
+  },
+  {
+    accept: 'application/n-triples',
+    type: 'application/n-triples',
+    ext: '.nt',
+    parse: async (b) => lines(new N3.Parser({ format: 'application/n-triples' }).parse(b)),
+  },
   { accept: '*/*', type: 'text/html', ext: '.html', parse: async () => new Set() },
 ];
 
@@ -78,7 +118,11 @@ export const ACCEPTS: { accept: string; type: string; ext: string; parse: (body:
 export async function checkMintedIris(origin: string, release: string, base: string): Promise<number> {
   const { bySubject, graphs } = await triplesBySubject(release);
   const objects = new Set<string>();
-  for (const set of bySubject.values()) for (const l of set) { const m = /^<[^>]*> <[^>]*> <([^>]*)> \.$/.exec(l); if (m) objects.add(m[1]); }
+  for (const set of bySubject.values())
+    for (const l of set) {
+      const m = /^<[^>]*> <[^>]*> <([^>]*)> \.$/.exec(l);
+      if (m) objects.add(m[1]);
+    }
   const sample = sampleIris(base, [...bySubject.keys(), ...objects, ...graphs]);
   let checked = 0;
   for (const [shape, iris] of sample) {

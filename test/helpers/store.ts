@@ -27,7 +27,11 @@ export function fileCounts(file: string, merge = false): Map<string, number> {
 /** A graph's triples as sorted N-Triples lines, blank-node labels masked (labels are store-internal). */
 export async function graphDump(store: Store, graph: string): Promise<string[]> {
   const r = await store.query(`CONSTRUCT { ?s ?p ?o } WHERE { GRAPH <${graph}> { ?s ?p ?o } }`);
-  return formatResult(r, 'table').split('\n').filter(Boolean).map((l) => l.replace(/_:b\d+/g, '_:_')).sort();
+  return formatResult(r, 'table')
+    .split('\n')
+    .filter(Boolean)
+    .map((l) => l.replace(/_:b\d+/g, '_:_'))
+    .sort();
 }
 
 /** A second version of a graph, sharing no triple with the fixture's. */
@@ -52,7 +56,11 @@ const hex16 = (s: string): string => createHash('sha256').update(s).digest('hex'
 const link = (a: string, b: string): string => `${BASE}link/${hex16([a, b].sort().join('\t'))}`;
 /** The fixture names image matches the same way, over the two image IRIs. */
 const match = (a: string, b: string): string => `${BASE}match/${hex16(`${a}\t${b}`)}`;
-const IMG = { H: 'https://harbour.example.org/id/image/', L: 'https://lakeside.example.net/image/', U: 'https://upland.example.com/media/' };
+const IMG = {
+  H: 'https://harbour.example.org/id/image/',
+  L: 'https://lakeside.example.net/image/',
+  U: 'https://upland.example.com/media/',
+};
 
 const m1 = [match(IMG.H + 'P-1001', IMG.L + 'P-7001'), '0.93', IMG.H + 'P-1001', IMG.L + 'P-7001'];
 const m2 = [match(IMG.H + 'P-1002', IMG.L + 'P-7002'), '0.88', IMG.H + 'P-1002', IMG.L + 'P-7002'];
@@ -60,9 +68,30 @@ const m3 = [match(IMG.L + 'P-7001', IMG.U + 'P-3001'), '0.71', IMG.L + 'P-7001',
 const m4 = [match(IMG.H + 'P-1021', IMG.L + 'P-9001'), '0.55', IMG.H + 'P-1021', IMG.L + 'P-9001'];
 const byMatch = (rows: string[][]): string[][] => rows.sort((a, b) => (a[0] + a[6] < b[0] + b[6] ? -1 : 1));
 const members = [
-  [`${BASE}work/1`, W['H-101'], 'harbour', 'Madonna with a pomegranate', 'ca. 1480', 'https://harbour.example.org/records/H-101'],
-  [`${BASE}work/1`, W['L-7'], 'lakeside', 'Virgin and Child with pomegranate', '1475-1485', 'https://lakeside.example.net/catalogue/L-7'],
-  [`${BASE}work/1`, W['U-3'], 'upland', 'Madonna of the pomegranate, copy', 'late 16th century', 'https://upland.example.com/view/U-3'],
+  [
+    `${BASE}work/1`,
+    W['H-101'],
+    'harbour',
+    'Madonna with a pomegranate',
+    'ca. 1480',
+    'https://harbour.example.org/records/H-101',
+  ],
+  [
+    `${BASE}work/1`,
+    W['L-7'],
+    'lakeside',
+    'Virgin and Child with pomegranate',
+    '1475-1485',
+    'https://lakeside.example.net/catalogue/L-7',
+  ],
+  [
+    `${BASE}work/1`,
+    W['U-3'],
+    'upland',
+    'Madonna of the pomegranate, copy',
+    'late 16th century',
+    'https://upland.example.com/view/U-3',
+  ],
 ];
 
 /** One named-query case: parameters and the rows the fixture implies (values only, '' when unbound). */
@@ -83,7 +112,11 @@ export const NAMED_CASES: NamedCase[] = [
       [link(W['L-7'], W['U-3']), SKOS + 'closeMatch', W['U-3'], CX + 'Proposed', '0.71', '1', ...m3],
     ]),
   },
-  { name: 'claims-about-record', params: { work: W['H-102'] }, rows: [[link(W['H-102'], W['L-9']), '', W['L-9'], CX + 'Rejected', '0.55', '1', ...m4]] }, // rejected: no relation
+  {
+    name: 'claims-about-record',
+    params: { work: W['H-102'] },
+    rows: [[link(W['H-102'], W['L-9']), '', W['L-9'], CX + 'Rejected', '0.55', '1', ...m4]],
+  }, // rejected: no relation
   { name: 'claims-about-record', params: { work: 'https://harbour.example.org/id/work/none' }, rows: [] },
   { name: 'cluster-members', params: { cluster: `${BASE}work/1` }, rows: members },
   { name: 'cluster-members', params: { cluster: `${BASE}work/0` }, rows: members }, // retired ID → its replacement
@@ -95,7 +128,11 @@ export const NAMED_CASES: NamedCase[] = [
       [`${BASE}work/1`, W['L-7'], W['U-3'], 'conflict', '1475-1485', 'late 16th century'],
     ],
   },
-  { name: 'pairs-through-third-archive', params: {}, rows: [[`${BASE}work/1`, W['H-101'], W['U-3'], 'harbour', 'upland']] },
+  {
+    name: 'pairs-through-third-archive',
+    params: {},
+    rows: [[`${BASE}work/1`, W['H-101'], W['U-3'], 'harbour', 'upland']],
+  },
   {
     name: 'partner-pair-counts',
     params: {},

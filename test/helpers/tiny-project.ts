@@ -57,22 +57,40 @@ export function writeTinyProject(dir: string, p: TinyProject): string {
     for (const w of p[key]) for (let k = 0; k < w.images; k++) text += row(delimiter, [w.id, imageId(w, k), w.title]);
     writeFileSync(path.join(dir, 'catalogues', `${key}.csv`), text);
     return {
-      key, name: `${key} archive`,
+      key,
+      name: `${key} archive`,
       workIri: `${workSpace}{work}`,
       imageIri: `https://${key}.example.org/id/image/{image}`,
       recordPage: `https://${key}.example.org/records/{work}`,
-      catalogue: { file: `catalogues/${key}.csv`, delimiter, columns: { work: 'Work', image: 'Image', title: 'Title' } },
+      catalogue: {
+        file: `catalogues/${key}.csv`,
+        delimiter,
+        columns: { work: 'Work', image: 'Image', title: 'Title' },
+      },
     };
   });
   const at = <T>(xs: T[], i: number) => xs[i % xs.length];
   let evidence = row(',', ['image_a', 'image_b', 'score', 'overlap']);
   for (const m of p.matches) {
     const [wa, wb] = [at(p.alpha, m.a), at(p.beta, m.b)];
-    evidence += row(',', [`alpha:${imageId(wa, m.ai)}`, `beta:${imageId(wb, m.bi)}`, (m.score / 100).toFixed(2), (m.overlap / 100).toFixed(2)]);
+    evidence += row(',', [
+      `alpha:${imageId(wa, m.ai)}`,
+      `beta:${imageId(wb, m.bi)}`,
+      (m.score / 100).toFixed(2),
+      (m.overlap / 100).toFixed(2),
+    ]);
   }
   writeFileSync(path.join(dir, 'evidence', 'run.csv'), evidence);
   let decisions = row(',', ['work_a', 'work_b', 'verdict', 'curator', 'date', 'note']);
-  for (const d of p.decisions) decisions += row(',', [`alpha:${at(p.alpha, d.a).id}`, `beta:${at(p.beta, d.b).id}`, d.verdict, d.curator, '2026-10-20', d.note]);
+  for (const d of p.decisions)
+    decisions += row(',', [
+      `alpha:${at(p.alpha, d.a).id}`,
+      `beta:${at(p.beta, d.b).id}`,
+      d.verdict,
+      d.curator,
+      '2026-10-20',
+      d.note,
+    ]);
   // A decisions file with a header and no rows is refused by the loader, so none is written then.
   if (p.decisions.length) writeFileSync(path.join(dir, 'decisions', 'curators.csv'), decisions);
   const project = {
@@ -81,7 +99,18 @@ export function writeTinyProject(dir: string, p: TinyProject): string {
     license: 'https://creativecommons.org/publicdomain/zero/1.0/',
     publisher: { name: 'Generated Test Consortium' },
     partners,
-    evidence: [{ file: 'evidence/run.csv', run: { id: 'run-1', software: 'test-matcher', version: '1.0.0', started: '2026-10-04T09:00:00Z', parameters: { features: 500 } } }],
+    evidence: [
+      {
+        file: 'evidence/run.csv',
+        run: {
+          id: 'run-1',
+          software: 'test-matcher',
+          version: '1.0.0',
+          started: '2026-10-04T09:00:00Z',
+          parameters: { features: 500 },
+        },
+      },
+    ],
     decisions: p.decisions.length ? ['decisions/curators.csv'] : [],
     policy: { proposeAt: 0.5, autoConfirmAt: null, partOverlapBelow: 0.7, minOverlap: 0.3 },
     release: { version: '1' },

@@ -3,7 +3,16 @@
 import { html, text, type Safe } from '../html.js';
 import { curie, type SiteContext } from '../context.js';
 
-const size = (n?: number) => (n === undefined || Number.isNaN(n) ? '' : n < 1024 ? `${n} B` : n < 1 << 20 ? `${(n / 1024).toFixed(1)} KiB` : n < 1 << 30 ? `${(n / (1 << 20)).toFixed(1)} MiB` : `${(n / (1 << 30)).toFixed(2)} GiB`);
+const size = (n?: number) =>
+  n === undefined || Number.isNaN(n)
+    ? ''
+    : n < 1024
+      ? `${n} B`
+      : n < 1 << 20
+        ? `${(n / 1024).toFixed(1)} KiB`
+        : n < 1 << 30
+          ? `${(n / (1 << 20)).toFixed(1)} MiB`
+          : `${(n / (1 << 30)).toFixed(2)} GiB`;
 
 export function datasetSummary(ctx: SiteContext, doc: string): Safe {
   const i = ctx.info;
@@ -18,10 +27,18 @@ ${i.description ? html`<dt>Description</dt><dd>${text(i.description)}</dd>` : ''
 </dl>
 <section aria-labelledby="downloads"><h2 id="downloads">Downloads</h2>
 <table><thead><tr><th scope="col">File</th><th scope="col">Media type</th><th scope="col" class="num">Size</th><th scope="col">SHA-256</th></tr></thead><tbody>
-${i.files.map((f) => html`<tr id="${decodeURIComponent(f.iri.slice(i.base.length))}"><td>${f.url ? html`<a href="${f.file ? `${'../'.repeat(doc.split('/').length - 1)}releases/${encodeURIComponent(i.version)}/${f.file.split('/').map(encodeURIComponent).join('/')}` : f.url}" download>${f.file ?? f.url}</a>` : f.title ?? ''}</td><td>${f.mediaType?.replace(/^.*media-types\//, '') ?? ''}</td><td class="num">${size(f.byteSize)}</td><td><code class="hash">${f.sha256 ?? ''}</code></td></tr>
-`)}</tbody></table></section>
+${i.files.map(
+  (
+    f,
+  ) => html`<tr id="${decodeURIComponent(f.iri.slice(i.base.length))}"><td>${f.url ? html`<a href="${f.file ? `${'../'.repeat(doc.split('/').length - 1)}releases/${encodeURIComponent(i.version)}/${f.file.split('/').map(encodeURIComponent).join('/')}` : f.url}" download>${f.file ?? f.url}</a>` : (f.title ?? '')}</td><td>${f.mediaType?.replace(/^.*media-types\//, '') ?? ''}</td><td class="num">${size(f.byteSize)}</td><td><code class="hash">${f.sha256 ?? ''}</code></td></tr>
+`,
+)}</tbody></table></section>
 <section aria-labelledby="linksets"><h2 id="linksets">Linksets</h2>
 <table><thead><tr><th scope="col">Linkset</th><th scope="col">From</th><th scope="col">To</th><th scope="col">Predicate</th><th scope="col" class="num">Triples</th></tr></thead><tbody>
-${i.linksets.map((l) => html`<tr><td>${text(l.title ?? l.iri)}</td><td>${partnerName(l.subjects)}</td><td>${partnerName(l.objects)}</td><td>${l.predicate ? curie(l.predicate) : ''}</td><td class="num">${Number.isNaN(l.triples) ? '' : l.triples}</td></tr>
-`)}</tbody></table></section>`;
+${i.linksets.map(
+  (
+    l,
+  ) => html`<tr><td>${text(l.title ?? l.iri)}</td><td>${partnerName(l.subjects)}</td><td>${partnerName(l.objects)}</td><td>${l.predicate ? curie(l.predicate) : ''}</td><td class="num">${Number.isNaN(l.triples) ? '' : l.triples}</td></tr>
+`,
+)}</tbody></table></section>`;
 }

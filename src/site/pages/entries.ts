@@ -15,7 +15,10 @@ export function linkSection(ctx: SiteContext, l: LinkEntry, doc: string, cluster
   const s = workView(ctx, main.one(V.subjectWork) ?? '', nodes.get(main.one(V.subjectWork) ?? ''));
   const o = workView(ctx, main.one(V.objectWork) ?? '', nodes.get(main.one(V.objectWork) ?? ''));
   const current = n?.by.has(V.status);
-  const ms = (n ?? main).all(V.derivedFrom).map((m) => nodes.get(m)).filter((x): x is Node => !!x);
+  const ms = (n ?? main)
+    .all(V.derivedFrom)
+    .map((m) => nodes.get(m))
+    .filter((x): x is Node => !!x);
   return html`<article class="entry" id="${rel(ctx, l.iri)}" aria-labelledby="h-${l.hash}">
 <h2 id="h-${l.hash}">Claim ${l.hash}</h2>
 <p class="iri">Identifier: <code>${l.iri}</code></p>
@@ -29,8 +32,12 @@ ${states.length ? html`<h3>Earlier states</h3>${states.map((x) => html`<section 
 `.text;
 }
 
-/** The head of the table of a match shard page; each match is one row of it (a million matches: no more markup than needed). */
-export const MATCH_TABLE_HEAD = '<table class="evidence"><caption>Image matches: photographs, score, overlap, run, and the claim each is evidence for</caption>\n<thead><tr><th scope="col">Match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th><th scope="col">Run</th><th scope="col">Claim</th></tr></thead><tbody>\n';
+/**
+ * The head of the table of a match shard page; each match is one row of it (a million matches: no more markup than
+ * needed).
+ */
+export const MATCH_TABLE_HEAD =
+  '<table class="evidence"><caption>Image matches: photographs, score, overlap, run, and the claim each is evidence for</caption>\n<thead><tr><th scope="col">Match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th><th scope="col">Run</th><th scope="col">Claim</th></tr></thead><tbody>\n';
 export const MATCH_TABLE_TAIL = '</tbody></table>\n';
 
 /** An image match's row: its photographs, score, overlap, run, and the claim it is evidence for. */
@@ -53,5 +60,6 @@ ${[...nodes.values()].map((x) => html`${x.iri !== e.iri ? html`<h3>${text(ctx.la
 `.text;
 }
 
-const rel = (ctx: SiteContext, x: string) => (x.startsWith(ctx.info.base) ? decodeURIComponent(x.slice(ctx.info.base.length)) : x);
+const rel = (ctx: SiteContext, x: string) =>
+  x.startsWith(ctx.info.base) ? decodeURIComponent(x.slice(ctx.info.base.length)) : x;
 export type { Safe };

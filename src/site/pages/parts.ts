@@ -6,23 +6,43 @@ import { iri as nsIri } from '../../namespaces.js';
 
 const REVIEW = nsIri('cx', 'CuratorReview');
 
-export interface WorkView { iri: string; partner: string; partnerName: string; id: string; title?: string; date?: string; page?: string }
+export interface WorkView {
+  iri: string;
+  partner: string;
+  partnerName: string;
+  id: string;
+  title?: string;
+  date?: string;
+  page?: string;
+}
 
-/** A partner work from its statements: partner key and name, record ID (decoded after the partner's URI space), title, date, record page. */
+/**
+ * A partner work from its statements: partner key and name, record ID (decoded after the partner's URI space), title,
+ * date, record page.
+ */
 export function workView(ctx: SiteContext, iri: string, n: Node | undefined): WorkView {
   const partner = n?.one(V.partner) ?? '';
   const p = ctx.info.partners.get(partner);
   const ref = refOfWorkIri(iri, partner, p?.uriSpace);
-  return { iri, partner, partnerName: p?.name ?? partner, id: ref.startsWith(`${partner}:`) ? ref.slice(partner.length + 1) : ref, title: n?.one(V.title), date: n?.one(V.dateAsCatalogued), page: n?.one(V.page) };
+  return {
+    iri,
+    partner,
+    partnerName: p?.name ?? partner,
+    id: ref.startsWith(`${partner}:`) ? ref.slice(partner.length + 1) : ref,
+    title: n?.one(V.title),
+    date: n?.one(V.dateAsCatalogued),
+    page: n?.one(V.page),
+  };
 }
 
 /** "Partner ID" with the title: how a record is named in claims. */
-export const workName = (w: WorkView) => html`<span class="work"><span class="archive">${w.partnerName}</span> <span class="recid">${text(w.id)}</span>${w.title ? html` <span class="title">“${text(w.title)}”</span>` : ''}</span>`;
+export const workName = (w: WorkView) =>
+  html`<span class="work"><span class="archive">${w.partnerName}</span> <span class="recid">${text(w.id)}</span>${w.title ? html` <span class="title">“${text(w.title)}”</span>` : ''}</span>`;
 
 const STATUS_WORDS: Record<string, string> = { Confirmed: 'confirmed', Proposed: 'proposed', Rejected: 'rejected' };
 /** The status word of a cx:status IRI, shown with a class so its colour never carries the meaning alone. */
 export function status(x: string | undefined): Safe {
-  const w = x ? STATUS_WORDS[x.replace(/^.*#/, '')] ?? curie(x) : 'unknown';
+  const w = x ? (STATUS_WORDS[x.replace(/^.*#/, '')] ?? curie(x)) : 'unknown';
   return html`<span class="status status-${w}">${w}</span>`;
 }
 
@@ -34,10 +54,14 @@ export function assertion(ctx: SiteContext, link: Node, doc: string): Safe {
     const review = n?.all(V.type).includes(REVIEW);
     const curator = review ? n?.one(V.associatedWith) : undefined;
     const when = n?.one(V.endedAt) ?? n?.one(V.date) ?? n?.one(V.startedAt);
-    const who = curator ? html`<a href="${ctx.href(curator, doc)}">${text(ctx.label(curator))}</a> (curator review <a href="${ctx.href(g, doc)}">${g.replace(/^.*\//, '')}</a>)` : html`<a href="${ctx.href(g, doc)}">${text(ctx.label(g))}</a>`;
+    const who = curator
+      ? html`<a href="${ctx.href(curator, doc)}">${text(ctx.label(curator))}</a> (curator review <a href="${ctx.href(g, doc)}">${g.replace(/^.*\//, '')}</a>)`
+      : html`<a href="${ctx.href(g, doc)}">${text(ctx.label(g))}</a>`;
     parts.push(html`${who}${when ? html`, <time datetime="${when}">${when}</time>` : ''}`);
   }
-  return parts.length ? html`${parts.map((p, i) => html`${i ? '; ' : ''}${p}`)}` : html`<span class="none">not recorded</span>`;
+  return parts.length
+    ? html`${parts.map((p, i) => html`${i ? '; ' : ''}${p}`)}`
+    : html`<span class="none">not recorded</span>`;
 }
 
 /** The image pairs behind a link: photograph A and B, score, overlap (the run is named once, under the table). */
@@ -48,8 +72,12 @@ export function matchTable(ctx: SiteContext, matches: Node[], doc: string, capti
 <caption>${caption}</caption>
 <thead><tr><th scope="col">Match</th><th scope="col">Photograph A</th><th scope="col">Photograph B</th><th scope="col" class="num">Score</th><th scope="col" class="num">Overlap</th></tr></thead>
 <tbody>
-${matches.map((m) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td></tr>
-`)}</tbody>
+${matches.map(
+  (
+    m,
+  ) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td></tr>
+`,
+)}</tbody>
 </table>
 ${runs.length ? html`<p class="small">Matched by ${runs.map((r, i) => html`${i ? ', ' : ''}<a href="${ctx.href(r, doc)}">${text(ctx.label(r))}</a>`)}.</p>` : ''}`;
 }
@@ -57,7 +85,13 @@ ${runs.length ? html`<p class="small">Matched by ${runs.map((r, i) => html`${i ?
 /** Every statement of a node as a definition list (the generic view of a resource). */
 export function statementList(ctx: SiteContext, n: Node, doc: string): Safe {
   return html`<dl class="statements">
-${[...n.by].map(([p, sts]) => html`<dt><a href="${ctx.href(p, doc)}">${curie(p)}</a></dt>
-${sts.map((st) => html`<dd>${st.o.kind === 'iri' ? html`<a href="${ctx.href(st.o.value, doc)}">${text(st.o.value.startsWith(ctx.info.base) ? ctx.label(st.o.value) : curie(st.o.value))}</a>` : st.o.kind === 'bnode' ? html`<code>_:${st.o.value}</code>` : html`${text(st.o.value)}${st.o.datatype ? html` <span class="dt">${curie(st.o.datatype)}</span>` : ''}${st.o.language ? html` <span class="dt">@${st.o.language}</span>` : ''}`}</dd>
-`)}`)}</dl>`;
+${[...n.by].map(
+  ([p, sts]) => html`<dt><a href="${ctx.href(p, doc)}">${curie(p)}</a></dt>
+${sts.map(
+  (
+    st,
+  ) => html`<dd>${st.o.kind === 'iri' ? html`<a href="${ctx.href(st.o.value, doc)}">${text(st.o.value.startsWith(ctx.info.base) ? ctx.label(st.o.value) : curie(st.o.value))}</a>` : st.o.kind === 'bnode' ? html`<code>_:${st.o.value}</code>` : html`${text(st.o.value)}${st.o.datatype ? html` <span class="dt">${curie(st.o.datatype)}</span>` : ''}${st.o.language ? html` <span class="dt">@${st.o.language}</span>` : ''}`}</dd>
+`,
+)}`,
+)}</dl>`;
 }

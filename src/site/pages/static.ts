@@ -15,11 +15,27 @@ export const VOCAB_FILE = path.resolve(here, '..', '..', '..', '..', 'vocab-map'
 export const ASSETS_DIR = path.resolve(here, '..', '..', '..', '..', 'src', 'site', 'assets');
 export const ASSETS = ['site.css', 'site.js', 'icon.svg'];
 
-export function writeStaticPages(ctx: SiteContext, dir: string, own: Map<string, { kind: DocKind; statements: Statement[] }>): void {
+export function writeStaticPages(
+  ctx: SiteContext,
+  dir: string,
+  own: Map<string, { kind: DocKind; statements: Statement[] }>,
+): void {
   const i = ctx.info;
-  const put = (doc: string, body: string) => { const f = path.join(dir, `${doc}.html`); mkdirSync(path.dirname(f), { recursive: true }); writeFileSync(f, body); };
+  const put = (doc: string, body: string) => {
+    const f = path.join(dir, `${doc}.html`);
+    mkdirSync(path.dirname(f), { recursive: true });
+    writeFileSync(f, body);
+  };
   const datasetDoc = decodeURIComponent(i.dataset.slice(i.base.length));
-  put('index', page({ doc: 'index', title: i.title, siteTitle: i.title, alternates: false, licence: i.licence, main: html`
+  put(
+    'index',
+    page({
+      doc: 'index',
+      title: i.title,
+      siteTitle: i.title,
+      alternates: false,
+      licence: i.licence,
+      main: html`
 ${i.description ? html`<p class="lead">${text(i.description)}</p>` : ''}
 <p>Which catalogue records in which archives show the same artwork, how sure that is, on what evidence, and who said so. Release ${i.version}${i.issued ? html` of <time datetime="${i.issued}">${i.issued}</time>` : ''}; see <a href="${datasetDoc}.html">the dataset</a> for downloads and licence.</p>
 <section aria-labelledby="search-h" class="search"><h2 id="search-h">Find a record</h2>
@@ -30,11 +46,43 @@ ${i.description ? html`<p class="lead">${text(i.description)}</p>` : ''}
 </form>
 <p id="search-status" role="status" aria-live="polite" class="aside">Search needs JavaScript; without it, browse the <a href="partners.html">archives</a> or the <a href="${datasetDoc}.html">downloads</a>.</p>
 <ol id="results" class="results"></ol>
-</section>` }));
-  put('partners', page({ doc: 'partners', title: 'Archives', siteTitle: i.title, alternates: false, licence: i.licence, main: html`
-<ul class="cards">${[...i.partners.values()].sort((a, b) => (a.name < b.name ? -1 : 1)).map((p) => html`<li><a href="${decodeURIComponent(p.iri.slice(i.base.length))}.html">${text(p.name)}</a>${p.homepage ? html` — <a href="${p.homepage}" rel="external">${p.homepage}</a>` : ''}</li>`)}</ul>` }));
-  put('dataset', page({ doc: 'dataset', title: 'Dataset', siteTitle: i.title, alternates: false, licence: i.licence, main: html`<p>This site shows release <a href="${datasetDoc}.html">${i.version}</a>.</p>` }));
-  put('404', page({ doc: '404', title: 'Not found', siteTitle: i.title, alternates: false, licence: i.licence, main: html`<p>Nothing is published at this address. Identifiers of this concordance begin with <code>${i.base}</code>; try the <a href="/index.html">search</a>.</p>` }));
+</section>`,
+    }),
+  );
+  put(
+    'partners',
+    page({
+      doc: 'partners',
+      title: 'Archives',
+      siteTitle: i.title,
+      alternates: false,
+      licence: i.licence,
+      main: html`
+<ul class="cards">${[...i.partners.values()].sort((a, b) => (a.name < b.name ? -1 : 1)).map((p) => html`<li><a href="${decodeURIComponent(p.iri.slice(i.base.length))}.html">${text(p.name)}</a>${p.homepage ? html` — <a href="${p.homepage}" rel="external">${p.homepage}</a>` : ''}</li>`)}</ul>`,
+    }),
+  );
+  put(
+    'dataset',
+    page({
+      doc: 'dataset',
+      title: 'Dataset',
+      siteTitle: i.title,
+      alternates: false,
+      licence: i.licence,
+      main: html`<p>This site shows release <a href="${datasetDoc}.html">${i.version}</a>.</p>`,
+    }),
+  );
+  put(
+    '404',
+    page({
+      doc: '404',
+      title: 'Not found',
+      siteTitle: i.title,
+      alternates: false,
+      licence: i.licence,
+      main: html`<p>Nothing is published at this address. Identifiers of this concordance begin with <code>${i.base}</code>; try the <a href="/index.html">search</a>.</p>`,
+    }),
+  );
   writeVocabulary(ctx, dir);
   mkdirSync(path.join(dir, 'assets'), { recursive: true });
   for (const a of ASSETS) copyFileSync(path.join(ASSETS_DIR, a), path.join(dir, 'assets', a));
@@ -56,7 +104,28 @@ function writeVocabulary(ctx: SiteContext, dir: string): void {
     m.set(k, [...(m.get(k) ?? []), q.object.value]);
   }
   const names = [...terms.keys()].sort();
-  writeFileSync(path.join(dir, 'vocab', 'index.html'), page({ doc: 'vocab/index', title: 'The concordat vocabulary', siteTitle: ctx.info.title, alternates: false, licence: ctx.info.licence, main: html`
+  writeFileSync(
+    path.join(dir, 'vocab', 'index.html'),
+    page({
+      doc: 'vocab/index',
+      title: 'The concordat vocabulary',
+      siteTitle: ctx.info.title,
+      alternates: false,
+      licence: ctx.info.licence,
+      main: html`
 <p>Namespace <code>${NS.cx}</code>. As Turtle: <a href="cx.ttl" type="text/turtle">cx.ttl</a>.</p>
-<dl class="terms">${names.map((t) => { const m = terms.get(t)!; const local = t.slice(NS.cx.length); return html`<dt id="${local}"><code>cx:${local}</code> ${m.get('label')?.[0] ? html`— ${m.get('label')![0]}` : ''}</dt><dd>${m.get('comment')?.[0] ?? ''}${m.get('type') ? html` <span class="dt">(${m.get('type')!.map((x) => x.replace(/^.*[#/]/, '')).join(', ')})</span>` : ''}</dd>`; })}</dl>` }));
+<dl class="terms">${names.map((t) => {
+        const m = terms.get(t)!;
+        const local = t.slice(NS.cx.length);
+        return html`<dt id="${local}"><code>cx:${local}</code> ${m.get('label')?.[0] ? html`— ${m.get('label')![0]}` : ''}</dt><dd>${m.get('comment')?.[0] ?? ''}${
+          m.get('type')
+            ? html` <span class="dt">(${m
+                .get('type')!
+                .map((x) => x.replace(/^.*[#/]/, ''))
+                .join(', ')})</span>`
+            : ''
+        }</dd>`;
+      })}</dl>`,
+    }),
+  );
 }

@@ -5,7 +5,17 @@ import { iri } from '../../namespaces.js';
 import type { PathTree } from '../paths.js';
 import type { DataGraph } from './data.js';
 import type { Shape } from './shapes.js';
-import { compareTerms, isBlank, isIri, isLiteral, langMatches, literalParts, stringValue, wellFormed, type TermId } from './terms.js';
+import {
+  compareTerms,
+  isBlank,
+  isIri,
+  isLiteral,
+  langMatches,
+  literalParts,
+  stringValue,
+  wellFormed,
+  type TermId,
+} from './terms.js';
 
 const ID = N3.termToId as (t: N3.Term) => TermId;
 
@@ -50,9 +60,11 @@ export interface Component {
 }
 
 /** A checker failing every value node for which `ok` is false, with that value (the common case of SHACL §4). */
-const each = (ok: (v: TermId, ctx: CheckContext, focus: TermId) => boolean): Checker => (ctx, focus, values, fail) => {
-  for (const v of values) if (!ok(v, ctx, focus)) fail(v);
-};
+const each =
+  (ok: (v: TermId, ctx: CheckContext, focus: TermId) => boolean): Checker =>
+  (ctx, focus, values, fail) => {
+    for (const v of values) if (!ok(v, ctx, focus)) fail(v);
+  };
 
 /** SHACL §4.1.3 node kinds → test. */
 const NODE_KINDS: Readonly<Record<string, (v: TermId) => boolean>> = {
@@ -98,15 +110,17 @@ function regexOf(pattern: string, flags: string): RegExp {
 const pairwise = (name: string, ok: (order: number) => boolean): Component => ({
   name,
   parameter: name[0].toLowerCase() + name.slice(1),
-  compile: ({ value }) => (ctx, focus, values, fail) => {
-    const others = ctx.data.objects(focus, value.value);
-    for (const v of values) {
-      for (const o of others) {
-        const order = compareTerms(v, o);
-        if (order === null || !ok(order)) fail(v);
+  compile:
+    ({ value }) =>
+    (ctx, focus, values, fail) => {
+      const others = ctx.data.objects(focus, value.value);
+      for (const v of values) {
+        for (const o of others) {
+          const order = compareTerms(v, o);
+          if (order === null || !ok(order)) fail(v);
+        }
       }
-    }
-  },
+    },
 });
 
 const qualified = (name: string, tooMany: boolean): Component => ({
@@ -131,20 +145,41 @@ const qualified = (name: string, tooMany: boolean): Component => ({
 export const COMPONENTS: readonly Component[] = [
   { name: 'Class', parameter: 'class', compile: ({ value }) => each((v, ctx) => ctx.data.isInstance(v, ID(value))) },
   {
-    name: 'Datatype', parameter: 'datatype', compile: ({ value }) => each((v) => {
-      if (!isLiteral(v)) return false;
-      const parts = literalParts(v);
-      return parts.datatype === value.value && wellFormed(parts);
-    }),
+    name: 'Datatype',
+    parameter: 'datatype',
+    compile: ({ value }) =>
+      each((v) => {
+        if (!isLiteral(v)) return false;
+        const parts = literalParts(v);
+        return parts.datatype === value.value && wellFormed(parts);
+      }),
   },
   {
-    name: 'NodeKind', parameter: 'nodeKind', compile: ({ value }) => {
+    name: 'NodeKind',
+    parameter: 'nodeKind',
+    compile: ({ value }) => {
       const ok = NODE_KINDS[value.value.slice(iri('sh', '').length)];
       return ok ? each(ok) : each(() => false);
     },
   },
-  { name: 'MinCount', parameter: 'minCount', compile: ({ value }) => (_c, _f, values, fail) => { if (values.length < Number(value.value)) fail(null); } },
-  { name: 'MaxCount', parameter: 'maxCount', compile: ({ value }) => (_c, _f, values, fail) => { if (values.length > Number(value.value)) fail(null); } },
+  {
+    name: 'MinCount',
+    parameter: 'minCount',
+    compile:
+      ({ value }) =>
+      (_c, _f, values, fail) => {
+        if (values.length < Number(value.value)) fail(null);
+      },
+  },
+  {
+    name: 'MaxCount',
+    parameter: 'maxCount',
+    compile:
+      ({ value }) =>
+      (_c, _f, values, fail) => {
+        if (values.length > Number(value.value)) fail(null);
+      },
+  },
   range('MinExclusive', (o) => o > 0),
   range('MinInclusive', (o) => o >= 0),
   range('MaxExclusive', (o) => o < 0),
@@ -152,7 +187,9 @@ export const COMPONENTS: readonly Component[] = [
   length('MinLength', (n, limit) => n >= limit),
   length('MaxLength', (n, limit) => n <= limit),
   {
-    name: 'Pattern', parameter: 'pattern', compile: ({ value, one }) => {
+    name: 'Pattern',
+    parameter: 'pattern',
+    compile: ({ value, one }) => {
       const regex = regexOf(value.value, one('flags')?.value ?? '');
       return each((v) => {
         const text = stringValue(v);
@@ -161,57 +198,108 @@ export const COMPONENTS: readonly Component[] = [
     },
   },
   {
-    name: 'LanguageIn', parameter: 'languageIn', compile: ({ value, list }) => {
+    name: 'LanguageIn',
+    parameter: 'languageIn',
+    compile: ({ value, list }) => {
       const ranges = list(value).map((t) => t.value);
       return each((v) => isLiteral(v) && ranges.some((r) => langMatches(literalParts(v).language, r)));
     },
   },
   {
-    name: 'UniqueLang', parameter: 'uniqueLang', compile: ({ value }) => value.value !== 'true' ? null : (_c, _f, values, fail) => {
-      const seen = new Map<string, number>();
-      for (const v of values) {
-        const language = isLiteral(v) ? literalParts(v).language.toLowerCase() : '';
-        if (language) seen.set(language, (seen.get(language) ?? 0) + 1);
-      }
-      for (const count of seen.values()) if (count > 1) fail(null);
-    },
+    name: 'UniqueLang',
+    parameter: 'uniqueLang',
+    compile: ({ value }) =>
+      value.value !== 'true'
+        ? null
+        : (_c, _f, values, fail) => {
+            const seen = new Map<string, number>();
+            for (const v of values) {
+              const language = isLiteral(v) ? literalParts(v).language.toLowerCase() : '';
+              if (language) seen.set(language, (seen.get(language) ?? 0) + 1);
+            }
+            for (const count of seen.values()) if (count > 1) fail(null);
+          },
   },
   {
-    name: 'Equals', parameter: 'equals', compile: ({ value }) => (ctx, focus, values, fail) => {
-      const others = ctx.data.objects(focus, value.value);
-      for (const v of values) if (!others.includes(v)) fail(v);
-      for (const o of others) if (!values.includes(o)) fail(o);
-    },
+    name: 'Equals',
+    parameter: 'equals',
+    compile:
+      ({ value }) =>
+      (ctx, focus, values, fail) => {
+        const others = ctx.data.objects(focus, value.value);
+        for (const v of values) if (!others.includes(v)) fail(v);
+        for (const o of others) if (!values.includes(o)) fail(o);
+      },
   },
   {
-    name: 'Disjoint', parameter: 'disjoint', compile: ({ value }) => (ctx, focus, values, fail) => {
-      const others = ctx.data.objects(focus, value.value);
-      for (const v of values) if (others.includes(v)) fail(v);
-    },
+    name: 'Disjoint',
+    parameter: 'disjoint',
+    compile:
+      ({ value }) =>
+      (ctx, focus, values, fail) => {
+        const others = ctx.data.objects(focus, value.value);
+        for (const v of values) if (others.includes(v)) fail(v);
+      },
   },
   pairwise('LessThan', (o) => o < 0),
   pairwise('LessThanOrEquals', (o) => o <= 0),
-  { name: 'Not', parameter: 'not', compile: ({ value, ref }) => { const s = ref(value); return each((v, ctx) => !ctx.conforms(s, v)); } },
-  { name: 'And', parameter: 'and', compile: ({ value, ref, list }) => { const ss = list(value).map(ref); return each((v, ctx) => ss.every((s) => ctx.conforms(s, v))); } },
-  { name: 'Or', parameter: 'or', compile: ({ value, ref, list }) => { const ss = list(value).map(ref); return each((v, ctx) => ss.some((s) => ctx.conforms(s, v))); } },
   {
-    name: 'Xone', parameter: 'xone', compile: ({ value, ref, list }) => {
+    name: 'Not',
+    parameter: 'not',
+    compile: ({ value, ref }) => {
+      const s = ref(value);
+      return each((v, ctx) => !ctx.conforms(s, v));
+    },
+  },
+  {
+    name: 'And',
+    parameter: 'and',
+    compile: ({ value, ref, list }) => {
+      const ss = list(value).map(ref);
+      return each((v, ctx) => ss.every((s) => ctx.conforms(s, v)));
+    },
+  },
+  {
+    name: 'Or',
+    parameter: 'or',
+    compile: ({ value, ref, list }) => {
+      const ss = list(value).map(ref);
+      return each((v, ctx) => ss.some((s) => ctx.conforms(s, v)));
+    },
+  },
+  {
+    name: 'Xone',
+    parameter: 'xone',
+    compile: ({ value, ref, list }) => {
       const ss = list(value).map(ref);
       return each((v, ctx) => ss.filter((s) => ctx.conforms(s, v)).length === 1);
     },
   },
-  { name: 'Node', parameter: 'node', compile: ({ value, ref }) => { const s = ref(value); return each((v, ctx) => ctx.conforms(s, v)); } },
+  {
+    name: 'Node',
+    parameter: 'node',
+    compile: ({ value, ref }) => {
+      const s = ref(value);
+      return each((v, ctx) => ctx.conforms(s, v));
+    },
+  },
   {
     // sh:property reports the nested shape's own results, not a result of this component (SHACL §4.7.2)
-    name: 'Property', parameter: 'property', compile: ({ value, ref }) => {
+    name: 'Property',
+    parameter: 'property',
+    compile: ({ value, ref }) => {
       const s = ref(value);
-      return (ctx, _focus, values) => { for (const v of values) ctx.nested(s, v); };
+      return (ctx, _focus, values) => {
+        for (const v of values) ctx.nested(s, v);
+      };
     },
   },
   qualified('QualifiedMinCount', false),
   qualified('QualifiedMaxCount', true),
   {
-    name: 'Closed', parameter: 'closed', compile: ({ value, one, list, propertyPredicates }) => {
+    name: 'Closed',
+    parameter: 'closed',
+    compile: ({ value, one, list, propertyPredicates }) => {
       if (value.value !== 'true') return null;
       const ignored = one('ignoredProperties');
       const allowed = new Set<string>([...propertyPredicates(), ...(ignored ? list(ignored).map((t) => t.value) : [])]);
@@ -223,6 +311,22 @@ export const COMPONENTS: readonly Component[] = [
       };
     },
   },
-  { name: 'HasValue', parameter: 'hasValue', compile: ({ value }) => { const id = ID(value); return (_c, _f, values, fail) => { if (!values.includes(id)) fail(null); }; } },
-  { name: 'In', parameter: 'in', compile: ({ value, list }) => { const ids = new Set(list(value).map(ID)); return each((v) => ids.has(v)); } },
+  {
+    name: 'HasValue',
+    parameter: 'hasValue',
+    compile: ({ value }) => {
+      const id = ID(value);
+      return (_c, _f, values, fail) => {
+        if (!values.includes(id)) fail(null);
+      };
+    },
+  },
+  {
+    name: 'In',
+    parameter: 'in',
+    compile: ({ value, list }) => {
+      const ids = new Set(list(value).map(ID));
+      return each((v) => ids.has(v));
+    },
+  },
 ];

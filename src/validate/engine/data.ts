@@ -171,7 +171,8 @@ export class DataGraph {
     if (typeof path === 'string') {
       for (const node of from) for (const o of this.objects(node, path)) out.add(o);
     } else if ('inverse' in path) {
-      if (typeof path.inverse === 'string') for (const node of from) for (const s of this.subjects(node, path.inverse)) out.add(s);
+      if (typeof path.inverse === 'string')
+        for (const node of from) for (const s of this.subjects(node, path.inverse)) out.add(s);
       else return this.inverseWalk(from, path.inverse);
     } else if ('sequence' in path) {
       let current: ReadonlySet<TermId> = from;
@@ -191,7 +192,10 @@ export class DataGraph {
         const next = new Set<TermId>();
         for (const node of this.walk(frontier, inner)) {
           out.add(node);
-          if (!seen.has(node)) { seen.add(node); next.add(node); }
+          if (!seen.has(node)) {
+            seen.add(node);
+            next.add(node);
+          }
         }
         frontier = next;
       }
@@ -209,6 +213,11 @@ export class DataGraph {
 function reach(start: TermId, next: (node: TermId) => Iterable<TermId>): TermId[] {
   const seen = new Set<TermId>([start]);
   const queue = [start];
-  for (let i = 0; i < queue.length; i++) for (const n of next(queue[i])) if (!seen.has(n)) { seen.add(n); queue.push(n); }
+  for (let i = 0; i < queue.length; i++)
+    for (const n of next(queue[i]))
+      if (!seen.has(n)) {
+        seen.add(n);
+        queue.push(n);
+      }
   return queue;
 }

@@ -30,10 +30,15 @@ function focusNodes(shape: Shape, data: DataGraph): TermId[] {
 /** One validation run over one data graph. */
 class Run implements CheckContext {
   private sink: Sink;
-  /** (shape, node) pairs being checked for conformance, to stop on recursive shapes (SHACL §3.4 leaves them undefined). */
+  /**
+   * (shape, node) pairs being checked for conformance, to stop on recursive shapes (SHACL §3.4 leaves them undefined).
+   */
   private readonly active = new Set<string>();
 
-  constructor(readonly data: DataGraph, sink: Sink) {
+  constructor(
+    readonly data: DataGraph,
+    sink: Sink,
+  ) {
     this.sink = sink;
   }
 
@@ -94,7 +99,10 @@ export interface CoreEngine {
 }
 
 /** Compiles `shapes` for the built-in engine; unsupported (non-core) parameters throw a UserError naming the shape. */
-export function compileCore(shapes: Iterable<Quad>, opts: { shapesLabel?: string; maxErrors?: number } = {}): CoreEngine {
+export function compileCore(
+  shapes: Iterable<Quad>,
+  opts: { shapesLabel?: string; maxErrors?: number } = {},
+): CoreEngine {
   const { targeted } = compileShapesGraph(shapes, opts.shapesLabel ?? 'shapes');
   const rowsOf = (data: DataGraph, owns?: (node: TermId) => boolean): ResultRow[] => {
     const sink: Sink = { rows: [], failed: false, limit: opts.maxErrors ?? Infinity };

@@ -34,7 +34,17 @@ export interface Targets {
 }
 
 /** Parameters no core checker reads, and that the engine does not run: refused (SHACL-SPARQL §5–§6, SHACL-AF). */
-const REFUSED = ['sparql', 'target', 'rule', 'condition', 'expression', 'targetValidator', 'validator', 'nodeValidator', 'propertyValidator'];
+const REFUSED = [
+  'sparql',
+  'target',
+  'rule',
+  'condition',
+  'expression',
+  'targetValidator',
+  'validator',
+  'nodeValidator',
+  'propertyValidator',
+];
 
 export interface CompiledGraph {
   /** Shapes that have at least one target (the starting points of validation, SHACL §3.1). */
@@ -55,9 +65,18 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
   const isClass = (node: N3.Term) => store.getQuads(node, RDF_TYPE, iri('rdfs', 'Class'), null).length > 0;
   const list = (head: N3.Term): N3.Term[] => {
     const items: N3.Term[] = [];
-    for (let n: N3.Term | null = head; n && n.value !== iri('rdf', 'nil'); n = store.getObjects(n, iri('rdf', 'rest'), null)[0] ?? null) {
+    for (
+      let n: N3.Term | null = head;
+      n && n.value !== iri('rdf', 'nil');
+      n = store.getObjects(n, iri('rdf', 'rest'), null)[0] ?? null
+    ) {
       const first = store.getObjects(n, iri('rdf', 'first'), null)[0];
-      if (!first) fail(head, 'a SHACL list is not well-formed (a node without rdf:first)', 'check the list syntax ( … ) in the shapes file');
+      if (!first)
+        fail(
+          head,
+          'a SHACL list is not well-formed (a node without rdf:first)',
+          'check the list syntax ( … ) in the shapes file',
+        );
       items.push(first);
       if (items.length > 100_000) fail(head, 'a SHACL list does not end', 'check the list syntax');
     }
@@ -75,8 +94,11 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
     if (known) return known;
     for (const local of REFUSED) {
       if (objects(node, local).length > 0) {
-        fail(node, `the shape uses sh:${local}, which is not SHACL core: SHACL-SPARQL and SHACL Advanced Features are not run`,
-          'express the rule with SHACL core constraints (SHACL §4), e.g. sh:pattern, sh:in, sh:class, sh:qualifiedValueShape');
+        fail(
+          node,
+          `the shape uses sh:${local}, which is not SHACL core: SHACL-SPARQL and SHACL Advanced Features are not run`,
+          'express the rule with SHACL core constraints (SHACL §4), e.g. sh:pattern, sh:in, sh:class, sh:qualifiedValueShape',
+        );
       }
     }
     const pathNode = one(node, 'path');
@@ -102,7 +124,16 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
     for (const component of COMPONENTS) {
       const values = objects(node, component.parameter);
       for (const value of values) {
-        const check = component.compile({ node, value, shape, one: (local) => one(node, local), list, ref, siblings: () => siblingsOf(node), propertyPredicates: () => propertyPredicates(node) });
+        const check = component.compile({
+          node,
+          value,
+          shape,
+          one: (local) => one(node, local),
+          list,
+          ref,
+          siblings: () => siblingsOf(node),
+          propertyPredicates: () => propertyPredicates(node),
+        });
         if (check) shape.checks.push({ component: sh(`${component.name}ConstraintComponent`), check });
       }
     }
@@ -123,7 +154,11 @@ export function compileShapesGraph(quads: Iterable<Quad>, label: string): Compil
 
   /** Predicate paths of a shape's own sh:property shapes. */
   function propertyPredicates(node: N3.Term): string[] {
-    return objects(node, 'property').flatMap((p) => objects(p, 'path').filter((t) => t.termType === 'NamedNode').map((t) => t.value));
+    return objects(node, 'property').flatMap((p) =>
+      objects(p, 'path')
+        .filter((t) => t.termType === 'NamedNode')
+        .map((t) => t.value),
+    );
   }
 
   const starts = new Map<string, N3.Term>();

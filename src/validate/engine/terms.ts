@@ -31,12 +31,15 @@ export function literalParts(id: TermId): LiteralParts {
   const end = id.lastIndexOf('"');
   const lexical = id.slice(1, end);
   const rest = id.slice(end + 1);
-  if (rest.startsWith('@')) return { lexical, language: rest.slice(1).replace(/--(ltr|rtl)$/, ''), datatype: RDF_LANG_STRING };
+  if (rest.startsWith('@'))
+    return { lexical, language: rest.slice(1).replace(/--(ltr|rtl)$/, ''), datatype: RDF_LANG_STRING };
   if (rest.startsWith('^^')) return { lexical, language: '', datatype: rest.slice(2) };
   return { lexical, language: '', datatype: XSD_STRING };
 }
 
-/** SPARQL 1.1 str(): an IRI's text, a literal's lexical form; a blank node has none (SHACL §4.4 treats it as failing). */
+/**
+ * SPARQL 1.1 str(): an IRI's text, a literal's lexical form; a blank node has none (SHACL §4.4 treats it as failing).
+ */
 export function stringValue(id: TermId): string | null {
   if (isBlank(id)) return null;
   return isLiteral(id) ? literalParts(id).lexical : id;
@@ -71,7 +74,10 @@ const INTEGER_RANGES: Readonly<Record<string, [bigint | null, bigint | null]>> =
   unsignedByte: [0n, 255n],
 };
 
-/** Days in a month of a (proleptic Gregorian) year, for the day-of-month check of xsd:date (XML Schema 1.1 Part 2 §D.2.1). */
+/**
+ * Days in a month of a (proleptic Gregorian) year, for the day-of-month check of xsd:date (XML Schema 1.1 Part 2
+ * §D.2.1).
+ */
 function dayFits(lexical: string): boolean {
   const m = /^(-?\d+)-(\d\d)-(\d\d)/.exec(lexical);
   if (!m) return false;
@@ -94,11 +100,16 @@ const LEXICAL: Readonly<Record<string, (lexical: string) => boolean>> = {
   time: (s) => TIME.test(s),
   gYear: (s) => G_YEAR.test(s),
   gYearMonth: (s) => G_YEAR_MONTH.test(s),
-  ...Object.fromEntries(Object.entries(INTEGER_RANGES).map(([name, [min, max]]) => [name, (s: string) => {
-    if (!INTEGER.test(s)) return false;
-    const n = BigInt(s);
-    return (min === null || n >= min) && (max === null || n <= max);
-  }])),
+  ...Object.fromEntries(
+    Object.entries(INTEGER_RANGES).map(([name, [min, max]]) => [
+      name,
+      (s: string) => {
+        if (!INTEGER.test(s)) return false;
+        const n = BigInt(s);
+        return (min === null || n >= min) && (max === null || n <= max);
+      },
+    ]),
+  ),
 };
 
 const XSD = iri('xsd', '');
@@ -128,7 +139,12 @@ function categoryOf(parts: LiteralParts): Category | null {
 /** Milliseconds since the epoch, and whether a timezone was given, of an xsd:dateTime/date/time lexical form. */
 function instant(category: 'dateTime' | 'date' | 'time', lexical: string): [number, boolean] {
   const zoned = /(Z|[+-]\d\d:\d\d)$/.test(lexical);
-  const text = category === 'date' ? lexical.replace(/^(-?\d+-\d\d-\d\d)/, '$1T00:00:00') : category === 'time' ? `1972-12-31T${lexical}` : lexical;
+  const text =
+    category === 'date'
+      ? lexical.replace(/^(-?\d+-\d\d-\d\d)/, '$1T00:00:00')
+      : category === 'time'
+        ? `1972-12-31T${lexical}`
+        : lexical;
   return [Date.parse(zoned ? text : `${text}Z`), zoned];
 }
 
@@ -153,7 +169,8 @@ function orderableOf(id: TermId): Orderable {
     const category = categoryOf(parts);
     if (category !== null && wellFormed(parts)) {
       if (category === 'string') found = { category, key: parts.lexical, zoned: false };
-      else if (category === 'numeric' || category === 'boolean') found = { category, key: numberOf(category, parts.lexical), zoned: false };
+      else if (category === 'numeric' || category === 'boolean')
+        found = { category, key: numberOf(category, parts.lexical), zoned: false };
       else {
         const [key, zoned] = instant(category, parts.lexical);
         found = { category, key, zoned };
