@@ -1,5 +1,5 @@
 // A citation → a footnote-ready sentence per claim plus its evidence list, as plain text or Markdown.
-import type { Citation, CitedClaim, CitedConflict, CitedRelease, CitedWork } from './types.js';
+import type { Citation, CitedClaim, CitedConflict, CitedRelease, CitedRun, CitedWork } from './types.js';
 
 const ID_OF = (w: CitedWork) => (w.ref.startsWith(`${w.partner}:`) ? w.ref.slice(w.partner.length + 1) : w.ref);
 export const name = (w: CitedWork) => `${w.partnerName ?? w.partner} ${ID_OF(w)}${w.title ? ` ("${w.title}")` : ''}`;
@@ -67,26 +67,32 @@ export function sentence(c: CitedClaim, r: CitedRelease): string {
   return `${verb(c)(name(c.subject), name(c.object))}, ${basis(c)}, ${evidence(c)}. ${releaseLine(r)}, ${c.link}.`;
 }
 
-function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): string[] {
+function runFact(run: CitedRun): string {
+  const params = run.parameters.map((p) => `${p.name}=${p.value}`).join(', ');
+  return `run ${run.id}: ${run.software ?? '?'} ${run.version ?? ''}${run.started ? `, started ${run.started}` : ''}${params ? `; parameters ${params}` : ''} <${run.iri}>`;
+}
+
+const releaseFact = (r: CitedRelease) =>
+  `release: ${r.version}${r.issued ? `, issued ${r.issued}` : ''}${r.license ? `, licence <${r.license}>` : ''}, dataset <${r.dataset}>`;
+
+/**
+ * The facts behind one claim: the claim, its image matches, runs, curator review and the release. Brief: the claim
+ * (whose IRI's document lists the matches) and the review only; runs and release follow once for all claims.
+ */
+function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string, brief = false): string[] {
   const out = [
     item(
       `claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`,
     ),
   ];
-  c.matches.forEach((m) =>
-    out.push(
-      item(
-        `image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`,
-      ),
-    ),
-  );
-  for (const run of c.runs) {
-    const params = run.parameters.map((p) => `${p.name}=${p.value}`).join(', ');
-    out.push(
-      item(
-        `run ${run.id}: ${run.software ?? '?'} ${run.version ?? ''}${run.started ? `, started ${run.started}` : ''}${params ? `; parameters ${params}` : ''} <${run.iri}>`,
-      ),
-    );
+  if (!brief) {
+    for (const m of c.matches)
+      out.push(
+        item(
+          `image match: ${m.source} ~ ${m.target}, score ${m.score}, overlap ${m.overlap}${m.run ? `, run ${m.run.replace(/^.*\//, '')}` : ''} <${m.iri}>`,
+        ),
+      );
+    for (const run of c.runs) out.push(item(runFact(run)));
   }
   const v = c.review;
   if (v)
@@ -95,12 +101,15 @@ function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string): s
         `curator: ${v.curatorName ? `${v.curatorName} ` : ''}<${v.curator}>${v.date ? `, ${v.date}` : ''}${v.verdict ? `, verdict ${v.verdict}` : ''}${v.note ? `, note "${v.note}"` : ''} <${v.iri}>`,
       ),
     );
-  out.push(
-    item(
-      `release: ${r.version}${r.issued ? `, issued ${r.issued}` : ''}${r.license ? `, licence <${r.license}>` : ''}, dataset <${r.dataset}>`,
-    ),
-  );
+  if (!brief) out.push(item(releaseFact(r)));
   return out;
+}
+
+/** A brief citation's shared facts: every run any claim rests on, once, then the release. */
+function sharedFacts(c: Citation): string[] {
+  const runs = new Map<string, CitedRun>();
+  for (const x of c.claims) for (const run of x.runs) runs.set(run.iri, run);
+  return [...[...runs.keys()].sort().map((k) => runFact(runs.get(k)!)), releaseFact(c.release)];
 }
 
 /**
@@ -116,7 +125,7 @@ const heading = (c: Citation) =>
 /** Plain text: per claim, the sentence, then "Evidence:" and one indented line per fact. */
 export function citationText(c: Citation): string {
   const blocks = c.claims.map((x) =>
-    [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`)].join('\n'),
+    [sentence(x, c.release), '', 'Evidence:', ...details(x, c.release, (s) => `  - ${s}`, c.brief)].join('\n'),
   );
   const conflicts = c.conflicts?.length
     ? [
@@ -125,7 +134,8 @@ export function citationText(c: Citation): string {
         ...c.conflicts.map((x) => `  - ${conflictLine(x)}`),
       ]
     : [];
-  return [heading(c), '', blocks.join('\n\n'), ...conflicts, ''].join('\n');
+  const shared = c.brief ? ['', 'Runs and release:', ...sharedFacts(c).map((l) => `  - ${l}`)] : [];
+  return [heading(c), '', blocks.join('\n\n'), ...shared, ...conflicts, ''].join('\n');
 }
 
 /**
@@ -138,7 +148,7 @@ export function citationMarkdown(c: Citation): string {
   const out = [`# ${md(heading(c))}`, ''];
   for (const x of c.claims) {
     out.push(`## ${md(x.subject.ref)} – ${md(x.object.ref)}`, '', md(sentence(x, c.release)), '');
-    if (x.matches.length) {
+    if (x.matches.length && !c.brief) {
       out.push('| source image | target image | score | overlap | run |', '|---|---|---:|---:|---|');
       for (const m of x.matches)
         out.push(
@@ -146,8 +156,12 @@ export function citationMarkdown(c: Citation): string {
         );
       out.push('');
     }
-    out.push(...details(x, c.release, (s) => `- ${md(s)}`).filter((l) => !l.startsWith('- image match')), '');
+    out.push(
+      ...details(x, c.release, (s) => `- ${md(s)}`, c.brief).filter((l) => !l.startsWith('- image match: ')),
+      '',
+    );
   }
+  if (c.brief) out.push('## Runs and release', '', ...sharedFacts(c).map((l) => `- ${md(l)}`), '');
   if (c.conflicts?.length)
     out.push('## Date conflicts in this cluster', '', ...c.conflicts.map((x) => `- ${md(conflictLine(x))}`), '');
   return out.join('\n');

@@ -81,6 +81,11 @@ export interface Citation {
   claims: CitedClaim[];
   /** For a cluster: its date conflicts (absent or empty for a work or a link). */
   conflicts?: CitedConflict[];
+  /**
+   * Text and Markdown without a line per image match (each claim's line gives their number and the claim's IRI, whose
+   * document lists them) and with the runs and the release once for all claims (`cite --brief`; the site's pages).
+   */
+  brief?: boolean;
   /** The statements the citation rests on (links, matches, runs, reviews, works, dataset), for JSON-LD. */
   quads: Quad[];
 }

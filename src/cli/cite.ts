@@ -20,6 +20,10 @@ export function register(program: Command): void {
     .option('--store <folder>', 'an embedded store folder (as written by concordat load --store)')
     .addOption(new Option('--format <format>', 'output format').choices([...CITE_FORMAT_NAMES]).default('text'))
     .option(
+      '--brief',
+      "text and Markdown: no line per image match (each claim's IRI leads to them), runs and release once for all claims",
+    )
+    .option(
       '--json',
       'the citation as data on stdout: target, release, and per claim its works, status, kind, score, image matches, runs and curator review',
     )
@@ -30,7 +34,7 @@ export function register(program: Command): void {
     .action(
       async (
         target: string,
-        opts: { release?: string; store?: string; format: CiteFormat; json?: boolean },
+        opts: { release?: string; store?: string; format: CiteFormat; json?: boolean; brief?: boolean },
         cmd: Command,
       ) => {
         if (opts.json && cmd.getOptionValueSource('format') === 'cli')
@@ -43,6 +47,7 @@ export function register(program: Command): void {
           });
         const { cite, CITE_FORMATS, citationData } = await import('../cite/index.js'); // loaded on use: keeps --help fast
         const c = await cite(target, { release: opts.release, store: opts.store });
+        if (opts.brief) c.brief = true;
         process.stdout.write(
           opts.json ? JSON.stringify(citationData(c), null, 2) + '\n' : await CITE_FORMATS[opts.format](c),
         );

@@ -164,7 +164,15 @@ export function clusterCitation(
     a: work(one(node(x), V.workA) ?? ''),
     b: work(one(node(x), V.workB) ?? ''),
   }));
-  return { query: clusterIri, target: { kind: 'cluster', iri: clusterIri }, release, claims, conflicts, quads: [] };
+  return {
+    query: clusterIri,
+    target: { kind: 'cluster', iri: clusterIri },
+    release,
+    claims,
+    conflicts,
+    brief: true,
+    quads: [],
+  };
 }
 
 const releases = new WeakMap<SiteContext, CitedRelease | undefined>();

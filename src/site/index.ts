@@ -19,7 +19,7 @@ import { Grouper, type ClusterUnit, type Entry, type LinkEntry } from './group.j
 import { readSiteInfo } from './info.js';
 import { SiteContext, V } from './context.js';
 import { docOf, routeOf, relPath, shardWidth, ROUTES, type DocKind, type ShardWidths } from './routes.js';
-import { jsonldDocument, jsonldNodes } from './jsonld.js';
+import { JsonLd } from './jsonld.js';
 import { page, html, Safe } from './html.js';
 import { Spool } from './spool.js';
 import { clusterPage } from './pages/cluster.js';
@@ -55,12 +55,15 @@ export function widthsFor(nqBytes: number): ShardWidths {
 /** Writes one document in its three forms: `.ttl` (N-Triples lines, which are Turtle too), `.jsonld`, `.html`. */
 class DocWriter {
   documents = 0;
-  constructor(private readonly dir: string) {}
+  constructor(
+    private readonly dir: string,
+    private readonly jsonld: JsonLd,
+  ) {}
   write(doc: string, nt: string, jsonNodes: string[], htmlText: string): void {
     const f = path.join(this.dir, ...doc.split('/'));
     mkdirSync(path.dirname(f), { recursive: true });
     writeFileSync(`${f}.ttl`, nt);
-    writeFileSync(`${f}.jsonld`, jsonldDocument(jsonNodes));
+    writeFileSync(`${f}.jsonld`, this.jsonld.document(jsonNodes));
     writeFileSync(`${f}.html`, htmlText);
     this.documents++;
   }
@@ -84,7 +87,9 @@ export async function writeSite(release: string, out: string, opts: { previous?:
     const linkHashes = new Set<string>();
     const spoolDir = path.join(dir, '.spool');
     const spool = new Spool(spoolDir);
-    const docs = new DocWriter(dir);
+    const jl = new JsonLd(info.base);
+    const jsonldNodes = (sts: readonly Statement[]) => jl.nodes(sts);
+    const docs = new DocWriter(dir, jl);
     const search = new SearchIndex(spool, ctx);
     const own = new Map<string, { kind: DocKind; statements: Statement[] }>();
     const graphs = new Set<string>();

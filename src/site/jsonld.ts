@@ -3,44 +3,86 @@ import { NS, iri } from '../namespaces.js';
 import type { Statement, Term } from './nquads.js';
 
 const RDF_TYPE = iri('rdf', 'type');
+const XSD_STRING = iri('xsd', 'string');
+const XSD_INTEGER = iri('xsd', 'integer');
+const XSD_BOOLEAN = iri('xsd', 'boolean');
 /** Prefixes of the site's JSON-LD documents: the publishing prefixes (JSON-LD 1.1 §4.1.5 compact IRIs). */
 const PREFIXES = ['rdf', 'rdfs', 'xsd', 'owl', 'skos', 'dcterms', 'prov', 'void', 'dcat', 'foaf', 'cx'] as const;
 export const CONTEXT: Record<string, string> = Object.fromEntries(PREFIXES.map((p) => [p, NS[p]]));
 const BY_LENGTH = PREFIXES.map((p) => [p, NS[p]] as const).sort((a, b) => b[1].length - a[1].length);
+/**
+ * The prefix standing for the release's base in `@id` values: a term whose IRI ends in `/` or `#` is a prefix (JSON-LD
+ * 1.1 §4.1.5), and a compact IRI expands by plain concatenation, so `base:link/35e6…` is exactly `{base}link/35e6…`.
+ */
+const BASE = 'base';
+/**
+ * Integers in the canonical lexical form and short enough to stay exact as JSON numbers (JSON-LD 1.1 Processing
+ * Algorithms §8.6: a JSON number without fraction becomes an xsd:integer in its canonical form).
+ */
+const CANONICAL_INTEGER = /^(?:0|-?[1-9][0-9]{0,14})$/;
+const NAME = /^[A-Za-z_][A-Za-z0-9_-]*$/;
 
-/** A property IRI as a compact IRI when a prefix covers it and the rest is a plain name, else the IRI itself. */
-function key(p: string): string {
+/** An IRI as a compact IRI when a prefix covers it and the rest is a plain name, else the IRI itself. */
+function compact(p: string): string {
   for (const [name, ns] of BY_LENGTH)
-    if (p.startsWith(ns) && /^[A-Za-z_][A-Za-z0-9_-]*$/.test(p.slice(ns.length)))
-      return `${name}:${p.slice(ns.length)}`;
+    if (p.startsWith(ns) && NAME.test(p.slice(ns.length))) return `${name}:${p.slice(ns.length)}`;
   return p;
 }
 
-/** A value object (JSON-LD 1.1 §4.2): node references by @id, literals with @type or @language. */
-function value(o: Term): object {
-  if (o.kind === 'iri') return { '@id': o.value };
-  if (o.kind === 'bnode') return { '@id': `_:${o.value}` };
-  if (o.language) return { '@value': o.value, '@language': o.language };
-  if (o.datatype && o.datatype !== iri('xsd', 'string')) return { '@value': o.value, '@type': o.datatype };
-  return { '@value': o.value };
-}
-
-/** Node objects of the statements, one per subject, as JSON text joined by commas (for a `@graph` array). */
-export function jsonldNodes(statements: readonly Statement[]): string {
-  const nodes = new Map<string, Record<string, unknown[]>>();
-  for (const st of statements) {
-    let n = nodes.get(st.s);
-    if (!n) nodes.set(st.s, (n = {}));
-    if (st.p === RDF_TYPE && st.o.kind === 'iri') (n['@type'] ??= []).push(st.o.value);
-    else (n[key(st.p)] ??= []).push(value(st.o));
+/** Writes a site's JSON-LD: node objects of statements, and whole documents with the context. */
+export class JsonLd {
+  private readonly context: string;
+  private readonly baseOk: boolean;
+  constructor(private readonly base: string) {
+    this.context = JSON.stringify({ ...CONTEXT, [BASE]: base });
+    // a base ending in '/' or '#' is a prefix; anything after it that starts with '//' would read as an absolute IRI
+    this.baseOk = /[/#]$/.test(base);
   }
-  const out: string[] = [];
-  for (const [s, n] of nodes) out.push(JSON.stringify({ '@id': s, ...n }));
-  return out.join(',\n');
-}
 
-/** A whole JSON-LD document: the context and a `@graph` of node texts (JSON-LD 1.1 §4.9 named graphs / `@graph`). */
-export function jsonldDocument(nodeTexts: readonly string[]): string {
-  const body = nodeTexts.filter((t) => t.length > 0).join(',\n');
-  return `{"@context":${JSON.stringify(CONTEXT)},\n"@graph":[\n${body}\n]}\n`;
+  /** An `@id` value: IRIs under the base as `base:…`, vocabulary terms as compact IRIs, others absolute. */
+  private id(x: string): string {
+    if (this.baseOk && x.startsWith(this.base) && !x.startsWith('//', this.base.length))
+      return `${BASE}:${x.slice(this.base.length)}`;
+    return compact(x);
+  }
+
+  /**
+   * A value (JSON-LD 1.1 §4.2): node references by `@id`; strings as JSON strings, canonical integers and booleans as
+   * JSON numbers and booleans (§4.2.1 native types); other literals with `@type` or `@language`.
+   */
+  private value(o: Term): unknown {
+    if (o.kind === 'iri') return { '@id': this.id(o.value) };
+    if (o.kind === 'bnode') return { '@id': `_:${o.value}` };
+    if (o.language) return { '@value': o.value, '@language': o.language };
+    const dt = o.datatype;
+    if (!dt || dt === XSD_STRING) return o.value;
+    if (dt === XSD_INTEGER && CANONICAL_INTEGER.test(o.value)) return Number(o.value);
+    if (dt === XSD_BOOLEAN && (o.value === 'true' || o.value === 'false')) return o.value === 'true';
+    return { '@value': o.value, '@type': compact(dt) };
+  }
+
+  /** Node objects of the statements, one per subject, as JSON text joined by commas (for a `@graph` array). */
+  nodes(statements: readonly Statement[]): string {
+    const nodes = new Map<string, Record<string, unknown[]>>();
+    for (const st of statements) {
+      let n = nodes.get(st.s);
+      if (!n) nodes.set(st.s, (n = {}));
+      if (st.p === RDF_TYPE && st.o.kind === 'iri') (n['@type'] ??= []).push(compact(st.o.value));
+      else (n[compact(st.p)] ??= []).push(this.value(st.o));
+    }
+    const out: string[] = [];
+    for (const [s, n] of nodes) {
+      const node: Record<string, unknown> = { '@id': s.startsWith('_:') ? s : this.id(s) };
+      // a single value needs no array (JSON-LD 1.1 §4.3.1: an array only orders nothing and groups values)
+      for (const k in n) node[k] = n[k].length === 1 ? n[k][0] : n[k];
+      out.push(JSON.stringify(node));
+    }
+    return out.join(',\n');
+  }
+
+  /** A whole JSON-LD document: the context and a `@graph` of node texts (JSON-LD 1.1 §4.9 named graphs / `@graph`). */
+  document(nodeTexts: readonly string[]): string {
+    const body = nodeTexts.filter((t) => t.length > 0).join(',\n');
+    return `{"@context":${this.context},\n"@graph":[\n${body}\n]}\n`;
+  }
 }

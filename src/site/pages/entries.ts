@@ -45,7 +45,7 @@ export function matchSection(ctx: SiteContext, m: Entry, doc: string, link: stri
   const n = nodesOf(m.statements).get(m.iri);
   if (!n) return '';
   const run = n.one(V.generatedBy);
-  return html`<tr id="${rel(ctx, m.iri)}"><th scope="row"><code>${m.hash}</code></th><td><code>${n.one(V.sourceImage)}</code></td><td><code>${n.one(V.targetImage)}</code></td><td class="num">${n.one(V.score)}</td><td class="num">${n.one(V.overlap)}</td><td>${run ? html`<a href="${ctx.href(run, doc)}">${run.replace(/^.*\//, '')}</a>` : ''}</td><td>${link ? html`<a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>` : ''}</td></tr>
+  return html`<tr id="${rel(ctx, m.iri)}"><th scope="row">${m.hash}</th><td>${n.one(V.sourceImage)}</td><td>${n.one(V.targetImage)}</td><td>${n.one(V.score)}</td><td>${n.one(V.overlap)}</td><td>${run ? html`<a href="${ctx.href(run, doc)}">${run.replace(/^.*\//, '')}</a>` : ''}</td><td>${link ? html`<a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>` : ''}</td></tr>
 `.text;
 }
 

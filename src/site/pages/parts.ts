@@ -21,7 +21,7 @@ export interface WorkView {
  * date, record page.
  */
 export function workView(ctx: SiteContext, iri: string, n: Node | undefined): WorkView {
-  const partner = n?.one(V.partner) ?? '';
+  const partner = n?.one(V.partner) ?? partnerOf(ctx, iri);
   const p = ctx.info.partners.get(partner);
   const ref = refOfWorkIri(iri, partner, p?.uriSpace);
   return {
@@ -33,6 +33,15 @@ export function workView(ctx: SiteContext, iri: string, n: Node | undefined): Wo
     date: n?.one(V.dateAsCatalogued),
     page: n?.one(V.page),
   };
+}
+
+/** The partner whose URI space holds a work IRI (a work described in another document), or '' for none. */
+function partnerOf(ctx: SiteContext, iri: string): string {
+  let best = '',
+    len = 0;
+  for (const p of ctx.info.partners.values())
+    if (p.uriSpace && p.uriSpace.length > len && iri.startsWith(p.uriSpace)) [best, len] = [p.key, p.uriSpace.length];
+  return best;
 }
 
 /** "Partner ID" with the title: how a record is named in claims. */
@@ -64,7 +73,10 @@ export function assertion(ctx: SiteContext, link: Node, doc: string): Safe {
     : html`<span class="none">not recorded</span>`;
 }
 
-/** The image pairs behind a link: photograph A and B, score, overlap (the run is named once, under the table). */
+/**
+ * The image pairs behind a link: photograph A and B, score, overlap (the run is named once, under the table). Cells
+ * carry no classes: the stylesheet sets IRIs and numbers by column (`.evidence td:nth-child(…)`), once for all rows.
+ */
 export function matchTable(ctx: SiteContext, matches: Node[], doc: string, caption: string): Safe {
   if (!matches.length) return html`<p>No image-match evidence.</p>`;
   const runs = [...new Set(matches.map((m) => m.one(V.generatedBy)).filter((x): x is string => !!x))];
@@ -75,7 +87,7 @@ export function matchTable(ctx: SiteContext, matches: Node[], doc: string, capti
 ${matches.map(
   (
     m,
-  ) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td><code>${m.one(V.sourceImage)}</code></td><td><code>${m.one(V.targetImage)}</code></td><td class="num">${m.one(V.score)}</td><td class="num">${m.one(V.overlap)}</td></tr>
+  ) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td>${m.one(V.sourceImage)}</td><td>${m.one(V.targetImage)}</td><td>${m.one(V.score)}</td><td>${m.one(V.overlap)}</td></tr>
 `,
 )}</tbody>
 </table>
