@@ -45,6 +45,12 @@ export interface PartnerConfig {
    * Template (`{image}`, `{work}`) of a URL where a person can view the photograph (a viewer page or image service).
    */
   imageView?: string;
+  /**
+   * The partner allows the site's pages to show its photographs: `imageView` (then a URL giving the image itself) and
+   * the `imageIri` template are published in dataset.ttl and the pages embed the image from the partner's server.
+   * Default off: no image, no template published.
+   */
+  showImages?: boolean;
   centuryConvention: CenturyConvention;
   /** Language of the partner's date phrases; absent: every language is tried (see dates/languages.ts). */
   language?: DateLanguage;

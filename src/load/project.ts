@@ -34,6 +34,7 @@ const PartnerSchema = z.strictObject({
   imageIri: z.string(),
   recordPage: z.string().optional(),
   imageView: z.string().optional(),
+  showImages: z.boolean().optional(),
   centuryConvention: z.enum(['ordinal', 'iso', 'unknown']).default('unknown'),
   language: z
     .enum(['en', 'de', 'fr', 'it', 'es', 'nl'], {
@@ -239,6 +240,12 @@ export function loadProjectFile(file: string): ProjectConfig {
           hint: 'start it with https://',
         });
     }
+    if (partner.showImages && partner.imageView === undefined)
+      problems.add({
+        ...at('showImages'),
+        message: 'showImages needs an imageView template: the pages show the photograph at that URL',
+        hint: 'add "imageView" (a URL that gives the image itself, e.g. an IIIF Image API URL) or drop showImages',
+      });
   });
   const runIds = new Set<string>();
   p.evidence.forEach((ev, i) => {

@@ -76,6 +76,11 @@ export function datasetUnit(model: Model, namer: Namer, counts: LinksetCounts, p
     g(P, term('dcterms', 'title'), str(partner.name));
     if (partner.homepage) g(P, term('foaf', 'homepage'), nn(partner.homepage));
     g(P, term('void', 'uriSpace'), str(partner.workIri.slice(0, partner.workIri.indexOf('{'))));
+    // photographs pages may show: how an image IRI reads back into IDs, and the URL of the image (project: showImages)
+    if (partner.showImages && partner.imageView) {
+      g(P, term('cx', 'imageTemplate'), str(partner.imageIri));
+      g(P, term('cx', 'imageViewTemplate'), str(partner.imageView));
+    }
   });
 
   let total = 0;

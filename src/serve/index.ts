@@ -5,7 +5,7 @@ import { createReadStream, existsSync, readFileSync, realpathSync, statSync } fr
 import path from 'node:path';
 import { docOf, routeOf, safeSegment, ROUTES } from '../site/routes.js';
 import { negotiate, REPRESENTATIONS, FILE_TYPES } from '../site/negotiate.js';
-import { SECURITY_HEADERS, CACHE } from '../site/rules.js';
+import { securityHeaders, CACHE } from '../site/rules.js';
 import { readManifest, type SiteManifest } from '../site/manifest.js';
 
 export type { SiteManifest };
@@ -85,7 +85,7 @@ const STATUS_TEXT: Record<number, string> = {
 };
 
 function handle(root: string, m: SiteManifest, req: IncomingMessage, res: ServerResponse): void {
-  for (const [k, v] of Object.entries(SECURITY_HEADERS)) res.setHeader(k, v);
+  for (const [k, v] of Object.entries(securityHeaders(m.imageOrigins))) res.setHeader(k, v);
   if (req.method !== 'GET' && req.method !== 'HEAD') {
     res
       .writeHead(405, { Allow: 'GET, HEAD', 'Content-Type': 'text/plain; charset=utf-8' })

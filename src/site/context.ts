@@ -6,6 +6,7 @@ import type { SiteInfo } from './info.js';
 import { docOf, relPath, routeOf, type ShardWidths } from './routes.js';
 import { rootOf } from './html.js';
 import { CONTEXT } from './jsonld.js';
+import { Images } from './images.js';
 
 export const V = {
   type: iri('rdf', 'type'),
@@ -85,11 +86,23 @@ export function curie(x: string): string {
   return x;
 }
 
+/** Where a minted IRI is described: its document, the fragment, whether the site has it, the link from the root. */
+interface Located {
+  doc: string;
+  fragment: string;
+  has: boolean;
+  tail: string;
+}
+
 export class SiteContext {
   /** Provenance statements by subject: runs and their plans, agents, reviews, curators (shared by every cluster). */
   readonly prov = new Map<string, Node>();
   widths: ShardWidths = {};
-  constructor(readonly info: SiteInfo) {}
+  /** Photographs partners let the pages show (none unless the release publishes their templates). */
+  readonly images: Images;
+  constructor(readonly info: SiteInfo) {
+    this.images = new Images(info.partners.values());
+  }
 
   addProv(st: Statement): void {
     let n = this.prov.get(st.s);
@@ -97,13 +110,28 @@ export class SiteContext {
     n.add(st);
   }
 
+  /** Where minted IRIs are described, and whether the site has that document (IRIs repeat: runs, clusters, links). */
+  private readonly located = new Map<string, Located | null>();
+
   /** Document path and fragment of a minted IRI, or null for an outside IRI. */
-  locate(x: string): { doc: string; fragment: string } | null {
+  locate(x: string): Located | null {
+    let at = this.located.get(x);
+    if (at !== undefined) return at;
     const rel = relPath(x, this.info.base);
     const route = rel === null ? null : routeOf(rel);
-    if (!rel || !route) return null;
-    const doc = docOf(route, this.widths);
-    return { doc, fragment: doc === rel ? '' : rel };
+    if (!rel || !route) at = null;
+    else {
+      const doc = docOf(route, this.widths);
+      // every document of the release is in the site, except the datasets of other releases (dcat:previousVersion,
+      // the release activity's prov:used): those only when carried over from an earlier site
+      const has = route.kind !== 'dataset' || x.startsWith(this.info.dataset) || this.carried.has(doc);
+      const fragment = doc === rel ? '' : rel;
+      const tail = `${doc.split('/').map(encodeURIComponent).join('/')}.html${fragment ? `#${fragment.split('/').map(encodeURIComponent).join('/')}` : ''}`;
+      at = { doc, fragment, has, tail };
+    }
+    if (this.located.size >= 100_000) this.located.clear();
+    this.located.set(x, at);
+    return at;
   }
 
   /**
@@ -111,21 +139,15 @@ export class SiteContext {
    */
   href(x: string, fromDoc: string): string {
     const at = this.locate(x);
-    if (!at || !this.hasDoc(x)) return x;
-    return `${rootOf(fromDoc)}${at.doc.split('/').map(encodeURIComponent).join('/')}.html${at.fragment ? `#${at.fragment.split('/').map(encodeURIComponent).join('/')}` : ''}`;
+    if (!at || !at.has) return x;
+    return rootOf(fromDoc) + at.tail;
   }
 
   /** Documents known to be in this site beyond the release's own (carried over from an earlier site). */
   readonly carried = new Set<string>();
-  /**
-   * Whether the document of a minted IRI is in the site. Every document of the release is, except the datasets of
-   * other releases (`dcat:previousVersion`, the release activity's `prov:used`): those only when carried over.
-   */
+  /** Whether the document of a minted IRI is in the site. */
   hasDoc(x: string): boolean {
-    const at = this.locate(x);
-    if (!at) return false;
-    const route = routeOf(decodeURIComponent(x.slice(this.info.base.length)));
-    return route?.kind !== 'dataset' || x.startsWith(this.info.dataset) || this.carried.has(at.doc);
+    return this.locate(x)?.has ?? false;
   }
 
   /** A short human name: rdfs:label of runs, agents and curators; else the last path segment or compact IRI. */

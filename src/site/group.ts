@@ -70,9 +70,17 @@ export class Grouper {
     private readonly sink: GroupSink,
   ) {}
 
+  /** The route of the last subject (a subject's statements come together in the file). */
+  private lastS = '';
+  private lastRoute: ReturnType<typeof routeOf> = null;
+
   push(st: Statement): void {
-    const rel = relPath(st.s, this.base);
-    const route = rel === null ? null : routeOf(rel);
+    if (st.s !== this.lastS) {
+      const rel = relPath(st.s, this.base);
+      this.lastRoute = rel === null ? null : routeOf(rel);
+      this.lastS = st.s;
+    }
+    const route = this.lastRoute;
     if (!route) {
       let to = this.refs.get(st.s) ?? (this.cluster?.members.has(st.s) ? ({ t: 'cluster' } as Target) : undefined);
       // an entry already handed on cannot take more statements: the statement waits for the next document

@@ -11,7 +11,8 @@ type Part = Safe | string | number | undefined | null | false | readonly Part[];
 
 const ENTITY: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 /** Escapes text for element content and double- or single-quoted attributes (HTML Living Standard §13.1.2.3, §13.5). */
-export const esc = (s: string) => s.replace(/[&<>"']/g, (c) => ENTITY[c]);
+const SPECIAL = /[&<>"']/;
+export const esc = (s: string) => (SPECIAL.test(s) ? s.replace(/[&<>"']/g, (c) => ENTITY[c]) : s);
 
 function part(p: Part): string {
   if (p === undefined || p === null || p === false) return '';

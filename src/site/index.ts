@@ -240,10 +240,19 @@ ${rs.map((r) => new Safe(r[3]))}`
     }
     writeFileSync(
       path.join(dir, 'site.json'),
-      JSON.stringify({ base: info.base, version: info.version, dataset: info.dataset, widths: ctx.widths }, null, 2) +
-        '\n',
+      JSON.stringify(
+        {
+          base: info.base,
+          version: info.version,
+          dataset: info.dataset,
+          widths: ctx.widths,
+          ...(ctx.images.origins.length ? { imageOrigins: ctx.images.origins } : {}),
+        },
+        null,
+        2,
+      ) + '\n',
     );
-    for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths)))
+    for (const [name, body] of Object.entries(serverRules(info.base, ctx.widths, ctx.images.origins)))
       writeFileSync(path.join(dir, name), body);
     rmSync(spoolDir, { recursive: true, force: true });
     // a web server's own user reads the site: the folder gets the usual permissions, not the temp folder's 0700

@@ -14,6 +14,8 @@ export interface PartnerInfo {
   name: string;
   homepage?: string;
   uriSpace?: string;
+  /** Present only when the partner lets pages show its photographs (cx:imageTemplate, cx:imageViewTemplate). */
+  images?: { iri: string; view: string };
 }
 export interface LinksetInfo {
   iri: string;
@@ -99,6 +101,7 @@ export async function readSiteInfo(release: string): Promise<SiteInfo> {
       name: one(s, P('dcterms', 'title')) ?? key,
       homepage: one(s, P('foaf', 'homepage')),
       uriSpace: one(s, P('void', 'uriSpace')),
+      images: imagesOf(one(s, P('cx', 'imageTemplate')), one(s, P('cx', 'imageViewTemplate'))),
     });
   }
   const subsets = bySubject.get(id.dataset)?.get(P('void', 'subset')) ?? [];
@@ -152,3 +155,6 @@ export async function readSiteInfo(release: string): Promise<SiteInfo> {
     quads,
   };
 }
+
+/** Both templates, or nothing: pages show a partner's photographs only when the release publishes both. */
+const imagesOf = (iri: string | undefined, view: string | undefined) => (iri && view ? { iri, view } : undefined);

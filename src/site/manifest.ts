@@ -9,6 +9,8 @@ export interface SiteManifest {
   version: string;
   dataset: string;
   widths: ShardWidths;
+  /** Servers pages show partners' photographs from (absent: none). */
+  imageOrigins?: string[];
 }
 
 /** Reads site.json of a folder written by `concordat site`. */

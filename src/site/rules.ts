@@ -3,16 +3,17 @@
 import { ROUTES, type ShardWidths } from './routes.js';
 
 /**
- * Response headers every page carries (the same as `concordat serve`). Content-Security-Policy Level 3; nosniff (Fetch
- * §3.5).
+ * Response headers every page carries (the same as `concordat serve`). Content-Security-Policy Level 3 (images also
+ * from the servers of partners that let pages show their photographs); nosniff (Fetch §3.5).
  */
-export const SECURITY_HEADERS: Record<string, string> = {
-  'Content-Security-Policy':
-    "default-src 'none'; script-src 'self'; style-src 'self'; img-src 'self'; connect-src 'self'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'",
-  'X-Content-Type-Options': 'nosniff',
-  'Referrer-Policy': 'no-referrer',
-  'Cross-Origin-Resource-Policy': 'same-origin',
-};
+export function securityHeaders(imageOrigins: readonly string[] = []): Record<string, string> {
+  return {
+    'Content-Security-Policy': `default-src 'none'; script-src 'self'; style-src 'self'; img-src ${["'self'", ...imageOrigins].join(' ')}; connect-src 'self'; base-uri 'none'; form-action 'self'; frame-ancestors 'none'`,
+    'X-Content-Type-Options': 'nosniff',
+    'Referrer-Policy': 'no-referrer',
+    'Cross-Origin-Resource-Policy': 'same-origin',
+  };
+}
 /** Cache lifetimes: documents may change with the next release (an hour); the 303s are per release too. */
 export const CACHE = { document: 'public, max-age=3600', redirect: 'public, max-age=3600' };
 
@@ -43,13 +44,13 @@ export function routePatterns(
   });
 }
 
-const nginxHeaders = (extra: Record<string, string>) =>
-  Object.entries({ ...SECURITY_HEADERS, ...extra })
+const nginxHeaders = (extra: Record<string, string>, origins: readonly string[]) =>
+  Object.entries({ ...securityHeaders(origins), ...extra })
     .map(([k, v]) => `    add_header ${k} "${v.replace(/"/g, '\\"')}" always;`)
     .join('\n');
 
 /** nginx: a map for the http block and locations for the server block (nginx 1.22, Debian bookworm). */
-function nginx(base: string, widths: ShardWidths): Record<string, string> {
+function nginx(base: string, widths: ShardWidths, origins: readonly string[]): Record<string, string> {
   const P = new URL(base).pathname;
   const map = `# concordat site rules for ${base}: include in the http { } block.
 # Accept → representation. nginx checks the regexes in order and takes the first that matches, so a client that
@@ -68,7 +69,7 @@ map $http_accept $concordat_ext {
       (r) => `    # ${r.kind}
     location ~ "^${P}${r.named.slice(1)}" {
         return 303 ${P}${r.namedDoc}.$concordat_ext${r.fragment ? '#$rel' : ''};
-${nginxHeaders({ Vary: 'Accept', 'Cache-Control': CACHE.redirect })}
+${nginxHeaders({ Vary: 'Accept', 'Cache-Control': CACHE.redirect }, origins)}
     }`,
     )
     .join('\n');
@@ -85,7 +86,7 @@ ${redirects}
         types { }
         default_type application/n-triples;
         try_files $1.ttl =404;
-${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
+${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' }, origins)}
     }
     location ~ "\\.(html|ttl|jsonld|json|css|js|nq|csv|md|txt)$" {
         types {
@@ -93,21 +94,21 @@ ${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
             text/javascript js; application/n-quads nq; text/csv csv; text/markdown md; text/plain txt;
         }
         try_files $uri =404;
-${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
+${nginxHeaders({ 'Cache-Control': CACHE.document, Vary: 'Accept' }, origins)}
     }
     location ${P} {
         try_files $uri $uri/ =404;
-${nginxHeaders({ 'Cache-Control': CACHE.document })}
+${nginxHeaders({ 'Cache-Control': CACHE.document }, origins)}
     }
 `;
   return { 'nginx-http.conf': map, 'nginx-server.conf': server };
 }
 
 /** Apache httpd 2.4 (mod_rewrite, mod_headers, mod_mime): a .htaccess-style file for the site folder. */
-function apache(base: string, widths: ShardWidths): string {
+function apache(base: string, widths: ShardWidths, origins: readonly string[]): string {
   const P = new URL(base).pathname;
   const h = (extra: Record<string, string>, cond = '') =>
-    Object.entries({ ...SECURITY_HEADERS, ...extra })
+    Object.entries({ ...securityHeaders(origins), ...extra })
       .map(([k, v]) => `Header always set ${k} "${v.replace(/"/g, '\\"')}"${cond}`)
       .join('\n');
   return `# concordat site rules for ${base} (Apache httpd 2.4): put in the site folder as .htaccess (AllowOverride All), or
@@ -143,6 +144,10 @@ ${routePatterns(widths)
 }
 
 /** The rule files written into the site folder, by file name. */
-export function serverRules(base: string, widths: ShardWidths): Record<string, string> {
-  return { ...nginx(base, widths), 'apache.htaccess': apache(base, widths) };
+export function serverRules(
+  base: string,
+  widths: ShardWidths,
+  imageOrigins: readonly string[] = [],
+): Record<string, string> {
+  return { ...nginx(base, widths, imageOrigins), 'apache.htaccess': apache(base, widths, imageOrigins) };
 }

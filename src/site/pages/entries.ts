@@ -3,7 +3,7 @@
 import { html, text, type Safe } from '../html.js';
 import { V, nodesOf, curie, type Node, type SiteContext } from '../context.js';
 import type { Entry, LinkEntry } from '../group.js';
-import { assertion, matchTable, statementList, status, workName, workView } from './parts.js';
+import { assertion, matchTable, photo, statementList, status, workName, workView } from './parts.js';
 
 /** A link's section: heading with the claim, its status, evidence chain and provenance; then earlier states. */
 export function linkSection(ctx: SiteContext, l: LinkEntry, doc: string, cluster: string | null): string {
@@ -45,7 +45,7 @@ export function matchSection(ctx: SiteContext, m: Entry, doc: string, link: stri
   const n = nodesOf(m.statements).get(m.iri);
   if (!n) return '';
   const run = n.one(V.generatedBy);
-  return html`<tr id="${rel(ctx, m.iri)}"><th scope="row">${m.hash}</th><td>${n.one(V.sourceImage)}</td><td>${n.one(V.targetImage)}</td><td>${n.one(V.score)}</td><td>${n.one(V.overlap)}</td><td>${run ? html`<a href="${ctx.href(run, doc)}">${run.replace(/^.*\//, '')}</a>` : ''}</td><td>${link ? html`<a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>` : ''}</td></tr>
+  return html`<tr id="${rel(ctx, m.iri)}"><th scope="row">${m.hash}</th><td>${photo(ctx, n.one(V.sourceImage))}</td><td>${photo(ctx, n.one(V.targetImage))}</td><td>${n.one(V.score)}</td><td>${n.one(V.overlap)}</td><td>${run ? html`<a href="${ctx.href(run, doc)}">${run.replace(/^.*\//, '')}</a>` : ''}</td><td>${link ? html`<a href="${ctx.href(link, doc)}">${link.replace(/^.*\//, '')}</a>` : ''}</td></tr>
 `.text;
 }
 

@@ -87,11 +87,22 @@ export function matchTable(ctx: SiteContext, matches: Node[], doc: string, capti
 ${matches.map(
   (
     m,
-  ) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td>${m.one(V.sourceImage)}</td><td>${m.one(V.targetImage)}</td><td>${m.one(V.score)}</td><td>${m.one(V.overlap)}</td></tr>
+  ) => html`<tr><td><a href="${ctx.href(m.iri, doc)}">${m.iri.slice(-6)}</a></td><td>${photo(ctx, m.one(V.sourceImage))}</td><td>${photo(ctx, m.one(V.targetImage))}</td><td>${m.one(V.score)}</td><td>${m.one(V.overlap)}</td></tr>
 `,
 )}</tbody>
 </table>
 ${runs.length ? html`<p class="small">Matched by ${runs.map((r, i) => html`${i ? ', ' : ''}<a href="${ctx.href(r, doc)}">${text(ctx.label(r))}</a>`)}.</p>` : ''}`;
+}
+
+/**
+ * A photograph's cell: its IRI, and the image itself from the partner's server where the partner lets pages show it
+ * (`showImages` in the project; the site holds no image bytes).
+ */
+export function photo(ctx: SiteContext, iri: string | undefined): Safe | string {
+  if (iri === undefined) return '';
+  const shown = ctx.images.any ? ctx.images.view(iri) : undefined;
+  if (!shown) return iri;
+  return html`<a href="${shown.url}" rel="external"><img src="${shown.url}" alt="Photograph ${shown.id}, ${shown.partner.name}" loading="lazy" decoding="async" height="96"></a> ${iri}`;
 }
 
 /** Every statement of a node as a definition list (the generic view of a resource). */
