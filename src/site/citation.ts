@@ -5,7 +5,7 @@ import type { Quad } from '@rdfjs/types';
 import { Reader, citedRelease } from '../cite/gather.js';
 import { KIND_OF, STATUS_OF, refOfWorkIri } from '../history/names.js';
 import { iri } from '../namespaces.js';
-import { V, Node, nodesOf } from './context.js';
+import { V, Node } from './context.js';
 import { citationText, citationMarkdown } from '../cite/text.js';
 import { citationCsl } from '../cite/csl.js';
 import type { Citation, CitedClaim, CitedMatch, CitedRelease, CitedRun, CitedWork } from '../cite/types.js';
@@ -19,7 +19,6 @@ const P = {
   parameterName: iri('cx', 'parameterName'),
   parameterValue: iri('cx', 'parameterValue'),
 };
-import type { Statement } from './nquads.js';
 import type { SiteContext } from './context.js';
 
 const cache = new WeakMap<SiteContext, Quad[]>();
@@ -59,13 +58,12 @@ const STATUS_ORDER: Record<string, number> = { confirmed: 0, proposed: 1, reject
 export function clusterCitation(
   ctx: SiteContext,
   clusterIri: string,
-  statements: readonly Statement[],
+  nodes: ReadonlyMap<string, Node>,
   links: readonly string[],
 ): Citation | null {
   if (links.length === 0) return null;
   const release = citedReleaseOf(ctx);
   if (!release) return null;
-  const nodes = nodesOf(statements);
   const node = (x: string): Node | undefined => nodes.get(x) ?? ctx.prov.get(x);
   const sorted = (n: Node | undefined, p: string) => (n ? [...new Set(n.all(p))].sort() : []);
   const one = (n: Node | undefined, p: string) => sorted(n, p)[0];

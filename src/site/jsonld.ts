@@ -47,35 +47,43 @@ export class JsonLd {
   }
 
   /**
-   * A value (JSON-LD 1.1 §4.2): node references by `@id`; strings as JSON strings, canonical integers and booleans as
-   * JSON numbers and booleans (§4.2.1 native types); other literals with `@type` or `@language`.
+   * A value as JSON text (JSON-LD 1.1 §4.2): node references by `@id`; strings as JSON strings, canonical integers and
+   * booleans as JSON numbers and booleans (§4.2.1 native types); other literals with `@type` or `@language`.
    */
-  private value(o: Term): unknown {
-    if (o.kind === 'iri') return { '@id': this.id(o.value) };
-    if (o.kind === 'bnode') return { '@id': `_:${o.value}` };
-    if (o.language) return { '@value': o.value, '@language': o.language };
+  private value(o: Term): string {
+    if (o.kind === 'iri') return `{"@id":${JSON.stringify(this.id(o.value))}}`;
+    if (o.kind === 'bnode') return `{"@id":${JSON.stringify(`_:${o.value}`)}}`;
+    const v = JSON.stringify(o.value);
+    if (o.language) return `{"@value":${v},"@language":${JSON.stringify(o.language)}}`;
     const dt = o.datatype;
-    if (!dt || dt === XSD_STRING) return o.value;
-    if (dt === XSD_INTEGER && CANONICAL_INTEGER.test(o.value)) return Number(o.value);
-    if (dt === XSD_BOOLEAN && (o.value === 'true' || o.value === 'false')) return o.value === 'true';
-    return { '@value': o.value, '@type': compact(dt) };
+    if (!dt || dt === XSD_STRING) return v;
+    if (dt === XSD_INTEGER && CANONICAL_INTEGER.test(o.value)) return o.value;
+    if (dt === XSD_BOOLEAN && (o.value === 'true' || o.value === 'false')) return o.value;
+    return `{"@value":${v},"@type":${JSON.stringify(compact(dt))}}`;
   }
 
-  /** Node objects of the statements, one per subject, as JSON text joined by commas (for a `@graph` array). */
+  /**
+   * Node objects of the statements, one per subject in first-seen order, as JSON text joined by commas (for a `@graph`
+   * array); a key with one value has no array (JSON-LD 1.1 §4.3.1: an array only groups the values). Written as text
+   * directly: no object per value, no walk by JSON.stringify.
+   */
   nodes(statements: readonly Statement[]): string {
-    const nodes = new Map<string, Record<string, unknown[]>>();
+    const nodes = new Map<string, Map<string, string[]>>();
     for (const st of statements) {
       let n = nodes.get(st.s);
-      if (!n) nodes.set(st.s, (n = {}));
-      if (st.p === RDF_TYPE && st.o.kind === 'iri') (n['@type'] ??= []).push(compact(st.o.value));
-      else (n[compact(st.p)] ??= []).push(this.value(st.o));
+      if (!n) nodes.set(st.s, (n = new Map()));
+      const isType = st.p === RDF_TYPE && st.o.kind === 'iri';
+      const k = isType ? '@type' : compact(st.p);
+      const text = isType ? JSON.stringify(compact(st.o.value)) : this.value(st.o);
+      const l = n.get(k);
+      if (l) l.push(text);
+      else n.set(k, [text]);
     }
     const out: string[] = [];
     for (const [s, n] of nodes) {
-      const node: Record<string, unknown> = { '@id': s.startsWith('_:') ? s : this.id(s) };
-      // a single value needs no array (JSON-LD 1.1 §4.3.1: an array only orders nothing and groups values)
-      for (const k in n) node[k] = n[k].length === 1 ? n[k][0] : n[k];
-      out.push(JSON.stringify(node));
+      let t = `{"@id":${JSON.stringify(this.id(s))}`;
+      for (const [k, vs] of n) t += `,${JSON.stringify(k)}:${vs.length === 1 ? vs[0] : `[${vs.join(',')}]`}`;
+      out.push(t + '}');
     }
     return out.join(',\n');
   }

@@ -70,7 +70,7 @@ export function clusterPage(ctx: SiteContext, u: ClusterUnit): string {
   const citation = clusterCitation(
     ctx,
     u.iri,
-    all,
+    nodes,
     links.map((l) => l.node.iri),
   );
   if (citation) sections.push(citeSection(citation));
