@@ -138,6 +138,33 @@ test('a cluster IRI cites exactly the links between its members; text has one se
   );
 });
 
+test('--brief: no line per image match, each claim still names its link IRI and match count; runs and release once', async () => {
+  const r = await ready;
+  const cl = r.clustering.clusters.find((c) => c.members.length >= 3)!;
+  const target = `${r.model.project.base}work/${cl.id}`;
+  const full = run('cite', target, '--release', release);
+  const brief = run('cite', target, '--release', release, '--brief');
+  assert.equal(brief.status, 0, brief.stderr);
+  const c = await cite(target, { release });
+  assert.ok(c.claims.length >= 2 && c.claims.some((x) => x.matches.length > 1));
+  assert.equal(
+    (full.stdout.match(/^ {2}- image match: /gm) ?? []).length,
+    c.claims.reduce((n, x) => n + x.matches.length, 0),
+  );
+  assert.equal((brief.stdout.match(/image match: /g) ?? []).length, 0);
+  for (const x of c.claims) {
+    assert.ok(brief.stdout.includes(`${x.support} image pair${x.support === 1 ? '' : 's'} <${x.link}>`), x.link);
+    assert.ok(brief.stdout.includes(`on the evidence of ${x.matches.length} image match`), x.link);
+  }
+  assert.equal(brief.stdout.split('\nRuns and release:\n').length, 2);
+  assert.equal((brief.stdout.match(/^ {2}- release: /gm) ?? []).length, 1);
+  assert.equal((full.stdout.match(/^ {2}- release: /gm) ?? []).length, c.claims.length);
+  const md = run('cite', target, '--release', release, '--brief', '--format', 'markdown').stdout;
+  assert.equal((md.match(/^\| <https:/gm) ?? []).length, 0);
+  assert.equal((md.match(/^## Runs and release$/gm) ?? []).length, 1);
+  assert.ok(brief.stdout.length < full.stdout.length, `${brief.stdout.length} vs ${full.stdout.length}`);
+});
+
 test("JSON-LD output: every statement is in the release and the link's status is among them", async () => {
   await ready;
   const c = await cite('kessling:Inv. 10/2', { release });

@@ -309,3 +309,40 @@ test('cluster pages cite as `concordat cite --brief <cluster IRI>` does: the pla
   }
   assert.ok(compared >= 10, `only ${compared} clusters compared`);
 });
+
+test('cluster pages list their date conflicts: each cited conflict is a row with both records and their dates', async () => {
+  const d = await demoSitesOnce();
+  const { cite } = await import('../src/cite/index.js');
+  const nq = readFileSync(path.join(d.release2, 'concordance.nq'), 'utf8');
+  const clusters = [
+    ...new Set(
+      [...nq.matchAll(/^<([^>]*\/work\/[^/>]+)> <https:\/\/w3id.org\/concordat\/vocab#hasDateConflict> /gm)].map(
+        (m) => m[1],
+      ),
+    ),
+  ];
+  assert.ok(clusters.length >= 2, `only ${clusters.length} clusters with date conflicts in the demo`);
+  let rows = 0;
+  for (const cluster of clusters) {
+    const c = await cite(cluster, { release: d.release2 });
+    const page = readFileSync(path.join(d.site2, `${new URL(cluster).pathname.slice(1)}.html`), 'utf8');
+    assert.ok(page.includes('<h2 id="conflicts">Date conflicts</h2>'), cluster);
+    for (const x of c.conflicts ?? []) {
+      const id = new URL(x.iri).pathname.slice(1);
+      const row = new RegExp(`<tr id="${id}">(.*?)</tr>`).exec(page);
+      assert.ok(row, `${cluster}: no row for ${id}`);
+      const esc = (t: string) => t.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/"/g, '&quot;');
+      for (const w of [x.a, x.b]) {
+        assert.ok(row[1].includes(`<bdi>${esc(w.ref.slice(w.partner.length + 1))}</bdi>`), `${id}: ${w.ref}`);
+        assert.ok(row[1].includes(`<bdi>${esc(w.date ?? '')}</bdi>`), `${id}: ${w.date}`);
+      }
+      assert.ok(
+        row[1].indexOf(x.a.ref.slice(x.a.partner.length + 1)) < row[1].indexOf(x.b.ref.slice(x.b.partner.length + 1)) ||
+          x.a.ref === x.b.ref,
+        id,
+      );
+      rows++;
+    }
+  }
+  assert.ok(rows >= 2, `only ${rows} conflict rows`);
+});

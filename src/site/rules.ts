@@ -113,9 +113,17 @@ function apache(base: string, widths: ShardWidths, origins: readonly string[]): 
       .join('\n');
   return `# concordat site rules for ${base} (Apache httpd 2.4): put in the site folder as .htaccess (AllowOverride All), or
 # inside its <Directory>. Needs mod_rewrite, mod_headers, mod_mime. Minted IRIs → 303 See Other to their document by Accept.
+# media types named here, not left to the server's mime.types (the same table as the nginx rules)
+AddType text/html .html
 AddType text/turtle .ttl
 AddType application/ld+json .jsonld
+AddType application/json .json
+AddType text/css .css
+AddType text/javascript .js
 AddType application/n-quads .nq
+AddType text/csv .csv
+AddType text/markdown .md
+AddType text/plain .txt
 AddCharset utf-8 .html .ttl .css .js
 DirectoryIndex index.html
 ErrorDocument 404 ${P}404.html
@@ -123,7 +131,11 @@ Options -Indexes -MultiViews
 ${h({ 'Cache-Control': CACHE.document, Vary: 'Accept' })}
 RewriteEngine On
 RewriteBase ${P}
-RewriteRule ^(.+)\\.nt$ $1.ttl [T=application/n-triples,END]
+# .nt: the .ttl file sent as N-Triples (a T flag is lost in an .htaccess rewrite; ForceType on the request is not)
+RewriteRule ^(.+)\\.nt$ $1.ttl [END]
+<If "%{THE_REQUEST} =~ m#^[A-Z]+ [^? ]+\\.nt[? ]#">
+  ForceType application/n-triples
+</If>
 # Accept → extension; later rules win, so RDF types listed anywhere in Accept beat text/html (q-values not weighed).
 RewriteRule ^ - [E=CONCORDAT_EXT:html]
 RewriteCond %{HTTP_ACCEPT} application/json [NC]

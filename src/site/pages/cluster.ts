@@ -146,7 +146,8 @@ ${matchTable(ctx, ms, doc, `Image matches behind the claim ${l.iri.replace(/^.*\
 
 function conflictSection(conflicts: Node[], wv: (x?: string) => WorkView | undefined): Safe {
   return html`<section aria-labelledby="conflicts"><h2 id="conflicts">Date conflicts</h2>
-<table><thead><tr><th scope="col">Record</th><th scope="col">Date</th><th scope="col">Record</th><th scope="col">Date</th><th scope="col">Severity</th></tr></thead><tbody>
+<p>Records whose catalogued date lies further from the cluster's consensus than the project's tolerance, each beside a record giving the consensus date.</p>
+<table><thead><tr><th scope="col">Record whose date disagrees</th><th scope="col">Its date</th><th scope="col">Record with the cluster's date</th><th scope="col">That date</th><th scope="col">Severity</th></tr></thead><tbody>
 ${conflicts.map((x) => {
   const a = wv(x.one(V.workA)),
     b = wv(x.one(V.workB));
