@@ -1,7 +1,8 @@
 // `concordat build <project> --out <folder>`: the whole pipeline into a new release folder.
 import { Option, type Command } from 'commander';
 import type { ShaclEngine } from '../validate/shacl.js';
-import { displayPath } from '../errors.js';
+import { displayPath, formatProblem } from '../errors.js';
+import { placeholderWarnings } from '../load/placeholders.js';
 
 export function register(program: Command): void {
   program
@@ -50,6 +51,14 @@ export function register(program: Command): void {
           csvPlain: opts.csvPlain,
           gzip: opts.gzip,
         });
+        // What a starter leaves unfilled is published as it stands: say so on every build, not only in `check`.
+        const unfilled = placeholderWarnings(r.model.project, project);
+        for (const w of unfilled) process.stderr.write(`concordat: warning: ${formatProblem(w)}\n`);
+        const others = r.model.warnings.length - unfilled.length;
+        if (others > 0)
+          process.stderr.write(
+            `concordat: ${others} more warning(s) about the inputs; \`concordat check\` lists them\n`,
+          );
         const s = releaseSummary(r);
         process.stdout.write(
           opts.json ? JSON.stringify(s, null, 2) + '\n' : releaseSummaryText(s, displayPath(r.outDir)),
