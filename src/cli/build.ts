@@ -1,5 +1,6 @@
 // `concordat build <project> --out <folder>`: the whole pipeline into a new release folder.
 import { Option, type Command } from 'commander';
+import { projectArg } from './options.js';
 import type { ShaclEngine } from '../validate/shacl.js';
 import { displayPath, formatProblem } from '../errors.js';
 import { placeholderWarnings } from '../load/placeholders.js';
@@ -8,7 +9,7 @@ export function register(program: Command): void {
   program
     .command('build')
     .description('build a release: claims, clusters, reports and validated RDF dumps, into a new folder')
-    .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
+    .argument('<project>', 'the project file, e.g. demo-data/concordance.json, or the folder holding it', projectArg)
     .requiredOption('--out <folder>', 'the release folder to create (must not exist)')
     .option('--shapes <folder>', 'SHACL shapes to validate against (default: the shapes shipped with concordat)')
     .option('--previous <folder>', 'the previous release folder (overrides "previous" in the project file)')
