@@ -60,7 +60,12 @@ export interface PageInput {
 }
 
 /** Relative path from the page at `doc` to the site root (`work/c1` → `../`). */
-export const rootOf = (doc: string) => '../'.repeat(doc.split('/').length - 1) || './';
+const ROOTS = ['./', '../', '../../', '../../../', '../../../../'];
+export function rootOf(doc: string): string {
+  let depth = 0;
+  for (let i = doc.indexOf('/'); i >= 0; i = doc.indexOf('/', i + 1)) depth++;
+  return ROOTS[depth] ?? '../'.repeat(depth);
+}
 
 /** A whole page: skip link, header with the site's name, main content, footer with the licence and alternates. */
 export function page(p: PageInput): string {
