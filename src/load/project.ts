@@ -4,12 +4,21 @@ import { z } from 'zod';
 import { ProblemList, type Problem } from '../errors.js';
 import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
+import { iriProblem } from '../io/iri.js';
 import { didYouMean } from '../io/did-you-mean.js';
 import { lineColumn, readJsonFile } from '../io/json-file.js';
 
-const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
-const iri = (what: string) =>
-  z.string().regex(absoluteIri, { message: `${what} must be an absolute IRI such as https://example.org/` });
+/** An IRI the release publishes: checked by RFC 3987 §2.2 before anything is written (io/iri.ts). */
+const iri = (example: string) =>
+  z.string().superRefine((v, ctx) => {
+    const problem = iriProblem(v);
+    if (problem)
+      ctx.addIssue({
+        code: 'custom',
+        message: `"${v}" is not an absolute IRI: ${problem}`,
+        params: { hint: `e.g. "${example}"` },
+      });
+  });
 const unit = z.number().min(0).max(1);
 const nonEmpty = z.string().trim().min(1, { message: 'must not be empty' });
 const partnerKey = z.string().regex(/^[a-z][a-z0-9_-]{0,31}$/, {
@@ -29,7 +38,7 @@ const ColumnsSchema = z.strictObject({
 const PartnerSchema = z.strictObject({
   key: partnerKey,
   name: nonEmpty,
-  homepage: iri('homepage').optional(),
+  homepage: iri('https://archive.example.org/').optional(),
   workIri: z.string(),
   imageIri: z.string(),
   recordPage: z.string().optional(),
@@ -94,9 +103,9 @@ const PolicySchema = z
 export const ProjectSchema = z.strictObject({
   title: nonEmpty,
   description: z.string().optional(),
-  base: iri('base'),
-  license: iri('license'),
-  publisher: z.strictObject({ name: nonEmpty, homepage: iri('homepage').optional() }),
+  base: iri('https://concordance.example.org/'),
+  license: iri('https://creativecommons.org/licenses/by/4.0/'),
+  publisher: z.strictObject({ name: nonEmpty, homepage: iri('https://consortium.example.org/').optional() }),
   partners: z.array(PartnerSchema).min(1, { message: 'at least one partner is needed' }),
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
   decisions: z.array(DecisionFileSchema).default([]),
@@ -180,7 +189,14 @@ export function loadProjectFile(file: string): ProjectConfig {
           });
         }
       } else {
-        problems.add({ file, line: lineOfPath(text, issue.path), field: jsonPath(issue.path), message: issue.message });
+        const hint = issue.code === 'custom' ? (issue.params?.hint as string | undefined) : undefined;
+        problems.add({
+          file,
+          line: lineOfPath(text, issue.path),
+          field: jsonPath(issue.path),
+          message: issue.message,
+          ...(hint ? { hint } : {}),
+        });
       }
     }
     problems.throwIfAny();
@@ -232,11 +248,13 @@ export function loadProjectFile(file: string): ProjectConfig {
           message: `template ${msg}`,
           hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"`,
         });
-      if (!absoluteIri.test(tpl.replace(/\{[^{}]*\}/g, 'x')))
+      // each {name} filled with as many x as it is long, so positions in the message are the template's own
+      const problem = iriProblem(tpl.replace(/\{[^{}]*\}/g, (m) => 'x'.repeat(m.length)));
+      if (problem)
         problems.add({
           ...at(field),
-          message: 'template does not give an absolute IRI',
-          hint: 'start it with https://',
+          message: `template "${tpl}" does not give an absolute IRI: ${problem}`,
+          hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"`,
         });
     }
   });

@@ -1,5 +1,6 @@
 // RDF stage: the release view → units of quads (provenance, one per cluster, one per stray link), streamed in a fixed
 // order.
+import { looksLikeIri } from '../io/iri.js';
 import type { Quad, NamedNode } from '@rdfjs/types';
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
@@ -195,7 +196,7 @@ export class Namer {
    * A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters).
    */
   curatorIri = (c: string) => {
-    if (/^https?:\/\//.test(c)) return c;
+    if (looksLikeIri(c)) return c; // checked as an IRI when the decisions file was read
     const slug = c
       .toLowerCase()
       .normalize('NFKD')
