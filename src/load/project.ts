@@ -2,11 +2,12 @@
 import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, type Problem } from '../errors.js';
-import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
+import { IMAGE_ROLES, type ProjectConfig, type RunConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
 import { iriProblem } from '../io/iri.js';
 import { didYouMean } from '../io/did-you-mean.js';
-import { lineColumn, readJsonFile } from '../io/json-file.js';
+import { jsonSpots, lineColumn, readJsonFile } from '../io/json-file.js';
+import { pathKey, type JsonSpots } from '../io/json-scan.js';
 
 /** An IRI the release publishes: checked by RFC 3987 §2.2 before anything is written (io/iri.ts). */
 const iri = (example: string) =>
@@ -85,6 +86,8 @@ const RunSchema = z.strictObject({
   parameters: z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])).default({}),
 });
 
+type RunConfigParsed = z.infer<typeof RunSchema>;
+
 const PolicySchema = z
   .strictObject({
     proposeAt: unit.default(0.5),
@@ -162,12 +165,37 @@ function keysAt(pathParts: PropertyKey[]): string[] {
 const jsonPath = (p: PropertyKey[]) =>
   p.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
 
-/** Finds the line where a JSON path's value starts, by a light scan for its last key; 1 when unknown. */
+let scanned: { text: string; spots: JsonSpots } | undefined;
+/** Where values start in the project text (scanned once per text). */
+function spotsOf(text: string): JsonSpots {
+  if (scanned?.text !== text) scanned = { text, spots: jsonSpots(text) };
+  return scanned.spots;
+}
+
+/** The line where a JSON path's value (or member name) starts; for a missing field, that of its nearest parent. */
 function lineOfPath(text: string, p: PropertyKey[]): number {
-  const lastKey = [...p].reverse().find((k) => typeof k === 'string');
-  if (lastKey === undefined) return 1;
-  const idx = text.indexOf(JSON.stringify(lastKey));
-  return idx < 0 ? 1 : lineColumn(text, idx).line;
+  const { offset } = spotsOf(text);
+  const keys = p.filter((k): k is string | number => typeof k !== 'symbol');
+  for (let n = keys.length; n >= 0; n--) {
+    const at = offset.get(pathKey(keys.slice(0, n)));
+    if (at !== undefined) return lineColumn(text, at).line;
+  }
+  return 1;
+}
+
+/**
+ * A run's parameters with each number as written in the project file (JSON.parse would turn 1e-7 into 1e-7 but a
+ * 30-digit integer into 1.2345678901234568e+29): the text is kept and typed when published.
+ */
+function parametersAsWritten(text: string, i: number, run: RunConfigParsed): RunConfig {
+  const { number } = spotsOf(text);
+  const parameters: RunConfig['parameters'] = {};
+  for (const [k, v] of Object.entries(run.parameters)) {
+    const written = number.get(pathKey(['evidence', i, 'run', 'parameters', k]));
+    if (typeof v === 'number' && written === undefined) throw new Error(`no text for the number at parameters.${k}`);
+    parameters[k] = typeof v === 'number' ? { number: written! } : v;
+  }
+  return { ...run, parameters };
 }
 
 /** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
@@ -289,7 +317,10 @@ export function loadProjectFile(file: string): ProjectConfig {
   return {
     ...p,
     partners: p.partners.map((x) => ({ ...x, catalogue: { ...x.catalogue, file: abs(x.catalogue.file) } })),
-    evidence: p.evidence.map((e) => ({ ...e, file: abs(e.file) })),
+    evidence: p.evidence.map((e, i) => ({
+      file: abs(e.file),
+      ...(e.run ? { run: parametersAsWritten(text, i, e.run) } : {}),
+    })),
     decisions: p.decisions.map((d) => ({ ...d, file: abs(d.file) })),
     gold: p.gold === undefined ? undefined : abs(p.gold),
     previous: p.previous === undefined ? undefined : abs(p.previous),

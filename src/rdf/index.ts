@@ -7,7 +7,7 @@ import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
 import { matchesOf } from '../link/index.js';
 import { compileTemplate, encodeUnreserved } from '../io/template.js';
-import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
+import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph, numberLiteral } from './terms.js';
 import type { ReleaseView } from './view.js';
 
 export type GraphName = 'claims' | 'evidence' | 'provenance' | 'dataset';
@@ -515,13 +515,7 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
       prov(
         P,
         cxParameterValue,
-        typeof v === 'number'
-          ? Number.isInteger(v)
-            ? int(v)
-            : dec(v)
-          : typeof v === 'boolean'
-            ? bool(v)
-            : str(String(v)),
+        typeof v === 'object' && v !== null ? numberLiteral(v.number) : typeof v === 'boolean' ? bool(v) : str(String(v)),
       );
     }
     if (!agents.has(agent)) {
