@@ -59,11 +59,15 @@ export function scanJson(text: string, record = true): JsonScan {
       if (c < 0x20)
         return c === 0x0a || c === 0x0d
           ? fail(open, 'a string opened here is not closed on its line')
-          : fail(i, `control character U+${c.toString(16).toUpperCase().padStart(4, '0')} in a string (write it as \\u escape)`);
+          : fail(
+              i,
+              `control character U+${c.toString(16).toUpperCase().padStart(4, '0')} in a string (write it as \\u escape)`,
+            );
       if (c === 0x5c) {
         const e = text[i + 1];
         if (e === 'u') {
-          if (!/^[0-9A-Fa-f]{4}$/.test(text.slice(i + 2, i + 6))) return fail(i, '\\u must be followed by four hex digits');
+          if (!/^[0-9A-Fa-f]{4}$/.test(text.slice(i + 2, i + 6)))
+            return fail(i, '\\u must be followed by four hex digits');
           i += 6;
         } else if (e !== undefined && '"\\/bfnrt'.includes(e)) i += 2;
         else return fail(i, `"\\${e ?? ''}" is no escape in JSON (use \\\\ for a backslash)`);
@@ -105,7 +109,10 @@ export function scanJson(text: string, record = true): JsonScan {
         i += m[0].length;
         const next = text[i];
         if (next !== undefined && /[0-9.eE]/.test(next))
-          return fail(at, `"${text.slice(at, i + 1)}" is not a JSON number (no leading zeros; digits after "." and "e")`);
+          return fail(
+            at,
+            `"${text.slice(at, i + 1)}" is not a JSON number (no leading zeros; digits after "." and "e")`,
+          );
         if (path !== UNRECORDED) spots.number.set(pathKey(path), m[0]);
       } else {
         const word = LITERALS.find((w) => text.startsWith(w, i));

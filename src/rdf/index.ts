@@ -515,7 +515,11 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
       prov(
         P,
         cxParameterValue,
-        typeof v === 'object' && v !== null ? numberLiteral(v.number) : typeof v === 'boolean' ? bool(v) : str(String(v)),
+        typeof v === 'object' && v !== null
+          ? numberLiteral(v.number)
+          : typeof v === 'boolean'
+            ? bool(v)
+            : str(String(v)),
       );
     }
     if (!agents.has(agent)) {

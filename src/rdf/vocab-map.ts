@@ -128,7 +128,11 @@ function checkIris(file: string, iris: Record<string, string>, predicates: strin
     });
   if (base !== undefined)
     for (const [name, pattern] of Object.entries(iris)) {
-      const filled = fill(pattern, Object.fromEntries(slotsOf(pattern).flatMap((s) => (s === 'base' ? [] : [[s, 'x']]))), base);
+      const filled = fill(
+        pattern,
+        Object.fromEntries(slotsOf(pattern).flatMap((s) => (s === 'base' ? [] : [[s, 'x']]))),
+        base,
+      );
       const problem = iriProblem(filled);
       if (problem) throw bad(`iris.${name}`, filled, problem);
     }
