@@ -1,10 +1,13 @@
 // Text from users' files → text safe to show: long values cut, control characters visible, Markdown/HTML escaped.
 
-/** A message longer than this many UTF-16 code units is cut (common practice, no source: about three lines). */
-export const SHOWN_MAX = 240;
-/** How much of a cut text is kept: its first 160 and last 60 code units, so the end of a message survives. */
-export const SHOWN_HEAD = 160;
-export const SHOWN_TAIL = 60;
+/**
+ * A message longer than this many UTF-16 code units is cut: room for a message naming several long IRIs, not for a
+ * whole file's content (a choice, no source).
+ */
+export const SHOWN_MAX = 1000;
+/** How much of a cut text is kept: its first 700 and last 250 code units, so the end of a message survives. */
+export const SHOWN_HEAD = 700;
+export const SHOWN_TAIL = 250;
 
 /**
  * Cuts a long text in the middle: `abc…[10485700 characters cut]…xyz`, keeping the first {@link SHOWN_HEAD} and
