@@ -10,7 +10,7 @@ import N3 from 'n3';
 import { build } from '../src/pipeline.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
 import { iri } from '../src/namespaces.js';
-import { DUMP_FORMATS, FORMATS } from '../src/rdf/formats.js';
+import { COMPRESSIONS, DUMP_FORMATS, FORMATS } from '../src/rdf/formats.js';
 import {
   distinctCount,
   merged,
@@ -21,6 +21,8 @@ import {
   rdflibRead,
 } from './helpers/external-rdf.js';
 import { requires } from './helpers/requires.js';
+import { validate } from '../src/validate/shacl.js';
+import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
 
 const tmp = tempDir('concordat-dumps-');
 after(() => rmSync(tmp, { recursive: true, force: true }));
@@ -146,6 +148,27 @@ test('dataset.ttl gives every file its dcat:byteSize; the .gz distributions add 
       file,
     );
   }
+});
+
+test('dataset.ttl of a gzip build conforms to the shipped shapes; a wrong byte size or compression is caught', async () => {
+  const shapes = (await loadShapesFolder(defaultShapesDir())).quads;
+  const text = readFileSync(path.join(g1.outDir, 'dataset.ttl'), 'utf8');
+  const { quad, literal, namedNode } = N3.DataFactory;
+  const parsed = new N3.Parser().parse(text);
+  assert.deepEqual((await validate(parsed, shapes)).results, []);
+  // DCAT 3 §6.8: byte size as xsd:nonNegativeInteger, compression format as an IANA media type IRI
+  const gzipIri = COMPRESSIONS.gzip.mediaTypeIri;
+  let sizes = 0;
+  let formats = 0;
+  const damaged = parsed.map((q) => {
+    if (q.predicate.value === iri('dcat', 'byteSize') && sizes++ === 0)
+      return quad(q.subject, q.predicate, literal(q.object.value, namedNode(iri('xsd', 'decimal'))), q.graph);
+    if (q.predicate.value === iri('dcat', 'compressFormat') && q.object.value === gzipIri && formats++ === 0)
+      return quad(q.subject, q.predicate, literal('gzip'), q.graph);
+    return q;
+  });
+  const found = (await validate(damaged, shapes)).results.map((r) => r.sourceShape.replace(/^.*#/, ''));
+  assert.deepEqual([...new Set(found)].sort(), ['Distribution-byteSize', 'Distribution-compressFormat']);
 });
 
 test('the JSON-LD dump writes canonical xsd:integer values as JSON numbers and decimals as strings', () => {
