@@ -11,7 +11,6 @@ import { progress } from '../util/progress.js';
 import { writeQuads } from '../rdf/serialize.js';
 import type { ValidationOutcome } from '../validate/shacl.js';
 import { ReleaseWriter } from './rdf-files.js';
-import { gzipCopies } from './compress.js';
 import { nn, typed } from '../rdf/terms.js';
 import { iri } from '../namespaces.js';
 import { TEMP_MARKER } from '../io/atomic.js';
@@ -34,7 +33,7 @@ export interface DumpsWritten {
 /**
  * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld} (unless the project turns slices off) and
  * dataset.ttl (the last unit, the dataset description, with each file's dcat:byteSize) into `dir` (design, "Outputs"),
- * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it.
+ * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it, written in the same pass.
  * `size` is the number of units, for the progress bar named `label`.
  */
 export async function writeDumps(
@@ -47,6 +46,7 @@ export async function writeDumps(
   const writer = new ReleaseWriter(
     dir,
     model.project.release.partnerDumps === false ? null : model.project.partners.map((p) => p.key),
+    model.project.release.compress === 'gzip' ? 'gzip' : null,
   );
   const bar = progress(label, size, 'units');
   let done = 0;
@@ -65,8 +65,6 @@ export async function writeDumps(
   } finally {
     bar.stop();
   }
-  if (model.project.release.compress === 'gzip')
-    for (const [f, h] of await gzipCopies(dir, [...hashes.keys()].sort())) hashes.set(f, h);
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', [
     ...datasetQuads,
     ...(await byteSizes(dir, datasetQuads, [...hashes.keys()])),
