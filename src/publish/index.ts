@@ -14,6 +14,7 @@ import { ReleaseWriter } from './rdf-files.js';
 import { nn, typed } from '../rdf/terms.js';
 import { iri } from '../namespaces.js';
 import { TEMP_MARKER } from '../io/atomic.js';
+import { DUMP_FORMATS, type FormatName } from '../rdf/formats.js';
 
 export interface PublishResult {
   triples: number;
@@ -22,12 +23,16 @@ export interface PublishResult {
   validation: ValidationOutcome;
   /** SHA-256 (hex) of the RDF files written, by path relative to the release folder (for {@link writeChecksums}). */
   hashes: Map<string, string>;
+  /** Milliseconds spent making each dump format's text (see {@link DumpsWritten}). */
+  encodeMs?: Partial<Record<FormatName, number>>;
 }
 
 /** What writing the dumps gives back: triples written, and SHA-256 (hex) of the RDF files by relative path. */
 export interface DumpsWritten {
   triples: number;
   hashes: Map<string, string>;
+  /** Milliseconds spent making each dump format's text on the main thread (the bench reports them). */
+  encodeMs: Partial<Record<FormatName, number>>;
 }
 
 /**
@@ -69,7 +74,8 @@ export async function writeDumps(
     ...datasetQuads,
     ...(await byteSizes(dir, datasetQuads, [...hashes.keys()])),
   ]);
-  return { triples: writer.triples, hashes };
+  const encodeMs = Object.fromEntries(DUMP_FORMATS.map((f, i) => [f, writer.encodeMs[i]]));
+  return { triples: writer.triples, hashes, encodeMs };
 }
 
 /**

@@ -1,6 +1,7 @@
 // Units of quads → the release's RDF files (whole and per partner, Turtle / N-Quads / JSON-LD).
 import { mkdirSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
+import { performance } from 'node:perf_hooks';
 import path from 'node:path';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
 import {
@@ -66,6 +67,8 @@ export class ReleaseWriter {
   private hashes: Map<string, string> | undefined;
   private readonly all: number[];
   triples = 0;
+  /** Milliseconds spent making each dump format's text (in {@link DUMP_FORMATS} order), for the bench. */
+  readonly encodeMs: number[] = DUMP_FORMATS.map(() => 0);
   /** Whether units are also copied to per-partner slices. */
   private readonly slices: boolean;
   /**
@@ -143,7 +146,12 @@ export class ReleaseWriter {
   }
   async add(unit: Unit): Promise<void> {
     this.triples += unit.quads.length;
-    const texts = this.encoders.map((e) => e.encode(unit));
+    const texts = this.encoders.map((e, i) => {
+      const t0 = performance.now();
+      const text = e.encode(unit);
+      this.encodeMs[i] += performance.now() - t0;
+      return text;
+    });
     const to =
       unit.partners === 'all' || !this.slices
         ? this.all
