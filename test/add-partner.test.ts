@@ -191,4 +191,15 @@ test("the starter's placeholder base: add-partner warns, check flags it and ever
   writeFileSync(p.file, JSON.stringify(o, null, 2));
   const after = fields();
   assert.ok(!after.some((f) => f === 'base' || f.startsWith('partners[')), after.join(', '));
+  // under the real base: minted by the consortium, and the site does not answer them
+  o.partners[0].workIri = 'https://concordance.invented-consortium.test/id/n/work/{work}';
+  writeFileSync(p.file, JSON.stringify(o, null, 2));
+  const under = JSON.parse(run('check', p.file, '--json').stdout).warnings;
+  assert.ok(
+    under.some(
+      (w: { field: string; message: string }) =>
+        w.field === 'partners[0].workIri' && /concordat site` does not answer them/.test(w.message),
+    ),
+    JSON.stringify(under),
+  );
 });

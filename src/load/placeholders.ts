@@ -41,13 +41,22 @@ export function placeholderWarnings(project: ProjectConfig, file: string): Probl
   project.partners.forEach((p, i) => {
     for (const key of ['workIri', 'imageIri', 'recordPage', 'imageView'] as const) {
       const template = p[key];
-      if (typeof template === 'string' && template.startsWith(STARTER_PLACEHOLDERS.base))
+      if (typeof template !== 'string') continue;
+      if (template.startsWith(STARTER_PLACEHOLDERS.base))
         out.push({
           file,
           line: lineOf(text, template),
           field: `partners[${i}].${key}`,
           message: `${key} of partner "${p.key}" is minted under the starter's placeholder base ${STARTER_PLACEHOLDERS.base}`,
           hint: "give the partner's own IRI template, or rewrite it under the consortium's real base",
+        });
+      else if ((key === 'workIri' || key === 'imageIri') && template.startsWith(project.base))
+        out.push({
+          file,
+          line: lineOf(text, template),
+          field: `partners[${i}].${key}`,
+          message: `${key} of partner "${p.key}" mints the partner's records under the consortium's base, and \`concordat site\` does not answer them (they are catalogue records, not documents of the release)`,
+          hint: "give the partner's own IRI template if it publishes one, or have the web server at the base answer them",
         });
     }
   });
