@@ -18,9 +18,11 @@ import {
   ourQuads,
   rapper,
   rapperRead,
+  rdflibJsonLd,
   rdflibPython,
   rdflibRead,
 } from './helpers/external-rdf.js';
+import { isomorphic } from './helpers/isomorphic.js';
 import { requires } from './helpers/requires.js';
 import { validate } from '../src/validate/shacl.js';
 import { defaultShapesDir, loadShapesFolder } from '../src/validate/files.js';
@@ -89,6 +91,28 @@ test(
     for (const s of stems(r2)) {
       const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
       assert.equal(read[path.join(r2.outDir, `${s}.ttl`)].count, distinctCount(merged(nq)), s);
+    }
+  },
+);
+
+test(
+  "rdflib's JSON-LD parser reads the second release's JSON-LD dumps as their N-Quads, graph by graph",
+  { skip: noRdflib || (!rdflibJsonLd && 'this rdflib has no JSON-LD parser plugin') },
+  async () => {
+    const read = rdflibRead(stems(r2).map((s) => path.join(r2.outDir, `${s}.jsonld`)));
+    for (const s of stems(r2)) {
+      const nq = await ourQuads(path.join(r2.outDir, `${s}.nq`));
+      const theirs = read[path.join(r2.outDir, `${s}.jsonld`)].quads;
+      const graphs = (qs: N3.Quad[]) => [...new Set(qs.map((q) => q.graph.value))].sort();
+      assert.deepEqual(graphs(theirs), graphs(nq), s);
+      for (const g of graphs(nq))
+        assert.ok(
+          await isomorphic(
+            theirs.filter((q) => q.graph.value === g),
+            nq.filter((q) => q.graph.value === g),
+          ),
+          `${s}: graph ${g}`,
+        );
     }
   },
 );
