@@ -229,8 +229,8 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
 }
 
 /**
- * `--gate-only`: only the build as `concordat build` runs it by default (SHACL gate on): time, CPU, peak RSS, stages and
- * sampled RSS per stage; returns its time. For the largest scales, where the other jobs would take as long again.
+ * `--gate-only`: only the build as `concordat build` runs it by default (SHACL gate on): time, CPU, peak RSS, stages
+ * and sampled RSS per stage; returns its time. For the largest scales, where the other jobs would take as long again.
  */
 async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean): Promise<number> {
   const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));

@@ -77,7 +77,8 @@ export function reviewQueue(
   links.forEach((l, i) => {
     if (l.decision === undefined && l.reliableSupport === 0 && l.support > 0) {
       const faint = smallOverlap(model, linkSet, l);
-      if (faint && faint.score >= proposeAt) add(faint.detail, faint.detail === l.a ? l.b : l.a, 'small-overlap', i, faint.score);
+      if (faint && faint.score >= proposeAt)
+        add(faint.detail, faint.detail === l.a ? l.b : l.a, 'small-overlap', i, faint.score);
       return;
     }
     if (l.decision !== undefined || !(isClaim(l) || l.held)) return;
