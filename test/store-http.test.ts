@@ -6,6 +6,8 @@ import { createServer, type IncomingMessage, type ServerResponse } from 'node:ht
 import type { AddressInfo } from 'node:net';
 import { UserError } from '../src/errors.js';
 import { RemoteStore } from '../src/store/remote.js';
+import { isLoopback } from '../src/store/http.js';
+import { networkInterfaces } from 'node:os';
 
 type Handler = (req: IncomingMessage, res: ServerResponse, n: number) => void;
 
@@ -96,4 +98,140 @@ test('a URL carrying a password and half-set credentials are refused before any 
     () => store('http://127.0.0.1:1/sparql', { CONCORDAT_STORE_USER: 'u' }),
     /CONCORDAT_STORE_PASSWORD: is not set/,
   );
+});
+
+/** This machine's first address that is not loopback, for a stub server the client must treat as remote. */
+const outside = Object.values(networkInterfaces())
+  .flat()
+  .find((a) => a && a.family === 'IPv4' && !a.internal)?.address;
+
+async function basicServer(host: string, body: (url: string) => Promise<void>): Promise<Array<string | undefined>> {
+  const seen: Array<string | undefined> = [];
+  const server = createServer((req, res) => {
+    seen.push(req.headers.authorization);
+    req.resume();
+    if (req.headers.authorization?.startsWith('Basic ')) ok(res);
+    else res.writeHead(401, { 'www-authenticate': 'Basic realm="store"' }).end();
+  });
+  await new Promise<void>((r) => server.listen(0, host, r));
+  try {
+    await body(`http://${host}:${(server.address() as AddressInfo).port}/sparql`);
+  } finally {
+    server.closeAllConnections();
+    await new Promise((r) => server.close(r));
+  }
+  return seen;
+}
+
+const BASIC_ENV = { CONCORDAT_STORE_USER: 'curator', CONCORDAT_STORE_PASSWORD: 'open sesame', NETRC: '/nonexistent' };
+
+test(
+  'Basic over plain http to another host is refused before the password is sent (RFC 7617 §4: it travels readable)',
+  { skip: outside ? false : 'this machine has no IPv4 address besides loopback' },
+  async () => {
+    const seen = await basicServer(outside!, (url) =>
+      assert.rejects(store(url, BASIC_ENV).query('ASK {}'), (e: unknown) => {
+        assert.ok(e instanceof UserError && e.exitCode === 1);
+        assert.match(
+          e.message,
+          /asks for Basic authentication over plain http.*CONCORDAT_STORE_ALLOW_BASIC_OVER_HTTP=1/,
+        );
+        return true;
+      }),
+    );
+    assert.ok(
+      seen.every((h) => !h?.startsWith('Basic')),
+      'no Basic credentials sent',
+    );
+    const allowed = await basicServer(outside!, async (url) =>
+      assert.deepEqual(await store(url, { ...BASIC_ENV, CONCORDAT_STORE_ALLOW_BASIC_OVER_HTTP: '1' }).query('ASK {}'), {
+        kind: 'boolean',
+        value: true,
+      }),
+    );
+    assert.ok(
+      allowed.some((h) => h?.startsWith('Basic')),
+      'sent once allowed',
+    );
+  },
+);
+
+test('loopback hosts are this machine; other names and addresses are not', () => {
+  for (const u of [
+    'http://127.0.0.1:1/',
+    'http://127.8.9.10/',
+    'http://[::1]:8890/',
+    'http://localhost/',
+    'http://a.localhost/',
+  ])
+    assert.equal(isLoopback(u), true, u);
+  for (const u of [
+    'http://192.0.2.2/',
+    'http://[::ffff:7f00:1]/',
+    'http://localhost.example.org/',
+    'http://128.0.0.1/',
+  ])
+    assert.equal(isLoopback(u), false, u);
+});
+
+test('a Graph Store that echoes the credentials in its error: the message carries neither user nor password', async () => {
+  const env = { CONCORDAT_STORE_USER: 'curator-x', CONCORDAT_STORE_PASSWORD: 'pw-not-shown-7', NETRC: '/nonexistent' };
+  await withServer(
+    (req, res) =>
+      req.headers.authorization
+        ? res.writeHead(403).end(`forbidden for ${req.headers.authorization} (curator-x:pw-not-shown-7)`)
+        : res.writeHead(401, { 'www-authenticate': 'Basic realm="store"' }).end(),
+    async (url) => {
+      const s = new RemoteStore({ gsp: url, update: url, query: url }, { env, retries: 0, progress: false });
+      await assert.rejects(
+        s.loadGraph('urn:test:g', { format: 'n-triples', text: '<urn:a> <urn:b> <urn:c> .\n', file: 'x.nt' }),
+        (e: unknown) => {
+          assert.ok(e instanceof UserError);
+          assert.match(e.message, /Graph Store answered HTTP 403/);
+          for (const secret of [
+            'pw-not-shown-7',
+            'curator-x',
+            Buffer.from('curator-x:pw-not-shown-7').toString('base64'),
+          ])
+            assert.ok(!e.message.includes(secret), secret);
+          return true;
+        },
+      );
+    },
+  );
+});
+
+test('the server dies mid-load: the message says the staging graph could not be checked, never that it was dropped', async () => {
+  let server: ReturnType<typeof createServer> | null = null;
+  let posts = 0;
+  const handler = (req: IncomingMessage, res: ServerResponse): void => {
+    req.resume();
+    req.on('end', () => {
+      if (req.method === 'GET') return void res.writeHead(404).end();
+      if (++posts === 1) return void res.writeHead(201).end();
+      // the second chunk: the server goes away and answers nothing more
+      req.socket.destroy();
+      server!.closeAllConnections();
+      server!.close();
+    });
+  };
+  server = createServer(handler);
+  await new Promise<void>((r) => server!.listen(0, '127.0.0.1', r));
+  const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}/store`;
+  const s = new RemoteStore(
+    { gsp: url, update: url, query: url },
+    { env: { NETRC: '/nonexistent' }, retries: 1, backoffMs: 5, timeoutMs: 5000, progress: false, chunkTriples: 1 },
+  );
+  const text = '<urn:a> <urn:b> <urn:c> .\n<urn:a> <urn:b> <urn:d> .\n';
+  await assert.rejects(s.loadGraph('urn:test:g', { format: 'n-triples', text, file: 'x.nt' }), (e: unknown) => {
+    assert.ok(e instanceof UserError && e.exitCode === 1);
+    assert.match(e.message, /no answer \(/);
+    assert.match(
+      e.message,
+      /whether staging graph\(s\) <urn:concordat:staging:[^>]+> were dropped could not be checked/,
+    );
+    assert.doesNotMatch(e.message, /staging graph was dropped/);
+    assert.match(e.message, /<urn:test:g> is unchanged/);
+    return true;
+  });
 });

@@ -12,34 +12,19 @@ import { bindParams } from '../src/store/bind.js';
 import { EmbeddedStore } from '../src/store/embedded.js';
 import { formatResult } from '../src/store/format.js';
 import { readNamedQuery } from '../src/store/named.js';
-import { RemoteStore, type Endpoints, type RemoteHooks } from '../src/store/remote.js';
+import { RemoteStore, STAGING_PREFIX, type RemoteHooks } from '../src/store/remote.js';
 import { loadPlanned, planRelease } from '../src/store/release.js';
 import { BASE, FIXTURE, NAMED_CASES, fileCounts, graphDump, secondVersion } from './helpers/store.js';
-import { requires } from './helpers/requires.js';
+import { holdVirtuoso, skipVirtuoso, virtuoso, VT, VT_ENDPOINTS, VT_ENV } from './helpers/virtuoso.js';
 import { tempDir } from './helpers/fixture.js';
 
-const URL_BASE = process.env.CONCORDAT_TEST_VIRTUOSO;
-const skip = requires(URL_BASE, 'set CONCORDAT_TEST_VIRTUOSO=http://127.0.0.1:28890 (a running Virtuoso, see .ci/run)');
+const URL_BASE = VT;
+const skip = skipVirtuoso;
 const CLI = fileURLToPath(new URL('../src/cli/main.js', import.meta.url));
-// Virtuoso's endpoints (GSP and Update behind HTTP Digest; Query anonymous), per the Virtuoso 7 documentation.
-const ENDPOINTS: Endpoints = URL_BASE
-  ? { gsp: `${URL_BASE}/sparql-graph-crud-auth`, update: `${URL_BASE}/sparql-auth`, query: `${URL_BASE}/sparql` }
-  : { query: '' };
-const ENV = {
-  CONCORDAT_STORE_USER: process.env.CONCORDAT_TEST_VIRTUOSO_USER ?? 'dba',
-  CONCORDAT_STORE_PASSWORD: process.env.CONCORDAT_TEST_VIRTUOSO_PASSWORD ?? 'dba',
-};
-
-const remote = (hooks?: RemoteHooks, chunkTriples?: number, endpoints = ENDPOINTS): RemoteStore =>
-  new RemoteStore(endpoints, {
-    env: ENV,
-    hooks,
-    chunkTriples,
-    retries: 1,
-    backoffMs: 50,
-    timeoutMs: 60_000,
-    progress: false,
-  });
+const ENDPOINTS = VT_ENDPOINTS;
+const ENV = VT_ENV;
+const remote = virtuoso;
+await holdVirtuoso();
 const scratchGraph = (): string => `${BASE}test/graph-${randomBytes(4).toString('hex')}`;
 const V1 = readFileSync(join(FIXTURE, 'concordance.nq'), 'utf8');
 
@@ -55,7 +40,7 @@ async function seeded(store: RemoteStore): Promise<{ graph: string; before: stri
 
 async function assertUnchanged(store: RemoteStore, graph: string, before: string[]): Promise<void> {
   assert.deepEqual(await graphDump(store, graph), before, 'target graph unchanged');
-  const stagings = (await store.listGraphs()).filter((g) => g.startsWith(`${graph}-staging-`));
+  const stagings = (await store.listGraphs()).filter((g) => g.startsWith(STAGING_PREFIX));
   assert.deepEqual(stagings, [], 'no staging graph left');
   await store.dropGraph(graph);
 }
@@ -92,24 +77,28 @@ test('replacing a graph with a second version leaves none of the old triples', {
   await store.dropGraph(graph);
 });
 
-const FAILURES: Array<[string, RemoteHooks, RegExp]> = [
+const UNCHANGED = /the staging graph was dropped; <[^>]+> is unchanged/;
+const FAILURES: Array<[string, RemoteHooks, RegExp, RegExp]> = [
   [
     'a chunk the server refuses',
     { chunkBody: (i, body) => (i === 1 ? `${body}<urn:x:broken> this is not N-Triples\n` : body) },
     /chunk 2 of 3 refused/,
+    UNCHANGED,
   ],
   [
     'a staging count that differs from the dump',
     { expectedTriples: (n) => n + 1 },
     /staging graph holds \d+ triples, the file has \d+/,
+    UNCHANGED,
   ],
   [
     'a MOVE the server refuses',
     { moveUpdate: (u) => u.replace('MOVE SILENT GRAPH', 'MOVE SILENT GRAPHH') },
     /update refused \(HTTP \d+\)/,
+    /no graph was replaced; <[^>]+> was not replaced \(it holds \d+ triples, as before; its new content was still staged\); the staging graph was dropped/,
   ],
 ];
-for (const [label, hooks, message] of FAILURES) {
+for (const [label, hooks, message, state] of FAILURES) {
   test(`a load that fails with ${label} leaves the previous graph intact`, { skip }, async () => {
     const store = remote();
     const { graph, before } = await seeded(store);
@@ -120,7 +109,7 @@ for (const [label, hooks, message] of FAILURES) {
       (e: unknown) => {
         assert.ok(e instanceof UserError && e.exitCode === 1);
         assert.match(e.message, message);
-        assert.match(e.message, /staging graph was dropped and <[^>]+> is unchanged/);
+        assert.match(e.message, state);
         return true;
       },
     );

@@ -38,7 +38,9 @@ export function register(program: Command): void {
         '  concordat load releases/2026.1 --partner harbour --endpoint http://127.0.0.1:8890/sparql-graph-crud-auth \\\n' +
         '      --update http://127.0.0.1:8890/sparql-auth --query-endpoint http://127.0.0.1:8890/sparql\n\n' +
         'Credentials for a remote store: CONCORDAT_STORE_USER and CONCORDAT_STORE_PASSWORD, or a netrc entry ($NETRC or ~/.netrc).\n' +
-        'A graph is replaced all or nothing. Exit codes: 0 loaded, 1 the store refused or failed (target graph unchanged), 2 bad input.',
+        'A release replaces the previous one all or nothing. Exit codes: 0 loaded, 1 the store refused or failed (the message\n' +
+        'says which graphs were replaced, if any), 2 bad input. Basic authentication over plain http is refused except on\n' +
+        'this machine (loopback) or with CONCORDAT_STORE_ALLOW_BASIC_OVER_HTTP=1.',
     )
     .action(async (release: string, opts: LoadOpts) => {
       const { openStore } = await import('../store/open.js');

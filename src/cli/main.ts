@@ -9,6 +9,7 @@ import { Command, CommanderError } from 'commander';
 import { UserError, EXIT } from '../errors.js';
 import { commands } from './commands.js';
 import { osUserError } from '../util/os-error.js';
+import { stopping } from '../util/interrupt.js';
 
 const program = new Command('concordat')
   .description(
@@ -23,7 +24,9 @@ for (const register of commands) register(program);
 try {
   await program.parseAsync(process.argv);
 } catch (err) {
-  if (err instanceof UserError) {
+  if (stopping()) {
+    // a signal is stopping the command: its handler undoes what was started, prints one line and exits
+  } else if (err instanceof UserError) {
     process.stderr.write(err.message + '\n');
     process.exitCode = err.exitCode;
   } else if (err instanceof CommanderError) {

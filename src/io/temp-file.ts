@@ -2,6 +2,7 @@
 import { renameSync, rmSync, writeFileSync } from 'node:fs';
 import { rename, writeFile } from 'node:fs/promises';
 import { randomBytes } from 'node:crypto';
+import { removeOnSignal } from '../util/interrupt.js';
 
 /**
  * The one mechanism behind every file concordat writes in place: write to `temp` (`<target>.tmp-<12 hex>`, in the
@@ -42,14 +43,20 @@ export function writeFileAtomically(file: string, data: string | Uint8Array): vo
   }
 }
 
-/** {@link writeFileAtomically} without blocking the event loop while the bytes are written. */
+/**
+ * {@link writeFileAtomically} without blocking the event loop while the bytes are written; a SIGINT or SIGTERM while
+ * it waits removes the temp file (src/util/interrupt.ts).
+ */
 export async function writeFileAtomicallyAsync(file: string, data: string | Uint8Array): Promise<void> {
   const t = new TempFile(file);
+  const forget = removeOnSignal(t.temp);
   try {
     await writeFile(t.temp, data);
     await rename(t.temp, t.target);
   } catch (e) {
     t.discard();
     throw e;
+  } finally {
+    forget();
   }
 }

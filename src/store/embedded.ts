@@ -12,7 +12,6 @@ import {
   removeStoreLeftovers,
   sha256,
   STORE_LOCK,
-  writeAtomic,
   writeManifest,
   type Manifest,
 } from './folder.js';
@@ -20,6 +19,7 @@ import { takeLock, type Lock } from '../util/lock.js';
 import { displayPath } from '../errors.js';
 import { removeOnSignal } from '../util/interrupt.js';
 import { dropGraphNames, type TripleLines } from './lines.js';
+import { writeFileAtomicallyAsync } from '../io/temp-file.js';
 import { parseNTriples, parseResultsJson } from './results.js';
 import type { GraphLoad, GraphSource, QueryResult, Store } from './types.js';
 
@@ -208,7 +208,7 @@ export class EmbeddedStore implements Store {
     const text = triples.replace(/ \.\n/g, ` <${graph}> .\n`);
     const digest = sha256(text);
     const file = graphFileName(graph, digest);
-    await writeAtomic(join(folder, file), text);
+    await writeFileAtomicallyAsync(join(folder, file), text);
     // until the manifest names it, a stop removes the new graph file (unless an earlier state already names it)
     if (this.deferred && !Object.values(this.manifest.graphs).some((e) => e.file === file))
       this.unnamed.push(removeOnSignal(join(folder, file)));

@@ -1,11 +1,11 @@
 // A store folder on disk: one N-Quads file per graph plus manifest.json, written atomically (temp file, rename,
 // manifest last).
-import { createHash, randomBytes } from 'node:crypto';
-import { mkdir, readdir, readFile, rename, rm, writeFile } from 'node:fs/promises';
+import { createHash } from 'node:crypto';
+import { mkdir, readdir, readFile, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { z } from 'zod';
 import { UserError, EXIT } from '../errors.js';
-import { removeOnSignal } from '../util/interrupt.js';
+import { writeFileAtomicallyAsync } from '../io/temp-file.js';
 
 /** What the manifest records for one graph. */
 export interface ManifestEntry {
@@ -41,23 +41,10 @@ export const MANIFEST = 'manifest.json';
 /** sha256 hex of a text's UTF-8 bytes. */
 export const sha256 = (data: string | Buffer): string => createHash('sha256').update(data).digest('hex');
 
-/** Writes a file atomically: a temp file beside it, then rename (POSIX rename(2) replaces the target in one step). */
-export async function writeAtomic(path: string, data: string): Promise<void> {
-  const tmp = `${path}${TEMP_INFIX}${randomBytes(6).toString('hex')}`;
-  const forget = removeOnSignal(tmp);
-  try {
-    await writeFile(tmp, data);
-    await rename(tmp, path);
-  } catch (err) {
-    await rm(tmp, { force: true });
-    throw err;
-  } finally {
-    forget();
-  }
-}
-
-/** Temp files are `<name>.tmp-<12 hex>`; anything so named in a locked store folder is a leftover of a stopped load. */
-const TEMP_INFIX = '.tmp-';
+/**
+ * Temp files are `<name>.tmp-<12 hex>` (src/io/temp-file.ts); anything so named in a locked store folder is a leftover
+ * of a stopped load.
+ */
 const TEMP_FILE = /\.tmp-[0-9a-f]{12}$/;
 /** The lock file a writing command holds inside the store folder. */
 export const STORE_LOCK = '.concordat.lock';
@@ -122,7 +109,7 @@ export async function writeManifest(folder: string, m: Manifest): Promise<void> 
       .sort()
       .map((g) => [g, m.graphs[g]]),
   );
-  await writeAtomic(join(folder, MANIFEST), JSON.stringify({ version: 1, graphs }, null, 2) + '\n');
+  await writeFileAtomicallyAsync(join(folder, MANIFEST), JSON.stringify({ version: 1, graphs }, null, 2) + '\n');
 }
 
 /**

@@ -14,7 +14,29 @@ export interface HttpOptions {
   retries: number;
   /** First wait between attempts; doubles each time. */
   backoffMs: number;
+  /**
+   * Send Basic credentials over plain http to a host other than this machine when a server asks for them (default
+   * false: refused, the password would cross the network readable).
+   */
+  allowBasicOverHttp?: boolean;
 }
+
+/** The environment variable that allows Basic authentication over plain http (trusted networks). */
+export const ALLOW_BASIC_VAR = 'CONCORDAT_STORE_ALLOW_BASIC_OVER_HTTP';
+
+/**
+ * Whether a URL's host is this machine's loopback interface (127.0.0.0/8, ::1, "localhost": RFC 6890 §2.2.2, RFC 4291
+ * §2.5.3, RFC 6761 §6.3). Basic over plain http is allowed there: the password never leaves the machine, and reading
+ * loopback traffic takes the same privileges as reading the process's memory or environment, where it already is.
+ */
+export function isLoopback(url: string): boolean {
+  const host = new URL(url).hostname.replace(/^\[|\]$/g, '').toLowerCase();
+  return host === 'localhost' || host.endsWith('.localhost') || host === '::1' || /^127(\.[0-9]{1,3}){3}$/.test(host);
+}
+
+/** Basic credentials may be sent to `url`: over https, to this machine, or where the user allowed plain http. */
+const basicAllowed = (url: string, allowed: boolean): boolean =>
+  new URL(url).protocol === 'https:' || isLoopback(url) || allowed;
 
 /** What came back. */
 export interface HttpAnswer {
@@ -63,8 +85,17 @@ export class Http {
 
   /** Replaces the password wherever it might appear in a message. */
   redact(text: string): string {
-    const pw = this.opts.credentials?.password;
-    return pw ? text.split(pw).join('***') : text;
+    let t = text.replace(/\/\/[^/\s@]*@/g, '//***@'); // user info in any URL
+    const c = this.opts.credentials;
+    if (!c) return t;
+    const secrets = [
+      c.password,
+      Buffer.from(`${c.user}:${c.password}`).toString('base64'),
+      `username="${c.user}"`,
+      `${c.user}:`,
+    ];
+    for (const secret of secrets) if (secret && secret !== ':') t = t.split(secret).join('***');
+    return t;
   }
 
   private async once(method: 'GET' | 'POST' | 'DELETE', url: string, req: HttpRequest): Promise<HttpAnswer> {
@@ -90,6 +121,18 @@ export class Http {
     const raw = res.headers['www-authenticate'];
     const challenge = Array.isArray(raw) ? raw.join(', ') : (raw ?? '');
     if (res.status === 401 && c && !this.basic && /^\s*Basic\b/i.test(challenge)) {
+      if (!basicAllowed(url, this.opts.allowBasicOverHttp ?? false))
+        throw new UserError(
+          {
+            file: shownUrl(url),
+            line: 0,
+            field: '',
+            message:
+              'the store asks for Basic authentication over plain http, which would send the password readable across the network',
+            hint: `use https, or set ${ALLOW_BASIC_VAR}=1 on a network you trust`,
+          },
+          EXIT.failure,
+        );
       this.basic = true;
       return this.once(method, url, req);
     }
@@ -104,6 +147,7 @@ export class Http {
       try {
         answer = await this.once(method, url, req);
       } catch (err) {
+        if (err instanceof UserError) throw err; // a refusal of ours (Basic over http), not a fault of the network
         fault = err;
       }
       const retry = answer ? answer.status >= 500 : RETRYABLE.has(codeOf(fault));

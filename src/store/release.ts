@@ -186,10 +186,12 @@ async function dropOtherReleases(
   const base = plan.map((p) => OWN_GRAPH.exec(p.graph)?.[1]).find((b) => b !== undefined);
   if (base === undefined) return { version: null, dropped: [] };
   const versions = await versionsIn(store);
-  const version = plan.map((p) => only(versions.get(p.graph))).find((v) => v !== null) ?? null;
+  // a remote store stages the loaded graphs until the end of the change: read their new content where it is
+  const at = (g: string): string => store.pendingAs?.(g) ?? g;
+  const version = plan.map((p) => only(versions.get(at(p.graph)))).find((v) => v !== null) ?? null;
   if (version === null) return { version, dropped: [] };
   const loaded = new Set(plan.map((p) => p.graph));
-  const main = only(versions.get(`${base}graph/dataset`));
+  const main = only(versions.get(at(`${base}graph/dataset`)));
   const dropped: DroppedGraph[] = [];
   for (const g of await store.listGraphs()) {
     if (loaded.has(g) || OWN_GRAPH.exec(g)?.[1] !== base) continue;
@@ -204,7 +206,8 @@ async function dropOtherReleases(
 /**
  * Loads a release: each planned graph replaced all or nothing, then the same concordance's graphs of other releases
  * removed (see dropOtherReleases). In a store folder all of it is one change (one manifest write); a remote store
- * replaces graph by graph. With `--graph` (everything into one graph of the user's choosing) nothing else is touched.
+ * stages every graph, then moves and drops them all in one Update request. With `--graph` (everything into one graph
+ * of the user's choosing) nothing else is touched.
  */
 export async function loadRelease(
   store: Store,

@@ -64,6 +64,8 @@ export interface Store {
   close(): Promise<void>;
   /** Runs loads and drops so that they take effect together (a store folder: one manifest write). */
   atomically?<T>(fn: () => Promise<T>): Promise<T>;
+  /** Inside `atomically`: the graph holding what `graph` will hold once the change takes effect (default: itself). */
+  pendingAs?(graph: string): string;
   /** Removes what stopped loads left (a remote store's staging graphs); says what it removed, or could not. */
   removeLeftovers?(): Promise<void>;
 }

@@ -45,22 +45,71 @@ export function removeStarted(): string[] {
   return paths;
 }
 
+/** Work to undo elsewhere (a remote store's staging graphs) when a signal stops the command; each says what it did. */
+const undo = new Map<number, () => Promise<string>>();
+
+/**
+ * Registers asynchronous clean-up (e.g. dropping a remote store's staging graphs) to run when a signal stops the
+ * command; the function resolves with what it verified, for the one line printed. Returns the function that forgets
+ * it.
+ */
+export function undoOnSignal(fn: () => Promise<string>): () => void {
+  const id = next++;
+  undo.set(id, fn);
+  return () => {
+    undo.delete(id);
+  };
+}
+
+let stoppedBy: keyof typeof SIGNAL_EXIT | null = null;
+
+/** Whether a signal is stopping the command: the command's own error, if any, is then not printed. */
+export const stopping = (): boolean => stoppedBy !== null;
+
+/** How long asynchronous clean-up may take before the process exits anyway (common practice, no source). */
+export const UNDO_LIMIT_MS = 20_000;
+
+async function undoAll(): Promise<string[]> {
+  const fns = [...undo.values()].reverse();
+  undo.clear();
+  const notes: string[] = [];
+  for (const fn of fns) notes.push(await fn().catch((err: unknown) => `clean-up failed: ${(err as Error).message}`));
+  return notes.filter(Boolean);
+}
+
 let installed = false;
 
 /**
  * Installs the handlers once per process. A signal stops the command, removes what it had started (temp folders,
- * temp files, locks) and exits 130 (SIGINT) or 143 (SIGTERM) after one line saying so.
+ * temp files, locks; staging graphs of a remote store, for at most {@link UNDO_LIMIT_MS}) and exits 130 (SIGINT) or
+ * 143 (SIGTERM) after one line saying so. A second signal during the remote clean-up exits at once, saying so.
  */
 export function exitCleanlyOnSignals(): void {
   if (installed) return;
   installed = true;
   for (const signal of Object.keys(SIGNAL_EXIT) as (keyof typeof SIGNAL_EXIT)[]) {
     process.on(signal, () => {
+      if (stoppedBy) {
+        process.stderr.write(`concordat: stopped by ${signal} during clean-up; what was not yet undone is left\n`);
+        process.exit(SIGNAL_EXIT[signal]);
+      }
+      stoppedBy = signal;
       const temps = [...started.values()].filter((p) => !/\.lock$/.test(p));
       removeStarted();
       const what = temps.length ? `; removed ${temps.map(displayPath).join(', ')}` : '';
-      process.stderr.write(`concordat: stopped by ${signal}${what}\n`);
-      process.exit(SIGNAL_EXIT[signal]);
+      const finish = (notes: string[]): never => {
+        process.stderr.write(`concordat: stopped by ${signal}${what}${notes.map((n) => `; ${n}`).join('')}\n`);
+        process.exit(SIGNAL_EXIT[signal]);
+      };
+      if (undo.size === 0) finish([]);
+      const limit = setTimeout(
+        () => finish([`clean-up did not finish within ${UNDO_LIMIT_MS / 1000} s; what it had not undone is left`]),
+        UNDO_LIMIT_MS,
+      );
+      void undoAll().then((notes) => {
+        clearTimeout(limit);
+        finish(notes);
+      });
     });
   }
 }
