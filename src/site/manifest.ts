@@ -2,6 +2,7 @@
 import { existsSync, readFileSync } from 'node:fs';
 import path from 'node:path';
 import { UserError } from '../errors.js';
+import { parseJson } from '../io/json-file.js';
 import type { ShardWidths } from './routes.js';
 
 export interface SiteManifest {
@@ -22,5 +23,9 @@ export function readManifest(site: string): SiteManifest {
       message: 'not a site folder (no site.json)',
       hint: 'name a folder written by concordat site',
     });
-  return JSON.parse(readFileSync(f, 'utf8')) as SiteManifest;
+  return parseJson(
+    readFileSync(f, 'utf8'),
+    f,
+    'site.json is damaged: write the site again with concordat site',
+  ) as SiteManifest;
 }
