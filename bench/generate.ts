@@ -12,11 +12,35 @@ export interface GenerateOptions {
   seed: number;
   /** Write per-partner slices when built (the project's release.partnerDumps; default true). */
   partnerDumps?: boolean;
+  /** Rates of the phenomena, to vary the consortium (defaults: PHENOMENA, JUNK, MISDATED). */
+  rates?: Rates;
 }
+
+/**
+ * Rates a scenario may change: share of artworks with a detail record, with a look-alike work, share of records with a
+ * matcher error or a misdated catalogue entry, and a factor on every junk-scan rate of JUNK.
+ */
+export interface Rates {
+  detail?: number;
+  lookAlike?: number;
+  matcherError?: number;
+  junk?: number;
+  misdated?: number;
+}
+
+/**
+ * Share of records catalogued with a date one to three centuries off their artwork's (a slip of the century, a copy
+ * dated as its model; common practice, no source). Drawn from a stream of its own, so the rest of a scenario does not
+ * move with it.
+ */
+export const MISDATED = 0.005;
 
 export interface GenerateSummary {
   projectFile: string;
-  /** `answer-key.csv`: `work,artwork,part_of` for every work (the truth the matcher only partly sees). */
+  /**
+   * `answer-key.csv`: `work,artwork,part_of,misdated` for every work (the truth the matcher only partly sees; misdated
+   * 1 for a record whose catalogue date is centuries off its artwork's).
+   */
   answerKey: string;
   works: number;
   images: number;
@@ -192,6 +216,8 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
     mkdirSync(path.join(dir, sub), { recursive: true });
 
   const rng = new Rng(seed);
+  const dating = new Rng(seed ^ 0x6d15da7e); // misdated records: a stream of their own
+  const rate = { ...PHENOMENA, junk: 1, misdated: MISDATED, ...opts.rates };
   const partnerOf = new Uint8Array(N),
     localOf = new Int32Array(N),
     imgCount = new Uint8Array(N),
@@ -212,7 +238,7 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
       ['work_no', 'photo_no', 'title', 'date', ...(p === ROLE_PARTNER ? ['role'] : [])].join(delim[p]),
     );
   const key = new ChunkWriter(path.join(dir, 'answer-key.csv'));
-  await key.line('work,artwork,part_of');
+  await key.line('work,artwork,part_of,misdated');
   const junk = JUNK.map(() => ({ work: [] as number[], k: [] as number[] }));
 
   // Pass 1: artworks (with their details and look-alikes) → partner records, photos and junk scans (catalogue rows).
@@ -232,15 +258,20 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
       photos[w] = kind === 1 ? 1 + rng.int(2) : 1 + rng.weighted([15, 35, 70, 90, 100]);
       const extra: number[] = [];
       JUNK.forEach((j, t) => {
-        if (rng.next() < j.rate) {
+        if (rng.next() < j.rate * rate.junk) {
           extra.push(t);
           junk[t].work.push(w);
           junk[t].k.push(photos[w] + extra.length - 1);
         }
       });
       imgCount[w] = photos[w] + extra.length;
-      const t = kind === 1 ? `${title} (detail)` : title + rng.pick(PARTS),
-        date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
+      const t = kind === 1 ? `${title} (detail)` : title + rng.pick(PARTS);
+      let date = rng.pick(DATE_STYLES)(year + rng.int(11) - 5);
+      const off = dating.next() < rate.misdated && date !== '';
+      if (off)
+        date = DATE_STYLES[dating.int(DATE_STYLES.length - 1)](
+          year + (dating.next() < 0.5 ? -1 : 1) * (100 + dating.int(200)),
+        );
       for (let k = 0; k < imgCount[w]; k++) {
         const role = k < photos[w] ? (kind === 1 ? 'Detail' : 'Recto') : JUNK[extra[k - photos[w]]].word;
         await cats[p].line(
@@ -249,7 +280,7 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
           ),
         );
       }
-      await key.line(`${partnerKey(p)}:${workId(p, localOf[w])},A${art},${kind === 1 ? `A${of}` : ''}`);
+      await key.line(`${partnerKey(p)}:${workId(p, localOf[w])},A${art},${kind === 1 ? `A${of}` : ''},${off ? 1 : ''}`);
       images += imgCount[w];
       w++;
     }
@@ -259,8 +290,8 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
     const title = rng.pick(SUBJECTS);
     const year = 1380 + rng.int(220);
     const art = await addArtwork(0, -1, rng.weighted(COPIES_CUM) + 1, title, year);
-    if (w < N && rng.next() < PHENOMENA.detail) await addArtwork(1, art, 1, title, year);
-    if (w < N && rng.next() < PHENOMENA.lookAlike) await addArtwork(2, art, 1 + rng.int(2), title, year + rng.int(30));
+    if (w < N && rng.next() < rate.detail) await addArtwork(1, art, 1, title, year);
+    if (w < N && rng.next() < rate.lookAlike) await addArtwork(2, art, 1 + rng.int(2), title, year + rng.int(30));
   }
   artStart.push(N);
   for (const c of cats) await c.close();
@@ -323,7 +354,7 @@ export async function generateProject(dir: string, opts: GenerateOptions): Promi
         );
         if (rng.next() < 0.003) await decide(x, y, 'distinct');
       }
-      if (rng.next() < PHENOMENA.matcherError) {
+      if (rng.next() < rate.matcherError) {
         const y = rng.int(N);
         if (artOf[y] !== a && artRef[artOf[y]] !== a && artRef[a] !== artOf[y])
           await row(

@@ -75,7 +75,17 @@ test("a citation's image matches are exactly the evidence rows behind the link i
     const got = new Set(claim.matches.map((m) => `${m.source} ${m.target} ${m.score} ${m.overlap}`));
     assert.deepEqual([...got].sort(), [...expected].sort(), `${a} – ${b}`);
     for (const m of claim.matches) assert.equal(m.run, `${p.base}run/${p.evidence[0].run!.id}`);
+    // the link confidence as the link stage computed it, never above the best score (src/evidence/README.md)
+    assert.equal(claim.confidence, l.reliableSupport > 0 ? Number(l.confidence.toFixed(6)) : undefined, `${a} – ${b}`);
+    if (claim.confidence !== undefined) assert.ok(claim.confidence <= claim.score!, `${a} – ${b}`);
   }
+  const text = run(
+    'cite',
+    `${p.partners[0].key}:${r.model.works.find((w) => w.partner === 0)!.id}`,
+    '--release',
+    release,
+  );
+  assert.match(text.stdout, /best score [\d.]+, confidence [\d.]+\)/);
 });
 
 test('a curator-confirmed claim names the curator and date of the deciding row of the decisions file', async () => {

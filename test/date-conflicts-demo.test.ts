@@ -3,13 +3,9 @@ import { test } from 'node:test';
 import assert from 'node:assert/strict';
 import path from 'node:path';
 import { readFileSync } from 'node:fs';
-import { build, type BuildResult } from '../src/pipeline.js';
-import { readCsv } from '../src/io/csv-read.js';
-import { CONFLICTS_HEADER } from '../src/report/index.js';
-import { yearsApart } from '../src/analyse/index.js';
-import { dateReader } from '../src/analyse/readings.js';
-import { workRef } from '../src/model.js';
+import { build } from '../src/pipeline.js';
 import { repoRoot, tempDir } from './helpers/fixture.js';
+import { centuriesOff, conflictRows } from './helpers/centuries-off.js';
 
 const demo = path.join(repoRoot, 'demo-data');
 const tmp = tempDir('concordat-date-conflicts-');
@@ -20,37 +16,7 @@ const second = first.then(() =>
   }),
 );
 
-async function listed(release: string): Promise<Map<string, Record<string, string>>> {
-  const out = new Map<string, Record<string, string>>();
-  let header: string[] | undefined;
-  for await (const r of readCsv(path.join(tmp, release, 'conflicts.csv'), ',')) {
-    if (header === undefined) {
-      header = r.fields;
-      continue;
-    }
-    out.set(r.fields[0], Object.fromEntries(header.map((h, i) => [h, r.fields[i]])));
-  }
-  assert.deepEqual(header, [...CONFLICTS_HEADER]);
-  return out;
-}
-
-/**
- * Independent of the consensus sweep: every pair of dated records of each cluster, brute force. A record is a century
- * or more off its cluster when at least half of the cluster's other dated records lie 100 years or more from it.
- */
-function centuriesOff(r: BuildResult): string[] {
-  const read = dateReader(r.model);
-  const out: string[] = [];
-  for (const c of r.clustering.clusters) {
-    const dated = Array.from(c.members).filter((w) => read(w).kind === 'interval');
-    for (const w of dated) {
-      const others = dated.filter((x) => x !== w);
-      const far = others.filter((x) => yearsApart(read(w) as never, read(x) as never) >= 100).length;
-      if (others.length > 0 && far * 2 >= others.length) out.push(workRef(r.model, w));
-    }
-  }
-  return out.sort();
-}
+const listed = (release: string) => conflictRows(path.join(tmp, release, 'conflicts.csv'));
 
 test('the demo catalogues date in German and French, and every date is read', async () => {
   const kessling = readFileSync(path.join(demo, 'catalogues', 'kessling.csv'), 'utf8');

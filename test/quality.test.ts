@@ -17,14 +17,44 @@ import { workContext } from '../src/report/context.js';
 
 const demo = (rel: string) => fileURLToPath(new URL(`../../demo-data/${rel}`, import.meta.url));
 
-test('demo: the final release meets pair F1 ≥ 0.97 and B-cubed F1 ≥ 0.98; no false part claim', async () => {
+test('demo: the final release meets pair F1 ≥ 0.97, B-cubed F1 ≥ 0.98 and part-of F1 ≥ 0.95; no false part claim', async () => {
   const q = await measureDemo();
   const r2 = q['demo release 2'];
   assert.ok(r2.pair.f1 >= 0.97, `pair F1 ${r2.pair.f1}`);
   assert.ok(r2.bcubed.f1 >= 0.98, `B-cubed F1 ${r2.bcubed.f1}`);
   assert.equal(r2.partOf.precision, 1);
-  // two of the twelve details are deliberately matched below minOverlap (demo-data/README.md): never proposed
-  assert.ok(r2.partOf.recall >= 0.85, `part-of recall ${r2.partOf.recall}`);
+  assert.ok(r2.partOf.f1 >= 0.95, `part-of F1 ${r2.partOf.f1}`);
+  // release 1: two of the details are matched only below minOverlap (demo-data/README.md) and never proposed
+  const r1 = q['demo release 1'];
+  assert.equal(r1.partOf.precision, 1);
+  assert.ok(r1.partOf.recall < 0.9, `release-1 part-of recall ${r1.partOf.recall}: the machine claims no faint detail`);
+});
+
+test('demo release 1: the details matched only below minOverlap are not claimed but queued as small-overlap, detail first', async () => {
+  const key = JSON.parse(readFileSync(demo('answer-key.json'), 'utf8'));
+  const { model } = await load(demo('concordance.json'));
+  const ls = link(model);
+  const c = cluster(model, ls);
+  const a = analyse(model, ls, c);
+  const queued = new Set<string>();
+  for (let i = 0; i < a.review.count; i++)
+    if (REVIEW_REASONS[a.review.reason[i]] === 'small-overlap')
+      queued.add(`${workRef(model, a.review.a[i])} ${workRef(model, a.review.b[i])}`);
+  const faint = ls.links.filter(
+    (l) => l.support > 0 && l.reliableSupport === 0 && l.best === 0 && !isClaim(l) && l.decision === undefined,
+  );
+  const expected = new Set<string>();
+  for (const l of faint) {
+    const refs = [workRef(model, l.a), workRef(model, l.b)];
+    const d = (key.details as { part: string; whole: string[] }[]).find(
+      (x) => refs.includes(x.part) && x.whole.some((w) => refs.includes(w)),
+    );
+    const scores = Array.from(matchesOf(ls, l), (r) => model.matches.score[r]);
+    if (d && Math.max(...scores) >= model.project.policy.proposeAt)
+      expected.add(`${d.part} ${refs.find((r) => r !== d.part)}`);
+  }
+  assert.equal(expected.size, 2, 'the two details of the answer key matched below minOverlap');
+  assert.deepEqual(queued, expected);
 });
 
 test('demo: every mount back and colour chart of the answer key is set aside; look-alike works never share a cluster', async () => {

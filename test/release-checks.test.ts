@@ -266,6 +266,16 @@ const INVARIANTS: Invariant[] = [
       },
     ],
   },
+  {
+    // The link confidence (src/evidence/README.md, "Link confidence") is what the machine proposes on: every link
+    // with a score carries one, and no machine-proposed claim (no curator review behind it) has one below proposeAt.
+    name: 'every scored link has a confidence, and machine proposals reach proposeAt',
+    query: `SELECT ?l WHERE { { ?l a cx:Link ; cx:score ?s . FILTER NOT EXISTS { ?l cx:confidence ?c } }
+      UNION { ?l a cx:Link ; cx:status cx:Proposed ; cx:confidence ?c .
+        FILTER NOT EXISTS { ?l prov:wasGeneratedBy ?r . ?r a cx:CuratorReview }
+        FILTER(?c < ${release.model.project.policy.proposeAt}) } }`,
+    breaks: [], // filled below from a proposed link of the release
+  },
 ];
 const proposed = rows(
   storeWith(),
@@ -282,6 +292,17 @@ INVARIANTS[3].breaks.push(
   },
 );
 
+{
+  const p = rows(
+    storeWith(),
+    `SELECT ?l ?c WHERE { ?l cx:status cx:Proposed ; cx:relation skos:closeMatch ; cx:confidence ?c } ORDER BY ?l LIMIT 1`,
+  )[0];
+  const l = `<${p.get('l')!.value}>`;
+  INVARIANTS[INVARIANTS.length - 1].breaks.push(
+    { inject: `${l} cx:confidence 0.1 .`, caught: l },
+    { inject: `<${base}link/injected> a cx:Link ; cx:score 0.9 .`, caught: `<${base}link/injected>` },
+  );
+}
 const demoStore = storeWith();
 test('the vocab map gives owl:sameAs and dcterms:isPartOf to confirmed claims only; proposed part links get cx:proposedPartOf', () => {
   assert.deepEqual(release.vocab.confirmedOnly, [iri('dcterms', 'isPartOf'), iri('owl', 'sameAs')]);

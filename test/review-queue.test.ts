@@ -50,6 +50,8 @@ test('the queue header: decisions columns with decided_on, then link, kind, stat
     'link',
     'kind',
     'status',
+    'score',
+    'confidence',
     'images_a',
     'images_b',
     'views_a',
@@ -76,6 +78,9 @@ test("each queued link is the release's cx:Link with that kind and status; its i
       r.link,
     );
     assert.deepEqual(one(store, r.link, `${CX}kind`), [`${CX}${r.kind[0].toUpperCase()}${r.kind.slice(1)}`], r.link);
+    // the link confidence the release publishes (cx:confidence), as the queue shows it (4 decimals)
+    const confidence = one(store, r.link, `${CX}confidence`);
+    assert.equal(r.confidence, confidence.length ? String(Math.round(Number(confidence[0]) * 1e4) / 1e4) : '', r.link);
     const works = [...one(store, r.link, `${CX}subjectWork`), ...one(store, r.link, `${CX}objectWork`)];
     const pages = works.map((w) => one(store, w, 'http://xmlns.com/foaf/0.1/page')[0]);
     assert.deepEqual([r.page_a, r.page_b].sort(), pages.sort(), "both records' pages");

@@ -123,6 +123,12 @@ export function decisions2(r: Release2): Decision[] {
       'dates disagree; Brindle dating to be checked',
     ),
     d(r.missed[0][0], r.missed[0][1], 'same', WREN, '2027-05-10', 'matched by hand'),
+    // the two details matched below minOverlap, never proposed: listed as `small-overlap` in the release-1 queue
+    ...r1.details
+      .slice(3, 5)
+      .map((x, i) =>
+        d(x.detail, x.wholes[0], 'part', MARWITZ, `2027-05-1${2 + i}`, 'from the review queue: detail of the panel'),
+      ),
   ];
 }
 

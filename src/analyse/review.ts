@@ -1,11 +1,24 @@
 // Links + cluster diagnostics → the curators' review queue, ranked: most useful decisions first.
 import { refRank, type Model } from '../model.js';
-import { isClaim } from '../link/index.js';
-import { pairKey, type LinkSet } from '../link/types.js';
+import { isClaim, matchesOf } from '../link/index.js';
+import { pairKey, type Link, type LinkSet } from '../link/types.js';
 import type { Clustering } from '../cluster/types.js';
 import { float64, int32 } from '../util/columns.js';
 import { denseRank, sortByKeys } from '../util/sort.js';
 import { REVIEW_REASONS, type ReviewQueue, type ReviewReason } from './types.js';
+
+/**
+ * The best match of a link whose every match lies below minOverlap, through discriminating images only (a mount back
+ * says nothing about parts either), and its detail work (the partial match's image_a, as the input contract has it).
+ */
+function smallOverlap(model: Model, linkSet: LinkSet, l: Link): { score: number; detail: number } | undefined {
+  const m = model.matches;
+  let best: { score: number; detail: number } | undefined;
+  for (const r of matchesOf(linkSet, l))
+    if (!linkSet.evidence.setAside[r] && (best === undefined || m.score[r] > best.score))
+      best = { score: m.score[r], detail: model.images.work[m.a[r]] };
+  return best;
+}
 
 /** Unreviewed claims scoring at least this are quick wins for a curator (common practice, no source). */
 export const HIGH_SCORE_AT = 0.9;
@@ -22,9 +35,12 @@ const tier = (r: ReviewReason) => REVIEW_REASONS.indexOf(r);
  *    other evidence with such rows beside it);
  * 4. `look-alike`: links whose evidence reached proposeAt but whose confidence did not (one moderately similar
  *    photograph and nothing else: a replica, a print from the same plate, a pendant, or the same work);
- * 5. `high-score`: unreviewed claims scoring ≥ `highScoreAt` (quick wins);
- * 6. `implied-third-archive`, then `implied`: same-cluster pairs with no direct claim and no curator decision;
- * 7. `proposed`: every other proposed link nobody has reviewed.
+ * 5. `small-overlap`: pairs whose only matches at or above proposeAt cover less than `minOverlap` of the smaller
+ *    image (a detail photographed so small in the whole that the match alone cannot carry a claim, or a shared motif):
+ *    never proposed, so only a curator can say `part`; ranked by that best score, detail (image_a) first;
+ * 6. `high-score`: unreviewed claims scoring ≥ `highScoreAt` (quick wins);
+ * 7. `implied-third-archive`, then `implied`: same-cluster pairs with no direct claim and no curator decision;
+ * 8. `proposed`: every other proposed link nobody has reviewed.
  * A link reviewed by a curator is never queued again. For a `part` link the detail work comes first, so that a
  * curator who writes `part` states it the right way round (design: decisions file, work_a part of work_b).
  */
@@ -45,19 +61,26 @@ export function reviewQueue(
     reason = int32(),
     link = int32(),
     scores = float64();
-  const add = (x: number, y: number, r: ReviewReason, li: number) => {
+  const add = (x: number, y: number, r: ReviewReason, li: number, score = li >= 0 ? links[li].best : -1) => {
     a.push(x);
     b.push(y);
     reason.push(tier(r));
     link.push(li);
-    scores.push(li >= 0 ? links[li].best : -1);
+    scores.push(score);
   };
+  const { proposeAt } = model.project.policy;
   const HELD: Record<string, ReviewReason> = {
     split: 'split',
     indiscriminate: 'indiscriminate',
     'look-alike': 'look-alike',
   };
   links.forEach((l, i) => {
+    if (l.decision === undefined && l.reliableSupport === 0 && l.support > 0) {
+      const faint = smallOverlap(model, linkSet, l);
+      if (faint && faint.score >= proposeAt)
+        add(faint.detail, faint.detail === l.a ? l.b : l.a, 'small-overlap', i, faint.score);
+      return;
+    }
     if (l.decision !== undefined || !(isClaim(l) || l.held)) return;
     const r: ReviewReason | undefined = l.held
       ? HELD[l.held]

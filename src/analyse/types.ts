@@ -89,6 +89,7 @@ export const REVIEW_REASONS = [
   'bridge',
   'indiscriminate',
   'look-alike',
+  'small-overlap',
   'high-score',
   'implied-third-archive',
   'implied',

@@ -58,6 +58,7 @@ function claimItem(c: CitedClaim, r: CitedRelease): CslItem {
       kind: c.kind,
       status: c.status,
       ...(c.score !== undefined ? { score: c.score } : {}),
+      ...(c.confidence !== undefined ? { confidence: c.confidence } : {}),
       assertedBy: who,
       ...(c.review?.date ? { decided: c.review.date } : {}),
       works: [c.subject.iri, c.object.iri],

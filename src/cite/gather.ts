@@ -116,6 +116,7 @@ export function citedClaim(r: Reader, link: string): CitedClaim {
     ]),
   ].sort();
   const score = r.one(link, T('cx', 'score'));
+  const confidence = r.one(link, T('cx', 'confidence'));
   return {
     link,
     subject: citedWork(r, r.one(link, T('cx', 'subjectWork'))!),
@@ -124,6 +125,7 @@ export function citedClaim(r: Reader, link: string): CitedClaim {
     kind: KIND_OF[r.one(link, T('cx', 'kind')) ?? ''],
     status: STATUS_OF[r.one(link, T('cx', 'status')) ?? ''],
     score: score === undefined ? undefined : Number(score),
+    confidence: confidence === undefined ? undefined : Number(confidence),
     support: Number(r.one(link, T('cx', 'support')) ?? 0),
     matches,
     runs: runIris.map((x) => citedRun(r, x)),

@@ -45,7 +45,7 @@ function basis(c: CitedClaim): string {
 
 const evidence = (c: CitedClaim) =>
   c.matches.length
-    ? `on the evidence of ${plural(c.matches.length, 'image match')}${c.score !== undefined ? ` (best score ${c.score})` : ''}`
+    ? `on the evidence of ${plural(c.matches.length, 'image match')}${c.score !== undefined ? ` (best score ${c.score}${c.confidence !== undefined ? `, confidence ${c.confidence}` : ''})` : ''}`
     : 'without image-match evidence';
 
 export function releaseLine(r: CitedRelease): string {
@@ -82,7 +82,7 @@ const releaseFact = (r: CitedRelease) =>
 function details(c: CitedClaim, r: CitedRelease, item: (s: string) => string, brief = false): string[] {
   const out = [
     item(
-      `claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`,
+      `claim: ${c.relation ?? 'no claim triple'} (${c.kind}, ${c.status})${c.score !== undefined ? `, score ${c.score}` : ''}${c.confidence !== undefined ? `, confidence ${c.confidence}` : ''}, ${c.support} image pair${c.support === 1 ? '' : 's'} <${c.link}>`,
     ),
   ];
   if (!brief) {

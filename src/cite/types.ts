@@ -59,6 +59,8 @@ export interface CitedClaim {
   kind: ClaimKind;
   status: ClaimStatus;
   score?: number;
+  /** cx:confidence: the link confidence from all the evidence (src/evidence/README.md), never above `score`. */
+  confidence?: number;
   support: number;
   matches: CitedMatch[];
   runs: CitedRun[];

@@ -51,6 +51,7 @@ const KIND = { same: term('cx', 'Same'), part: term('cx', 'Part'), related: term
 /** Vocabulary terms used per quad below, looked up once (by prefix: names are prefix + local name). */
 const [
   cxBridge,
+  cxConfidence,
   cxCoverageObject,
   cxCoverageSubject,
   cxDateAsCatalogued,
@@ -81,6 +82,7 @@ const [
   cxWorkB,
 ] = [
   'bridge',
+  'confidence',
   'coverageObject',
   'coverageSubject',
   'dateAsCatalogued',
@@ -448,6 +450,8 @@ function linkQuads(l: Link, ctx: LinkContext, quads: Quad[]): string {
   if (l.reliableSupport > 0) {
     prov(L, cxScore, dec(l.best));
     prov(L, cxMeanScore, dec(l.mean));
+    // the link confidence from all the evidence (src/evidence/README.md): 0 when only indiscriminate images carry it
+    prov(L, cxConfidence, dec(l.confidence));
   }
   if (l.support > 0) {
     prov(L, cxCoverageSubject, dec(s === l.a ? l.coverageA : l.coverageB));

@@ -127,6 +127,7 @@ export function clusterCitation(
     const rv = reviewIri ? node(reviewIri) : undefined;
     const curator = one(rv, V.associatedWith) ?? '';
     const score = one(n, V.score);
+    const confidence = one(n, V.confidence);
     return {
       link,
       subject: work(one(n, V.subjectWork)!),
@@ -135,6 +136,7 @@ export function clusterCitation(
       kind: KIND_OF[one(n, V.kind) ?? ''],
       status: STATUS_OF[one(n, V.status) ?? ''],
       score: score === undefined ? undefined : Number(score),
+      confidence: confidence === undefined ? undefined : Number(confidence),
       support: Number(one(n, V.support) ?? 0),
       matches,
       runs: runIris.map(run),

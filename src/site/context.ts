@@ -24,6 +24,7 @@ export const V = {
   kind: iri('cx', 'kind'),
   status: iri('cx', 'status'),
   score: iri('cx', 'score'),
+  confidence: iri('cx', 'confidence'),
   support: iri('cx', 'support'),
   derivedFrom: iri('prov', 'wasDerivedFrom'),
   generatedBy: iri('prov', 'wasGeneratedBy'),
