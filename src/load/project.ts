@@ -161,9 +161,25 @@ function lineOfPath(text: string, p: PropertyKey[]): number {
   return idx < 0 ? 1 : lineColumn(text, idx).line;
 }
 
+/** The hint for a value of the wrong type or a missing one: where the project file format is described. */
+function schemaHint(at: PropertyKey[]): string {
+  const top = at.length ? String(at[0]) : '';
+  return top
+    ? `see "${top}" in an example project (concordat init writes one; demo-data/concordance.json)`
+    : 'a project file is one JSON object: concordat init writes an example';
+}
+
 /** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
 export function loadProjectFile(file: string): ProjectConfig {
   const { text, value: raw } = readJsonFile(file, 'project file', 'give the path to concordance.json');
+  return checkProject(file, text, raw);
+}
+
+/**
+ * Validates a parsed project file (`text` places problems on their lines); throws UserError with every problem, else
+ * returns the config with paths resolved against the file's folder.
+ */
+export function checkProject(file: string, text: string, raw: unknown): ProjectConfig {
   const problems = new ProblemList();
   const parsed = ProjectSchema.safeParse(raw);
   if (!parsed.success) {
@@ -180,7 +196,13 @@ export function loadProjectFile(file: string): ProjectConfig {
           });
         }
       } else {
-        problems.add({ file, line: lineOfPath(text, issue.path), field: jsonPath(issue.path), message: issue.message });
+        problems.add({
+          file,
+          line: lineOfPath(text, issue.path),
+          field: jsonPath(issue.path),
+          message: issue.message,
+          hint: schemaHint(issue.path),
+        });
       }
     }
     problems.throwIfAny();

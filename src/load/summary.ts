@@ -1,7 +1,8 @@
 // Loaded model → the summary `concordat check` prints (per partner works and images, evidence, decisions, warnings).
 import type { Model } from '../model.js';
 import type { LoadStats } from './index.js';
-import { displayPath, formatProblem } from '../errors.js';
+import { displayPath } from '../errors.js';
+import { warningLines } from './warning-groups.js';
 
 export interface CheckSummary {
   project: string;
@@ -40,8 +41,8 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
   };
 }
 
-/** The summary as aligned text for a terminal. */
-export function summaryText(s: CheckSummary): string {
+/** The summary as aligned text for a terminal; warnings summarised per kind unless `verbose`. */
+export function summaryText(s: CheckSummary, verbose = false): string {
   const lines = [
     `${s.title}  (${s.project})`,
     '',
@@ -54,6 +55,6 @@ export function summaryText(s: CheckSummary): string {
     `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${s.evidence.runs.join(', ') || 'none'}; ${s.evidence.matches} cross-record image matches`,
     `decisions: ${s.decisions}${s.decisionRowsWithoutVerdict ? ` (${s.decisionRowsWithoutVerdict} rows without a verdict skipped)` : ''}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
   );
-  for (const w of s.warnings) lines.push('  warning: ' + formatProblem(w));
+  for (const w of warningLines(s.warnings, verbose)) lines.push('  warning: ' + w);
   return lines.join('\n') + '\n';
 }
