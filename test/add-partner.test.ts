@@ -162,3 +162,44 @@ test("check flags a starter project's placeholder publisher and licence until th
   const after = JSON.parse(run('check', p.file, '--json').stdout).warnings.map((w: { field: string }) => w.field);
   assert.ok(!after.includes('publisher.name') && !after.includes('license'), after.join(', '));
 });
+
+test("the starter's placeholder base: add-partner warns, check flags it and every partner template under it, build repeats it", () => {
+  const p = project('n.csv', 'Object number,Photo number,Title\nA 1,P 1,Madonna\nA 2,P 2,Saint\n');
+  const added = run('add-partner', p.file, '--key', 'n', '--catalogue', p.exportFile, '--yes', '--json');
+  assert.equal(added.status, 0, added.stderr);
+  assert.ok(
+    JSON.parse(added.stdout).warnings.some((w: string) => /base is still the starter's placeholder/.test(w)),
+    added.stdout,
+  );
+  const fields = () =>
+    JSON.parse(run('check', p.file, '--json').stdout).warnings.map((w: { field: string }) => w.field) as string[];
+  const before = fields();
+  for (const f of ['base', 'partners[0].workIri', 'partners[0].imageIri'])
+    assert.ok(before.includes(f), `${f} missing from ${before.join(', ')}`);
+  const out = path.join(tempDir('concordat-placeholder-out-'), 'r');
+  const built = run('build', p.file, '--out', out);
+  assert.equal(built.status, 0, built.stderr);
+  assert.match(
+    built.stderr,
+    /warning: .*concordance\.json:\d+: base: the base https:\/\/concordance\.example\.org\/ is still/,
+  );
+  assert.match(built.stderr, /warning: .*partners\[0\]\.workIri: workIri of partner "n" is minted under/);
+  const o = JSON.parse(readFileSync(p.file, 'utf8'));
+  o.base = 'https://concordance.invented-consortium.test/';
+  o.partners[0].workIri = 'https://collection.invented-archive.test/work/{work}';
+  o.partners[0].imageIri = 'https://collection.invented-archive.test/photo/{image}';
+  writeFileSync(p.file, JSON.stringify(o, null, 2));
+  const after = fields();
+  assert.ok(!after.some((f) => f === 'base' || f.startsWith('partners[')), after.join(', '));
+  // under the real base: minted by the consortium, and the site does not answer them
+  o.partners[0].workIri = 'https://concordance.invented-consortium.test/id/n/work/{work}';
+  writeFileSync(p.file, JSON.stringify(o, null, 2));
+  const under = JSON.parse(run('check', p.file, '--json').stdout).warnings;
+  assert.ok(
+    under.some(
+      (w: { field: string; message: string }) =>
+        w.field === 'partners[0].workIri' && /concordat site` does not answer them/.test(w.message),
+    ),
+    JSON.stringify(under),
+  );
+});

@@ -32,6 +32,17 @@ test('check on the demo project exits 0 with a per-partner summary; --json is ma
   assert.ok(j.evidence.rows > 0 && j.decisions > 0 && j.goldPairs > 0);
 });
 
+test('a project folder stands for its concordance.json (what init writes); a folder without one is named in the error', () => {
+  const dir = fixtureCopy('load/base');
+  const r = run('check', dir, '--json');
+  assert.equal(r.status, 0, r.stderr);
+  assert.ok(JSON.parse(r.stdout).partners.length > 0);
+  const empty = run('check', path.join(dir, 'evidence'));
+  assert.equal(empty.status, 2);
+  assert.match(empty.stderr, /evidence[/\\]concordance\.json/);
+  assert.doesNotMatch(empty.stderr, /\n\s+at /);
+});
+
 test('check on bad input: exit 2, file:line: field: message (hint) on stderr, nothing on stdout', () => {
   const dir = fixtureCopy('load/base', { 'evidence/run1.csv': (t) => t + 'alpha:a-3,beta:n3,1.7,1\n' });
   const r = run('check', path.join(dir, 'concordance.json'));

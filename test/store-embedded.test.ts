@@ -297,6 +297,15 @@ test('CLI: load into a store folder, then query it by name (exit codes and stdou
       encoding: 'utf8',
     });
     assert.deepEqual([ask.status, ask.stdout], [0, 'false\n'], ask.stderr);
+    // partner:work where an IRI is expected: no rows, and a note saying how the value was read
+    const short = (value: string) =>
+      spawnSync(process.execPath, [CLI, 'query', '--store', dir, '--named', 'cluster-members', '--param', value], {
+        encoding: 'utf8',
+      });
+    const s1 = short('cluster=alpha:a-1');
+    assert.equal(s1.status, 0, s1.stderr);
+    assert.match(s1.stderr, /note: no rows; --param cluster=alpha:a-1 was read as an IRI of scheme "alpha:"/);
+    assert.doesNotMatch(short('cluster=https://x.example/nothing').stderr, /note:/);
   } finally {
     rmSync(dir, { recursive: true });
   }

@@ -1,6 +1,7 @@
 // `concordat add-partner <project> --key <k> --catalogue <file> [--column role=header …] [--yes]`: propose a partner
 // block from an export, then write it.
 import type { Command } from 'commander';
+import { projectArg } from './options.js';
 import { createInterface } from 'node:readline/promises';
 import { UserError } from '../errors.js';
 import type { ColumnMap } from '../model.js';
@@ -55,7 +56,7 @@ export function register(program: Command): void {
     .description(
       'add a partner from its catalogue export: delimiter and column mapping proposed (or given), warnings for every guess, written after confirmation',
     )
-    .argument('<project>', 'the project file (concordance.json)')
+    .argument('<project>', 'the project file (concordance.json), or the folder holding it', projectArg)
     .requiredOption('--key <key>', 'short partner key, e.g. harbour')
     .requiredOption('--catalogue <file>', "the partner's catalogue export (CSV or TSV with a header row)")
     .option('--name <text>', "the partner's name (default: the key)")

@@ -1,13 +1,15 @@
 // `concordat build <project> --out <folder>`: the whole pipeline into a new release folder.
 import { Option, type Command } from 'commander';
+import { projectArg } from './options.js';
 import type { ShaclEngine } from '../validate/shacl.js';
-import { displayPath } from '../errors.js';
+import { displayPath, formatProblem } from '../errors.js';
+import { placeholderWarnings } from '../load/placeholders.js';
 
 export function register(program: Command): void {
   program
     .command('build')
     .description('build a release: claims, clusters, reports and validated RDF dumps, into a new folder')
-    .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
+    .argument('<project>', 'the project file, e.g. demo-data/concordance.json, or the folder holding it', projectArg)
     .requiredOption('--out <folder>', 'the release folder to create (must not exist)')
     .option('--shapes <folder>', 'SHACL shapes to validate against (default: the shapes shipped with concordat)')
     .option('--previous <folder>', 'the previous release folder (overrides "previous" in the project file)')
@@ -50,6 +52,14 @@ export function register(program: Command): void {
           csvPlain: opts.csvPlain,
           gzip: opts.gzip,
         });
+        // What a starter leaves unfilled is published as it stands: say so on every build, not only in `check`.
+        const unfilled = placeholderWarnings(r.model.project, project);
+        for (const w of unfilled) process.stderr.write(`concordat: warning: ${formatProblem(w)}\n`);
+        const others = r.model.warnings.length - unfilled.length;
+        if (others > 0)
+          process.stderr.write(
+            `concordat: ${others} more warning(s) about the inputs; \`concordat check\` lists them\n`,
+          );
         const s = releaseSummary(r);
         process.stdout.write(
           opts.json ? JSON.stringify(s, null, 2) + '\n' : releaseSummaryText(s, displayPath(r.outDir)),

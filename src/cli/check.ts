@@ -1,11 +1,12 @@
 // `concordat check <project>`: load every input, print a summary; exit 0 clean, 2 bad input.
 import type { Command } from 'commander';
+import { projectArg } from './options.js';
 
 export function register(program: Command): void {
   program
     .command('check')
     .description('read the project file and every input it names; report problems or print a summary')
-    .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
+    .argument('<project>', 'the project file, e.g. demo-data/concordance.json, or the folder holding it', projectArg)
     .option('--json', 'print the summary as JSON on stdout (every warning)')
     .option('--verbose', 'print every warning (default: more than three of one kind are summarised with a count)')
     .addHelpText(

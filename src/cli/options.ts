@@ -1,5 +1,7 @@
 // Option values shared by commands: numbers checked as they are parsed (the message names the option), deprecated
 // aliases.
+import { statSync } from 'node:fs';
+import path from 'node:path';
 import { InvalidArgumentError } from 'commander';
 
 /**
@@ -31,4 +33,20 @@ export const score = (example: string) => numberIn(0, 1, { example });
 /** Warns on stderr that `old` is a deprecated spelling of `now` (kept so existing scripts keep working). */
 export function deprecated(old: string, now: string): void {
   process.stderr.write(`concordat: ${old} is deprecated; use ${now} (the same option in every command)\n`);
+}
+
+/** The project file's name in a project folder (what `concordat init` writes). */
+export const PROJECT_FILE = 'concordance.json';
+
+/**
+ * The `<project>` argument: a project file, or a folder holding `concordance.json` (what `init` made), taken as that
+ * file. Anything else is passed on as given, so the reader's own error names it.
+ */
+export function projectArg(value: string): string {
+  try {
+    if (statSync(value).isDirectory()) return path.join(value, PROJECT_FILE);
+  } catch {
+    // not there: the project reader says so, naming the file
+  }
+  return value;
 }

@@ -12,6 +12,9 @@ interface QueryOpts {
   json?: boolean;
 }
 
+/** A value that looks like `partner:work` (a scheme with no `//` and none of the usual schemes without one). */
+const SHORT_REF = /^(?!(?:urn|mailto|tag|info|doi|data):)[A-Za-z][A-Za-z0-9+.-]*:(?!\/\/)/i;
+
 export function register(program: Command): void {
   program
     .command('query')
@@ -51,12 +54,19 @@ export function register(program: Command): void {
         });
       const { formatResult } = await import('../store/format.js');
       const { openStore, parseParams, queryText } = await import('../store/open.js');
-      const sparql = await queryText(arg, opts.named, parseParams(opts.param));
+      const params = parseParams(opts.param);
+      const sparql = await queryText(arg, opts.named, params);
       const store = await openStore({ store: opts.store, query: opts.queryEndpoint, existing: true });
       try {
         const result = await store.query(sparql);
         const format = opts.json ? 'json' : (opts.format ?? (process.stdout.isTTY ? 'table' : 'tsv'));
         process.stdout.write(formatResult(result, format));
+        if (result.kind === 'bindings' && result.rows.length === 0)
+          for (const [k, v] of Object.entries(params))
+            if (SHORT_REF.test(v))
+              process.stderr.write(
+                `concordat: note: no rows; --param ${k}=${v} was read as an IRI of scheme "${v.split(':')[0]}:", and records are named by their full IRI (the IRI column of clusters.csv; cite accepts partner:work)\n`,
+              );
       } finally {
         await store.close();
       }

@@ -1,12 +1,12 @@
 // `concordat sweep <project>`: precision, recall and F1 against the gold concordance for a range of proposeAt values.
 import type { Command } from 'commander';
-import { numberIn, score } from './options.js';
+import { numberIn, projectArg, score } from './options.js';
 
 export function register(program: Command): void {
   program
     .command('sweep')
     .description('measure precision, recall and F1 against the gold concordance for a range of proposeAt thresholds')
-    .argument('<project>', 'the project file, e.g. demo-data/concordance.json')
+    .argument('<project>', 'the project file, e.g. demo-data/concordance.json, or the folder holding it', projectArg)
     .option('--from <score>', 'lowest proposeAt (0 to 1)', score('0.4'), 0.3)
     .option('--to <score>', 'highest proposeAt (0 to 1)', score('0.9'), 0.95)
     .option(

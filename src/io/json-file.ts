@@ -2,6 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { writeFileAtomically } from './temp-file.js';
 import { UserError } from '../errors.js';
+import { osWords } from '../util/os-error.js';
 
 /** Writes `value` as JSON.stringify(value, null, 2) plus a final LF: temp file beside it, then rename. */
 export function writeJsonFile(file: string, value: unknown): void {
@@ -54,7 +55,7 @@ export function readJsonFile(file: string, what: string, hint: string): { text: 
       file,
       line: 0,
       field: '',
-      message: `cannot read ${what}: ${(e as NodeJS.ErrnoException).code ?? e}`,
+      message: `cannot read ${what}: ${osWords(e)}`,
       hint,
     });
   }

@@ -22,7 +22,7 @@ export function resolveRef(
   if (colon <= 0)
     return {
       field: '',
-      message: `"${ref}" is not a ${what} reference`,
+      message: `"${ref}" is not ${what === 'image' ? 'an' : 'a'} ${what} reference`,
       hint: `write partnerKey:${what}Id, e.g. ${r.keys[0] ?? 'harbour'}:123`,
     };
   const key = ref.slice(0, colon);

@@ -3,6 +3,7 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from 'node:http';
 import { createReadStream, existsSync, readFileSync, realpathSync, statSync } from 'node:fs';
 import path from 'node:path';
+import { UserError, EXIT } from '../errors.js';
 import { docOf, routeOf, safeSegment, ROUTES } from '../site/routes.js';
 import { negotiate, REPRESENTATIONS, FILE_TYPES } from '../site/negotiate.js';
 import { SECURITY_HEADERS, CACHE } from '../site/rules.js';
@@ -145,6 +146,25 @@ function handle(root: string, m: SiteManifest, req: IncomingMessage, res: Server
     .pipe(res);
 }
 
+/** Why the server could not listen, as the option to change (EADDRINUSE, EACCES, EADDRNOTAVAIL: listen(2)). */
+type Listen = { port: number; host: string };
+const LISTEN_ERRORS: Record<string, (o: Listen) => [field: string, message: string, hint: string]> = {
+  EADDRINUSE: (o) => [
+    '--port',
+    `port ${o.port} on ${o.host} is in use`,
+    `stop what uses it or give --port ${o.port + 1}`,
+  ],
+  EACCES: (o) => ['--port', `port ${o.port} needs privileges this user lacks`, 'give a port of 1024 or above'],
+  EADDRNOTAVAIL: (o) => ['--host', `${o.host} is not an address of this machine`, 'give 127.0.0.1 or one of its own'],
+};
+
+function listenError(err: Error, site: string, o: { port: number; host: string }): Error {
+  const known = LISTEN_ERRORS[(err as NodeJS.ErrnoException).code ?? ''];
+  if (!known) return err;
+  const [field, message, hint] = known(o);
+  return new UserError({ file: site, line: 0, field, message, hint }, EXIT.badInput);
+}
+
 /** Starts the server; resolves once listening, with its URL and a close function. */
 export async function serveSite(
   site: string,
@@ -161,7 +181,7 @@ export async function serveSite(
     }
   });
   await new Promise<void>((resolve, reject) => {
-    server.once('error', reject);
+    server.once('error', (err) => reject(listenError(err, site, opts)));
     server.listen(opts.port, opts.host, () => resolve());
   });
   const addr = server.address();

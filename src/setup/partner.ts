@@ -8,6 +8,7 @@ import { proposeColumns, type Proposal } from './columns.js';
 import { delimiterName } from '../io/delimiter.js';
 import { didYouMean } from '../io/did-you-mean.js';
 import { IMAGE_ROLES, type ColumnMap, type ImageRole } from '../model.js';
+import { STARTER_PLACEHOLDERS } from '../load/placeholders.js';
 
 export interface PartnerRequest {
   key: string;
@@ -166,7 +167,11 @@ export async function proposePartner(projectFile: string, req: PartnerRequest): 
       notes.push(
         `no column looks like the ${role}: without it ${role === 'date' ? 'date conflicts cannot be found' : 'reports show IDs only'} (--column ${role}=<header> if there is one)`,
       );
-  const base = typeof project.base === 'string' ? project.base : 'https://concordance.example.org/';
+  const base = typeof project.base === 'string' ? project.base : STARTER_PLACEHOLDERS.base;
+  if (base === STARTER_PLACEHOLDERS.base && (req.workIri === undefined || req.imageIri === undefined))
+    warnings.push(
+      `the project's base is still the starter's placeholder ${base}: set "base" in ${path.basename(projectFile)} before adding partners without --work-iri/--image-iri, or their IRIs name nothing anyone can look up`,
+    );
   for (const [opt, given] of [
     ['--work-iri', req.workIri],
     ['--image-iri', req.imageIri],

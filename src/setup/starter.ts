@@ -17,7 +17,7 @@ export interface StarterOptions {
 export function starterProject(folder: string, opts: StarterOptions = {}): Record<string, unknown> {
   return {
     title: opts.title ?? `${path.basename(path.resolve(folder))} concordance`,
-    base: opts.base ?? 'https://concordance.example.org/',
+    base: opts.base ?? STARTER_PLACEHOLDERS.base,
     license: STARTER_PLACEHOLDERS.license,
     publisher: { name: STARTER_PLACEHOLDERS.publisherName },
     partners: [],

@@ -37,6 +37,12 @@ const OS_ERRORS: Record<string, { message: string; hint: string; exit: number }>
   EBUSY: { message: 'the path is busy', hint: 'try again when it is free', exit: EXIT.failure },
 };
 
+/** An errno error in plain words (`no such file or folder`), its code where it has no words here. */
+export function osWords(err: unknown): string {
+  const code = (err as NodeJS.ErrnoException | null)?.code;
+  return (code && OS_ERRORS[code]?.message) ?? code ?? String(err);
+}
+
 /** A UserError for an errno error from the file system, or null when `err` is something else (a bug: rethrown). */
 export function osUserError(err: unknown): UserError | null {
   const e = err as NodeJS.ErrnoException | null;
