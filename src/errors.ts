@@ -1,5 +1,6 @@
 // User-facing problems (bad input, bad usage) as data: file, 1-based line, field, message, hint.
 import path from 'node:path';
+import { cut, visible } from './shown.js';
 
 /** One problem found in the user's input, printed as `file:line: field: message (hint)`. */
 export interface Problem {
@@ -21,13 +22,23 @@ export function displayPath(file: string): string {
   return rel && !rel.startsWith('..') && !path.isAbsolute(rel) ? rel : file;
 }
 
-/** Formats a problem the way every command prints it. */
+/** A problem with its message, hint and field cut to a readable length (values from users' files can be huge). */
+export function bounded(p: Problem): Problem {
+  const out = { ...p, field: cut(p.field), message: cut(p.message) };
+  if (p.hint !== undefined) out.hint = cut(p.hint);
+  return out;
+}
+
+/**
+ * Formats a problem the way every command prints it: long texts cut and control characters shown as `\xHH`, so a
+ * catalogue value can neither flood the terminal nor drive it with escape sequences.
+ */
 export function formatProblem(p: Problem): string {
-  const file = displayPath(p.file);
+  const file = visible(displayPath(p.file));
   const where = p.line > 0 ? `${file}:${p.line}${p.column ? `:${p.column}` : ''}` : file;
-  const field = p.field ? ` ${p.field}:` : '';
-  const hint = p.hint ? ` (${p.hint})` : '';
-  return `${where}:${field} ${p.message}${hint}`;
+  const field = p.field ? ` ${visible(cut(p.field))}:` : '';
+  const hint = p.hint ? ` (${visible(cut(p.hint))})` : '';
+  return `${where}:${field} ${visible(cut(p.message))}${hint}`;
 }
 
 /** Exit codes shared by every command (design: 0 ok, 1 the work found a failure, 2 bad usage or input). */
@@ -41,7 +52,7 @@ export class UserError extends Error {
   readonly problems: Problem[];
   readonly exitCode: number;
   constructor(problems: Problem[] | Problem, exitCode: number = EXIT.badInput) {
-    const list = Array.isArray(problems) ? problems : [problems];
+    const list = (Array.isArray(problems) ? problems : [problems]).map(bounded);
     super(list.map(formatProblem).join('\n'));
     this.name = 'UserError';
     this.problems = list;
@@ -55,7 +66,7 @@ export class ProblemList {
   truncated = 0;
   constructor(readonly cap = 100) {}
   add(p: Problem): void {
-    if (this.items.length < this.cap) this.items.push(p);
+    if (this.items.length < this.cap) this.items.push(bounded(p));
     else this.truncated++;
   }
   get size(): number {

@@ -51,12 +51,18 @@ export interface PartnerConfig {
   catalogue: { file: string; delimiter: string; columns: ColumnMap; roles?: Record<string, ImageRole> };
 }
 
+/** A number as written in the project file, so it is published with neither its precision nor its type lost. */
+export interface ParameterNumber {
+  number: string;
+}
+
 export interface RunConfig {
   id: string;
   software: string;
   version: string;
   started: string;
-  parameters: Record<string, string | number | boolean | null>;
+  /** Parameters as given; a number keeps its text from the project file (RFC 8259 §6), e.g. `{ number: "1e-7" }`. */
+  parameters: Record<string, string | ParameterNumber | boolean | null>;
 }
 
 export interface Policy {

@@ -106,7 +106,13 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
   say('analyse');
   const analysis = analyse(model, links, clustering);
   const shapes: Quad[] = (await loadShapesFolder(opts.shapesDir ?? defaultShapesDir())).quads;
-  const view = releaseView(model, links, clustering, analysis, loadVocabMap(model.project.vocabMap));
+  const view = releaseView(
+    model,
+    links,
+    clustering,
+    analysis,
+    loadVocabMap(model.project.vocabMap, model.project.base),
+  );
   const previous = model.project.previous ? await readRelease(model.project.previous) : undefined;
   const history = await releaseHistory(view, clustering, previous);
   const validating = opts.validate !== false;

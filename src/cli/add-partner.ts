@@ -1,5 +1,6 @@
 // `concordat add-partner <project> --key <k> --catalogue <file> [--column role=header …] [--yes]`: propose a partner
 // block from an export, then write it.
+import { cut, visible } from '../shown.js';
 import type { Command } from 'commander';
 import { projectArg } from './options.js';
 import { createInterface } from 'node:readline/promises';
@@ -117,7 +118,7 @@ export function register(program: Command): void {
         recordPage: opts.recordPage,
         imageView: opts.imageView,
       });
-      for (const w of p.warnings) process.stderr.write(`warning: ${w}\n`);
+      for (const w of p.warnings) process.stderr.write(`warning: ${visible(cut(w))}\n`);
       if (opts.json) {
         if (opts.yes) writePartner(p);
         process.stdout.write(

@@ -1,4 +1,5 @@
 // A built release → the short summary `build` and the demo print: counts by kind and status, one example claim.
+import { cut, visible } from '../shown.js';
 import type { BuildResult } from '../pipeline.js';
 import { workRef } from '../model.js';
 import { claimEnds } from '../rdf/index.js';
@@ -79,7 +80,7 @@ export function releaseSummaryText(s: ReleaseSummary, where: string): string {
   for (const [k, n] of Object.entries(s.links)) lines.push(`    ${k.padEnd(18)} ${n}`);
   if (s.example)
     lines.push(
-      `  example claim: ${s.example.subject} ${s.example.predicate} ${s.example.object} (score ${s.example.score}, ${s.example.support} image pair${s.example.support === 1 ? '' : 's'}, ${s.example.status})`,
+      `  example claim: ${visible(cut(s.example.subject))} ${s.example.predicate} ${visible(cut(s.example.object))} (score ${s.example.score}, ${s.example.support} image pair${s.example.support === 1 ? '' : 's'}, ${s.example.status})`,
     );
   return lines.join('\n') + '\n';
 }

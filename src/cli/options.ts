@@ -3,6 +3,7 @@
 import { statSync } from 'node:fs';
 import path from 'node:path';
 import { InvalidArgumentError } from 'commander';
+import { NUMBER_GRAMMAR, readNumber } from '../io/number.js';
 
 /**
  * A commander argument parser for a number in [min, max] ((min, max] when `above`; whole when `integer`). Commander
@@ -16,8 +17,12 @@ export function numberIn(
 ): (value: string) => number {
   const what = `a ${integer ? 'whole ' : ''}number ${above ? `above ${min} and at most` : `from ${min} to`} ${max}`;
   return (value) => {
-    const n = Number(value.trim().replace(/^(\d*),(\d+)$/, '$1.$2')); // a decimal comma is read as a decimal point
-    if (value.trim() === '' || !Number.isFinite(n))
+    // the one number grammar of user input (io/number.ts); a decimal comma is read as a decimal point, except in a
+    // whole number, where "1,000" is a thousands separator
+    const raw = value.trim();
+    const read = readNumber(integer ? raw : raw.replace(/^([+-]?\d*),(\d+)$/, '$1.$2'), integer);
+    const n = read.ok ? read.value : NaN;
+    if (!read.ok && !(integer && NUMBER_GRAMMAR.test(raw)))
       throw new InvalidArgumentError(`"${value}" is not a number: give ${what}, e.g. ${example}.`);
     if (integer && !Number.isInteger(n))
       throw new InvalidArgumentError(`${value} is not a whole number: give ${what}, e.g. ${example}.`);

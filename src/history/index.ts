@@ -65,7 +65,7 @@ export async function releaseHistory(
     const evidence = await readLinkEvidence(previous.folder, new Set(changed.map(([old]) => old.iri)));
     const matchesNow = currentMatchIris(view, namer, new Set(changed.filter(([, now]) => now).map(([old]) => old.iri)));
     const made = historyUnits(view.model, namer, previous, current, changed, evidence, matchesNow);
-    units.push(...made.units);
+    for (const u of made.units) units.push(u); // no spread: one unit per changed link can exceed the stack
     attached = made.attached;
     for (const r of view.retired) {
       const carried = previous.clusterInvalidations.get(namer.iri('cluster', { cluster: r.id }));

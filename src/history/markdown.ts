@@ -1,5 +1,6 @@
 // Changes between two releases → Markdown (changes.md, and the text output of `concordat diff`).
 import type { ClaimChange, ClaimStateOf, Changes, MadeBy } from './types.js';
+import { markdownText } from '../shown.js';
 
 /** A CommonMark code span (§6.1) that survives backticks inside the text. */
 export function code(s: string): string {
@@ -36,10 +37,10 @@ export function stateWords(x: ClaimStateOf | undefined, c: Pick<ClaimChange, 'su
 export function madeByWords(b: MadeBy): string {
   switch (b.kind) {
     case 'curator':
-      return `decided by ${b.name ?? `<${b.curator}>`}${b.date ? ` on ${b.date}` : ''}${b.verdict ? ` (verdict ${b.verdict})` : ''}`;
+      return `decided by ${b.name !== undefined ? markdownText(b.name) : `<${b.curator}>`}${b.date ? ` on ${b.date}` : ''}${b.verdict ? ` (verdict ${b.verdict})` : ''}`;
     case 'runs':
       return b.runs.length
-        ? `by ${b.runs.length === 1 ? 'run' : 'runs'} ${b.runs.map((r) => `${r.id}${r.software ? ` (${r.software}${r.version ? ` ${r.version}` : ''})` : ''}`).join(', ')}`
+        ? `by ${b.runs.length === 1 ? 'run' : 'runs'} ${b.runs.map((r) => `${r.id}${r.software ? ` (${markdownText(r.software)}${r.version ? ` ${markdownText(r.version)}` : ''})` : ''}`).join(', ')}`
         : 'by no recorded run';
     case 'release':
       return `dropped by release ${b.version}: no evidence or decision in it supports the link`;

@@ -2,6 +2,7 @@
 import { readFileSync } from 'node:fs';
 import { writeFileAtomically } from './temp-file.js';
 import { UserError } from '../errors.js';
+import { scanJson, type JsonSpots } from './json-scan.js';
 import { osWords } from '../util/os-error.js';
 
 /** Writes `value` as JSON.stringify(value, null, 2) plus a final LF: temp file beside it, then rename. */
@@ -16,30 +17,28 @@ export function lineColumn(text: string, offset: number): { line: number; column
   return { line, column: offset - before.lastIndexOf('\n') };
 }
 
-const POSITION = /position (\d+)/;
-const POSITION_TAIL = / in JSON at position \d+.*$/;
-
 /**
  * Parses JSON text (RFC 8259; a leading byte-order mark is ignored). A syntax error is a UserError at the line and
- * column where the parser stopped (the end of the text when it ran out), with `hint`.
+ * column of the error as our own scanner finds it (json-scan.ts: V8's messages give no position for some errors and
+ * quote the text), with `hint`.
  */
 export function parseJson(text: string, file: string, hint = 'check commas, quotes and brackets near here'): unknown {
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   try {
     return JSON.parse(body);
   } catch (e) {
-    const msg = (e as Error).message;
-    const m = POSITION.exec(msg);
-    const { line, column } = lineColumn(body, m ? Number(m[1]) : body.length);
-    throw new UserError({
-      file,
-      line,
-      column,
-      field: '',
-      message: `JSON syntax error: ${msg.replace(POSITION_TAIL, '')}`,
-      hint,
-    });
+    const scan = scanJson(body, false);
+    if (scan.ok) throw e; // the two grammars disagree: a bug, not the user's
+    const { line, column } = lineColumn(body, scan.offset);
+    throw new UserError({ file, line, column, field: '', message: `JSON syntax error: ${scan.message}`, hint });
   }
+}
+
+/** Where each value of valid JSON text starts, and each number's text (see {@link scanJson}). */
+export function jsonSpots(text: string): JsonSpots {
+  const scan = scanJson(text);
+  if (!scan.ok) throw new Error(`JSON.parse accepted what the scanner refuses at ${scan.offset}: ${scan.message}`);
+  return scan.spots;
 }
 
 /**

@@ -1,4 +1,5 @@
 // A partner's catalogue export (one row per image) → works and images, grouped by the partner's work ID.
+import { readNumber } from '../io/number.js';
 import type { ProblemList, Problem } from '../errors.js';
 import { IMAGE_ROLES, type PartnerConfig, type Work } from '../model.js';
 import type { Column } from '../util/columns.js';
@@ -147,22 +148,26 @@ export async function loadCatalogue(
       let width = 0,
         height = 0;
       if (c.width && c.height) {
-        const wpx = Number(row.get(c.width).trim());
-        const hpx = Number(row.get(c.height).trim());
         const rawW = row.get(c.width).trim();
         const rawH = row.get(c.height).trim();
+        const [wpx, hpx] = [rawW, rawH].map((raw) => {
+          const r = readNumber(raw, true);
+          return r.ok && r.value > 0 && r.value <= MAX_PIXELS ? r.value : NaN;
+        });
         for (const [col, raw, v] of [
           [c.width, rawW, wpx],
           [c.height, rawH, hpx],
         ] as const)
-          if (raw !== '' && !(Number.isInteger(v) && v > 0 && v <= MAX_PIXELS))
+          if (raw !== '' && Number.isNaN(v)) {
+            const r = readNumber(raw, true);
             problems.add({
               file,
               line: row.line,
               field: col,
               message: `"${raw}" is not a positive whole number of pixels`,
-              hint: 'leave it blank when unknown',
+              hint: `${r.ok ? `from 1 to ${MAX_PIXELS}` : r.hint}; leave it blank when unknown`,
             });
+          }
         if (rawW !== '' && rawH !== '' && Math.min(wpx, hpx) < MIN_IMAGE_SIDE && Math.min(wpx, hpx) > 0)
           warnings.push({
             file,

@@ -5,6 +5,7 @@ import { firstLine, sniffDelimiter } from '../io/delimiter.js';
 import { readTable } from './table.js';
 import { resolveRef, type RefResolver } from './refs.js';
 import { didYouMean } from '../io/did-you-mean.js';
+import { iriProblem, looksLikeIri } from '../io/iri.js';
 
 export const VERDICTS: readonly Verdict[] = ['same', 'part', 'related', 'distinct'];
 
@@ -126,6 +127,15 @@ export async function loadDecisions(
         ...at('curator'),
         message: `verdict "${verdict}" names no curator`,
         hint: 'give a name or, better, an ORCID IRI',
+      });
+      bad = true;
+    }
+    const iriWrong = looksLikeIri(curator) ? iriProblem(curator) : null;
+    if (iriWrong) {
+      problems.add({
+        ...at('curator'),
+        message: `"${curator}" starts like an IRI but is not one: ${iriWrong}`,
+        hint: 'write an ORCID as https://orcid.org/0000-0002-1825-0097, or a name that does not start with http(s)://',
       });
       bad = true;
     }

@@ -1,4 +1,5 @@
 // Evidence files (`image_a,image_b,score,overlap[,run]`) → the columnar match table, row by row.
+import { readNumber } from '../io/number.js';
 import type { ProblemList } from '../errors.js';
 import type { RunConfig } from '../model.js';
 import { float64, int32 } from '../util/columns.js';
@@ -28,8 +29,6 @@ export const newMatchColumns = (): MatchColumns => ({
   file: int32(),
   line: int32(),
 });
-
-const NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
 
 /** Reads one evidence file (design: "Evidence file"); `fileRun` is the run its entry declares (-1 when none). */
 export async function loadEvidence(
@@ -69,26 +68,26 @@ export async function loadEvidence(
         }
       }
       const rawScore = row.get('score').trim();
-      const score = Number(rawScore);
-      if (!NUMBER.test(rawScore) || score < 0 || score > 1) {
+      const readScore = readNumber(rawScore);
+      const score = readScore.ok ? readScore.value : NaN;
+      if (!readScore.ok || score < 0 || score > 1) {
         problems.add({
           ...at('score'),
           message: `score "${rawScore}" is not a number in [0,1]`,
-          hint: /^\d*,\d+$/.test(rawScore)
-            ? `write a decimal point: ${rawScore.replace(',', '.')}`
-            : 'higher = more alike; rescale the matcher output to 0..1',
+          hint: readScore.ok ? 'higher = more alike; rescale the matcher output to 0..1' : readScore.hint,
         });
         bad = true;
       }
       const rawOverlap = row.get('overlap').trim();
-      const overlap = rawOverlap === '' ? 1 : Number(rawOverlap);
-      if (rawOverlap !== '' && (!NUMBER.test(rawOverlap) || overlap <= 0 || overlap > 1)) {
+      const readOverlap = rawOverlap === '' ? ({ ok: true, value: 1 } as const) : readNumber(rawOverlap);
+      const overlap = readOverlap.ok ? readOverlap.value : NaN;
+      if (!readOverlap.ok || overlap <= 0 || overlap > 1) {
         problems.add({
           ...at('overlap'),
           message: `overlap "${rawOverlap}" is not a number in (0,1]`,
-          hint: /^\d*,\d+$/.test(rawOverlap)
-            ? `write a decimal point: ${rawOverlap.replace(',', '.')}`
-            : 'share of the smaller image the matched region covers; blank means 1',
+          hint: readOverlap.ok
+            ? 'share of the smaller image the matched region covers; blank means 1'
+            : readOverlap.hint,
         });
         bad = true;
       }

@@ -2,14 +2,24 @@
 import path from 'node:path';
 import { z } from 'zod';
 import { ProblemList, type Problem } from '../errors.js';
-import { IMAGE_ROLES, type ProjectConfig } from '../model.js';
+import { IMAGE_ROLES, type ProjectConfig, type RunConfig } from '../model.js';
 import { checkTemplate } from '../io/template.js';
+import { iriProblem } from '../io/iri.js';
 import { didYouMean } from '../io/did-you-mean.js';
-import { lineColumn, readJsonFile } from '../io/json-file.js';
+import { jsonSpots, lineColumn, readJsonFile } from '../io/json-file.js';
+import { pathKey, type JsonSpots } from '../io/json-scan.js';
 
-const absoluteIri = /^[A-Za-z][A-Za-z0-9+.-]*:[^\s<>"{}|\\^`]+$/;
-const iri = (what: string) =>
-  z.string().regex(absoluteIri, { message: `${what} must be an absolute IRI such as https://example.org/` });
+/** An IRI the release publishes: checked by RFC 3987 §2.2 before anything is written (io/iri.ts). */
+const iri = (example: string) =>
+  z.string().superRefine((v, ctx) => {
+    const problem = iriProblem(v);
+    if (problem)
+      ctx.addIssue({
+        code: 'custom',
+        message: `"${v}" is not an absolute IRI: ${problem}`,
+        params: { hint: `e.g. "${example}"` },
+      });
+  });
 const unit = z.number().min(0).max(1);
 const nonEmpty = z.string().trim().min(1, { message: 'must not be empty' });
 const partnerKey = z.string().regex(/^[a-z][a-z0-9_-]{0,31}$/, {
@@ -29,7 +39,7 @@ const ColumnsSchema = z.strictObject({
 const PartnerSchema = z.strictObject({
   key: partnerKey,
   name: nonEmpty,
-  homepage: iri('homepage').optional(),
+  homepage: iri('https://archive.example.org/').optional(),
   workIri: z.string(),
   imageIri: z.string(),
   recordPage: z.string().optional(),
@@ -76,6 +86,8 @@ const RunSchema = z.strictObject({
   parameters: z.record(z.string(), z.union([z.string(), z.number(), z.boolean(), z.null()])).default({}),
 });
 
+type RunConfigParsed = z.infer<typeof RunSchema>;
+
 const PolicySchema = z
   .strictObject({
     proposeAt: unit.default(0.5),
@@ -94,9 +106,9 @@ const PolicySchema = z
 export const ProjectSchema = z.strictObject({
   title: nonEmpty,
   description: z.string().optional(),
-  base: iri('base'),
-  license: iri('license'),
-  publisher: z.strictObject({ name: nonEmpty, homepage: iri('homepage').optional() }),
+  base: iri('https://concordance.example.org/'),
+  license: iri('https://creativecommons.org/licenses/by/4.0/'),
+  publisher: z.strictObject({ name: nonEmpty, homepage: iri('https://consortium.example.org/').optional() }),
   partners: z.array(PartnerSchema).min(1, { message: 'at least one partner is needed' }),
   evidence: z.array(z.strictObject({ file: nonEmpty, run: RunSchema.optional() })).default([]),
   decisions: z.array(DecisionFileSchema).default([]),
@@ -153,12 +165,37 @@ function keysAt(pathParts: PropertyKey[]): string[] {
 const jsonPath = (p: PropertyKey[]) =>
   p.reduce<string>((acc, k) => (typeof k === 'number' ? `${acc}[${k}]` : acc ? `${acc}.${String(k)}` : String(k)), '');
 
-/** Finds the line where a JSON path's value starts, by a light scan for its last key; 1 when unknown. */
+let scanned: { text: string; spots: JsonSpots } | undefined;
+/** Where values start in the project text (scanned once per text). */
+function spotsOf(text: string): JsonSpots {
+  if (scanned?.text !== text) scanned = { text, spots: jsonSpots(text) };
+  return scanned.spots;
+}
+
+/** The line where a JSON path's value (or member name) starts; for a missing field, that of its nearest parent. */
 function lineOfPath(text: string, p: PropertyKey[]): number {
-  const lastKey = [...p].reverse().find((k) => typeof k === 'string');
-  if (lastKey === undefined) return 1;
-  const idx = text.indexOf(JSON.stringify(lastKey));
-  return idx < 0 ? 1 : lineColumn(text, idx).line;
+  const { offset } = spotsOf(text);
+  const keys = p.filter((k): k is string | number => typeof k !== 'symbol');
+  for (let n = keys.length; n >= 0; n--) {
+    const at = offset.get(pathKey(keys.slice(0, n)));
+    if (at !== undefined) return lineColumn(text, at).line;
+  }
+  return 1;
+}
+
+/**
+ * A run's parameters with each number as written in the project file (JSON.parse would turn 1e-7 into 1e-7 but a
+ * 30-digit integer into 1.2345678901234568e+29): the text is kept and typed when published.
+ */
+function parametersAsWritten(text: string, i: number, run: RunConfigParsed): RunConfig {
+  const { number } = spotsOf(text);
+  const parameters: RunConfig['parameters'] = {};
+  for (const [k, v] of Object.entries(run.parameters)) {
+    const written = number.get(pathKey(['evidence', i, 'run', 'parameters', k]));
+    if (typeof v === 'number' && written === undefined) throw new Error(`no text for the number at parameters.${k}`);
+    parameters[k] = typeof v === 'number' ? { number: written! } : v;
+  }
+  return { ...run, parameters };
 }
 
 /** The hint for a value of the wrong type or a missing one: where the project file format is described. */
@@ -196,12 +233,13 @@ export function checkProject(file: string, text: string, raw: unknown): ProjectC
           });
         }
       } else {
+        const hint = issue.code === 'custom' ? (issue.params?.hint as string | undefined) : undefined;
         problems.add({
           file,
           line: lineOfPath(text, issue.path),
           field: jsonPath(issue.path),
           message: issue.message,
-          hint: schemaHint(issue.path),
+          hint: hint ?? schemaHint(issue.path),
         });
       }
     }
@@ -254,11 +292,13 @@ export function checkProject(file: string, text: string, raw: unknown): ProjectC
           message: `template ${msg}`,
           hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"`,
         });
-      if (!absoluteIri.test(tpl.replace(/\{[^{}]*\}/g, 'x')))
+      // each {name} filled with as many x as it is long, so positions in the message are the template's own
+      const problem = iriProblem(tpl.replace(/\{[^{}]*\}/g, (m) => 'x'.repeat(m.length)));
+      if (problem)
         problems.add({
           ...at(field),
-          message: 'template does not give an absolute IRI',
-          hint: 'start it with https://',
+          message: `template "${tpl}" does not give an absolute IRI: ${problem}`,
+          hint: `e.g. "https://archive.example.org/id/${req}/{${req}}"`,
         });
     }
   });
@@ -293,7 +333,10 @@ export function checkProject(file: string, text: string, raw: unknown): ProjectC
   return {
     ...p,
     partners: p.partners.map((x) => ({ ...x, catalogue: { ...x.catalogue, file: abs(x.catalogue.file) } })),
-    evidence: p.evidence.map((e) => ({ ...e, file: abs(e.file) })),
+    evidence: p.evidence.map((e, i) => ({
+      file: abs(e.file),
+      ...(e.run ? { run: parametersAsWritten(text, i, e.run) } : {}),
+    })),
     decisions: p.decisions.map((d) => ({ ...d, file: abs(d.file) })),
     gold: p.gold === undefined ? undefined : abs(p.gold),
     previous: p.previous === undefined ? undefined : abs(p.previous),

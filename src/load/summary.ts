@@ -1,7 +1,8 @@
 // Loaded model → the summary `concordat check` prints (per partner works and images, evidence, decisions, warnings).
 import type { Model } from '../model.js';
 import type { LoadStats } from './index.js';
-import { displayPath } from '../errors.js';
+import { bounded, displayPath } from '../errors.js';
+import { cut, visible } from '../shown.js';
 import { warningLines } from './warning-groups.js';
 
 export interface CheckSummary {
@@ -37,22 +38,26 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
     decisions: model.decisions.length,
     decisionRowsWithoutVerdict: stats.undecidedRows,
     goldPairs: model.gold.length,
-    warnings: model.warnings.map((w) => ({ ...w, file: displayPath(w.file) })),
+    warnings: model.warnings.map((w) => bounded({ ...w, file: displayPath(w.file) })),
   };
 }
 
-/** The summary as aligned text for a terminal; warnings summarised per kind unless `verbose`. */
+/**
+ * The summary as aligned text for a terminal (values from the project cut and their control characters visible);
+ * warnings summarised per kind unless `verbose`.
+ */
 export function summaryText(s: CheckSummary, verbose = false): string {
+  const show = (v: string) => visible(cut(v));
   const lines = [
-    `${s.title}  (${s.project})`,
+    `${show(s.title)}  (${show(s.project)})`,
     '',
     'partner'.padEnd(14) + 'works'.padStart(8) + 'images'.padStart(9) + '  name',
   ];
   for (const p of s.partners)
-    lines.push(p.key.padEnd(14) + String(p.works).padStart(8) + String(p.images).padStart(9) + '  ' + p.name);
+    lines.push(p.key.padEnd(14) + String(p.works).padStart(8) + String(p.images).padStart(9) + '  ' + show(p.name));
   lines.push(
     '',
-    `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${s.evidence.runs.join(', ') || 'none'}; ${s.evidence.matches} cross-record image matches`,
+    `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${show(s.evidence.runs.join(', ')) || 'none'}; ${s.evidence.matches} cross-record image matches`,
     `decisions: ${s.decisions}${s.decisionRowsWithoutVerdict ? ` (${s.decisionRowsWithoutVerdict} rows without a verdict skipped)` : ''}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
   );
   for (const w of warningLines(s.warnings, verbose)) lines.push('  warning: ' + w);

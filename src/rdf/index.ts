@@ -1,12 +1,13 @@
 // RDF stage: the release view → units of quads (provenance, one per cluster, one per stray link), streamed in a fixed
 // order.
+import { looksLikeIri } from '../io/iri.js';
 import type { Quad, NamedNode } from '@rdfjs/types';
 import type { Model } from '../model.js';
 import { workRef } from '../model.js';
 import type { Link } from '../link/types.js';
 import { matchesOf } from '../link/index.js';
 import { compileTemplate, encodeUnreserved } from '../io/template.js';
-import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph } from './terms.js';
+import { term, nn, str, typed, int, bool, dec, when, hash, fill, inGraph, numberLiteral } from './terms.js';
 import type { ReleaseView } from './view.js';
 
 export type GraphName = 'claims' | 'evidence' | 'provenance' | 'dataset';
@@ -195,7 +196,7 @@ export class Namer {
    * A curator's IRI: their own (ORCID) when given, else one minted from the name (a hash when the name has no letters).
    */
   curatorIri = (c: string) => {
-    if (/^https?:\/\//.test(c)) return c;
+    if (looksLikeIri(c)) return c; // checked as an IRI when the decisions file was read
     const slug = c
       .toLowerCase()
       .normalize('NFKD')
@@ -514,10 +515,8 @@ function provenanceUnit(view: ReleaseView, namer: Namer): Unit {
       prov(
         P,
         cxParameterValue,
-        typeof v === 'number'
-          ? Number.isInteger(v)
-            ? int(v)
-            : dec(v)
+        typeof v === 'object' && v !== null
+          ? numberLiteral(v.number)
           : typeof v === 'boolean'
             ? bool(v)
             : str(String(v)),

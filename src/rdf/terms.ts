@@ -96,6 +96,16 @@ export function dec(n: number): Lit {
   return typed(s, 'decimal');
 }
 
+/**
+ * A JSON number's text (RFC 8259 §6: `-? int frac? exp?`) → a literal with that very text, typed by the XSD 1.1 Part 2
+ * lexical space that holds it: no fraction and no exponent is xsd:integer (§3.4.13, `[\-+]?[0-9]+`), a fraction
+ * without exponent xsd:decimal (§3.3.3.1 decimalLexicalRep), an exponent xsd:double (§3.3.5.1 doubleRep). The text is
+ * never passed through a JavaScript number, which would turn a 30-digit integer into 1.2345678901234568e+29.
+ */
+export function numberLiteral(text: string): Lit {
+  return typed(text, /[eE]/.test(text) ? 'double' : text.includes('.') ? 'decimal' : 'integer');
+}
+
 /** xsd:dateTime for a full date-time, xsd:date for a calendar date. */
 export const when = (s: string) => (s.includes('T') ? typed(s, 'dateTime') : typed(s, 'date'));
 

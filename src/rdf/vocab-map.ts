@@ -1,4 +1,6 @@
 // vocab-map/*.json → the table from claim kind + status to predicate IRI, and the project's IRI patterns.
+import { iriProblem } from '../io/iri.js';
+import { fill } from './terms.js';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { z } from 'zod';
@@ -107,8 +109,44 @@ function checkPatterns(file: string, iris: Record<string, string>): void {
   }
 }
 
-/** Loads a vocab map (rows of the file first, then those of the file it `extends`; first match wins). */
-export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
+/**
+ * Checks that every IRI the map makes is an absolute IRI (RFC 3987 §2.2): each pattern filled with the project's
+ * `base` and an `x` per other slot (the RDF stage percent-encodes slot values, so only the pattern's own text and the
+ * base can break it), and each predicate.
+ */
+function checkIris(file: string, iris: Record<string, string>, predicates: string[], base: string | undefined): void {
+  const bad = (field: string, iri: string, problem: string) =>
+    new UserError({
+      file,
+      line: 0,
+      field,
+      message: `"${iri}" is not an absolute IRI: ${problem}`,
+      hint:
+        field === 'claims'
+          ? 'check the predicate and its prefix'
+          : 'slots are filled percent-encoded; fix the text around them',
+    });
+  if (base !== undefined)
+    for (const [name, pattern] of Object.entries(iris)) {
+      const filled = fill(
+        pattern,
+        Object.fromEntries(slotsOf(pattern).flatMap((s) => (s === 'base' ? [] : [[s, 'x']]))),
+        base,
+      );
+      const problem = iriProblem(filled);
+      if (problem) throw bad(`iris.${name}`, filled, problem);
+    }
+  for (const p of predicates) {
+    const problem = iriProblem(p);
+    if (problem) throw bad('claims', p, problem);
+  }
+}
+
+/**
+ * Loads a vocab map (rows of the file first, then those of the file it `extends`; first match wins). With the
+ * project's `base`, every IRI pattern is also checked as it will be filled.
+ */
+export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP, base?: string): VocabMap {
   const { prefixes, claims, iris } = readMapFile(path.resolve(file), new Set());
   checkPatterns(file, iris);
   const expand = (curie: string) => {
@@ -127,6 +165,12 @@ export function loadVocabMap(file: string = DEFAULT_VOCAB_MAP): VocabMap {
     return ns + curie.slice(i + 1);
   };
   const rows = claims.map((r) => ({ ...r, predicate: r.predicate === null ? null : expand(r.predicate) }));
+  checkIris(
+    file,
+    iris,
+    rows.flatMap((r) => (r.predicate === null ? [] : [r.predicate])),
+    base,
+  );
   const table = new Map<string, string | null>();
   for (const k of ['same', 'part', 'related'] as LinkKind[])
     for (const s of ['confirmed', 'proposed', 'rejected', 'candidate'] as LinkStatus[]) {

@@ -2,13 +2,13 @@
 import type { ReportData } from './data.js';
 import { LIST_LIMIT } from './data.js';
 import { percent } from './context.js';
+import { markdownText } from '../shown.js';
 
-/** A table cell: pipes escaped, line breaks as spaces (GitHub Flavored Markdown tables, §4.10). */
-const cell = (v: unknown) =>
-  String(v ?? '')
-    .replace(/\\/g, '\\\\')
-    .replace(/\|/g, '\\|')
-    .replace(/\r?\n|\r/g, ' ');
+/**
+ * A table cell: the value as text, never markup (Markdown and HTML escaped, controls visible, line breaks as spaces:
+ * `markdownText`; pipes escaped for GitHub Flavored Markdown tables, §4.10).
+ */
+const cell = (v: unknown) => markdownText(String(v ?? ''));
 
 function table(header: string[], rows: unknown[][]): string[] {
   if (rows.length === 0) return ['(none)', ''];
@@ -73,7 +73,7 @@ function withheldMarkdown(d: ReportData): string[] {
 
 /** report.md (deterministic: no dates, no absolute paths). */
 export function reportMarkdown(d: ReportData): string {
-  const out: string[] = [`# ${d.title}: release ${d.version}`, ''];
+  const out: string[] = [`# ${markdownText(d.title)}: release ${markdownText(d.version)}`, ''];
   out.push(
     '## Partners',
     '',

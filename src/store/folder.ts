@@ -5,6 +5,7 @@ import { mkdir, readdir, readFile, rm } from 'node:fs/promises';
 import { join } from 'node:path';
 import { z } from 'zod';
 import { UserError, EXIT } from '../errors.js';
+import { parseJson } from '../io/json-file.js';
 import { writeFileAtomicallyAsync } from '../io/temp-file.js';
 
 /** What the manifest records for one graph. */
@@ -89,22 +90,17 @@ export async function readManifest(folder: string): Promise<Manifest> {
       EXIT.badInput,
     );
   }
-  const parsed = (() => {
-    try {
-      return ManifestSchema.safeParse(JSON.parse(text));
-    } catch {
-      return null;
-    }
-  })();
-  if (!parsed?.success) {
-    const issue = parsed?.error.issues[0];
+  const hint = 'the store folder is damaged; load the release into a new folder';
+  const parsed = ManifestSchema.safeParse(parseJson(text, join(folder, MANIFEST), hint));
+  if (!parsed.success) {
+    const issue = parsed.error.issues[0];
     throw new UserError(
       {
         file: join(folder, MANIFEST),
         line: 0,
-        field: issue ? issue.path.join('.') : '',
-        message: issue ? issue.message : 'not valid JSON',
-        hint: 'the store folder is damaged; load the release into a new folder',
+        field: issue.path.join('.'),
+        message: issue.message,
+        hint,
       },
       EXIT.badInput,
     );

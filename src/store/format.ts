@@ -81,7 +81,8 @@ function jsonTerm(t: Term): Record<string, string> {
 function table(vars: string[], rows: Record<string, Term>[]): string {
   const cells = rows.map((r) => vars.map((v) => tableCell(r[v])));
   const head = vars.map((v) => `?${v}`);
-  const width = vars.map((_, i) => Math.max(head[i].length, ...cells.map((c) => c[i].length)));
+  // a loop, not Math.max(...cells): a spread of 150k rows overflows the call stack
+  const width = vars.map((_, i) => cells.reduce((w, c) => Math.max(w, c[i].length), head[i].length));
   const line = (c: string[]): string =>
     c
       .map((s, i) => s.padEnd(width[i]))

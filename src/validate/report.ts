@@ -111,7 +111,7 @@ export function reportQuads(rows: ResultRow[]): N3.Quad[] {
     out.push(quad(node, sh('sourceShape'), term(r.sourceShape)));
     if (r.sourceConstraint !== null) out.push(quad(node, sh('sourceConstraint'), term(r.sourceConstraint)));
     for (const m of r.messages) out.push(quad(node, sh('resultMessage'), term(m)));
-    out.push(...structure);
+    for (const q of structure) out.push(q);
   });
   return out;
 }

@@ -1,4 +1,5 @@
 // A ValidationOutcome → the text summary and the JSON object the validate command prints.
+import { cut, visible } from '../shown.js';
 import N3 from 'n3';
 import { NS, iri } from '../namespaces.js';
 import { pathText } from './paths.js';
@@ -51,7 +52,8 @@ export function summaryText(
   for (const r of outcome.results) {
     const path = r.path === null ? '' : ` ${pathText(r.path, showIri)}`;
     const value = r.value === null ? '' : ` (value ${showTerm(r.value)})`;
-    lines.push(`  ${localName(r.severity)}: ${showTerm(r.focusNode)}${path}: ${messageOf(r)}${value}`);
+    const line = `${localName(r.severity)}: ${showTerm(r.focusNode)}${path}: ${messageOf(r)}${value}`;
+    lines.push(`  ${visible(cut(line))}`); // terms and messages come from the user's data and shapes
   }
   return lines.join('\n') + '\n';
 }

@@ -15,8 +15,8 @@ const relOf = (x: string) => x.replace(/^.*?\/(work\/)/, '$1');
 export function clusterPage(ctx: SiteContext, u: ClusterUnit): string {
   const all = [...u.statements];
   for (const l of u.links) {
-    all.push(...l.statements);
-    for (const m of l.matches) all.push(...m.statements);
+    for (const s of l.statements) all.push(s);
+    for (const m of l.matches) for (const s of m.statements) all.push(s);
   }
   const nodes = nodesOf(all);
   const c = nodes.get(u.iri) ?? new Node(u.iri);
