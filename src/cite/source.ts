@@ -1,4 +1,5 @@
 // A release folder or an embedded store folder → one in-memory N3 store of its quads (one code path for both).
+import { verifyRelease } from '../store/complete.js';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import N3 from 'n3';
@@ -36,6 +37,7 @@ export async function readSource(src: CiteSource): Promise<N3.Store> {
         message: `not a release folder (no ${RELEASE_FILES.nquads})`,
         hint: 'name a folder written by concordat build',
       });
+    await verifyRelease(src.release, [RELEASE_FILES.nquads], { hashNeededOnly: true });
     store.addQuads(await readRdfFile(file));
     return store;
   }

@@ -43,17 +43,20 @@ export function register(program: Command): void {
         'this machine (loopback) or with CONCORDAT_STORE_ALLOW_BASIC_OVER_HTTP=1.',
     )
     .action(async (release: string, opts: LoadOpts) => {
-      const { openStore } = await import('../store/open.js');
+      const { checkStoreChoice, openStore } = await import('../store/open.js');
       const { loadRelease, planRelease } = await import('../store/release.js');
       if (opts.query) deprecated('--query', '--query-endpoint');
-      const store = await openStore({
+      const choice = {
         store: opts.store,
         endpoint: opts.endpoint,
         update: opts.update,
         query: opts.queryEndpoint ?? opts.query,
-      });
+      };
+      checkStoreChoice(choice);
+      // the release is checked before the store is opened: a refused release leaves no store folder behind
+      const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
+      const store = await openStore(choice);
       try {
-        const plan = await planRelease(release, { graph: opts.graph, partner: opts.partner });
         const t0 = performance.now();
         const { loads: done, dropped } = await loadRelease(store, plan, { graph: opts.graph });
         const graphs = done.map((d) => ({ graph: d.graph, triples: d.triples }));

@@ -1,4 +1,5 @@
 // A release folder (concordance.nq, dataset.ttl, clusters.csv) → its snapshot, provenance and tombstone invalidations.
+import { verifyRelease } from '../store/complete.js';
 import { existsSync } from 'node:fs';
 import path from 'node:path';
 import type { Quad } from '@rdfjs/types';
@@ -92,6 +93,10 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
   const nq = need(folder, RELEASE_FILES.nquads, 'previous');
   const ds = need(folder, RELEASE_FILES.dataset, 'previous');
   const csv = need(folder, RELEASE_FILES.clusters, 'previous');
+  // the files read are checked against SHA256SUMS: a cut or changed release is refused, never read as a smaller one
+  await verifyRelease(folder, [RELEASE_FILES.nquads, RELEASE_FILES.dataset, RELEASE_FILES.clusters], {
+    hashNeededOnly: true,
+  });
   const dsQuads: Quad[] = [];
   await streamRdfFile(ds, (q) => dsQuads.push(q));
   const identity = datasetIdentity(dsQuads, ds);

@@ -6,6 +6,8 @@ export interface CsvRow {
   fields: string[];
   /** 1-based physical line where the record starts (a quoted newline makes a record span lines). */
   line: number;
+  /** The physical line it ends on (greater than `line` when a quoted field spans lines). */
+  last: number;
 }
 
 /**
@@ -58,6 +60,10 @@ class CsvParser {
   readonly rows: CsvRow[] = [];
   /** Line of the first stray quote, 0 if none. */
   stray = 0;
+  /** When the first stray quote follows a quoted field that spanned lines: the line that field's quote opened on. */
+  strayOpened = 0;
+  /** Line the open (or last) quoted field's opening quote is on. */
+  private quoteLine = 0;
   private state = START;
   private field = '';
   private fields: string[] = [];
@@ -113,9 +119,15 @@ class CsvParser {
       } else if (c === 34 && state === START) {
         state = QUOTED;
         this.quoted = true;
+        this.quoteLine = this.line;
         mark = i + 1;
       } else if (c === 34 || state === CLOSED) {
-        if (this.stray === 0) this.stray = this.line;
+        if (this.stray === 0) {
+          this.stray = this.line;
+          // text right after a quoted field that ran over lines: most likely its opening quote was never closed, and
+          // a later quote was taken as its end
+          if (state === CLOSED && this.quoteLine < this.line) this.strayOpened = this.quoteLine;
+        }
       } else state = UNQUOTED;
     }
     if (state === QUOTED || state === UNQUOTED) this.field += text.slice(mark);
@@ -125,16 +137,16 @@ class CsvParser {
   /** A blank line, or one of unquoted spaces only, is no record. */
   private endRecord(): void {
     if (this.quoted || this.fields.length > 1 || this.fields[0].trim() !== '')
-      this.rows.push({ fields: this.fields, line: this.recordLine });
+      this.rows.push({ fields: this.fields, line: this.recordLine, last: this.line });
     this.quoted = false;
     this.fields = [];
     this.field = '';
     this.recordLine = 0;
   }
 
-  /** Closes the last record at the end of input; returns the start line of an unterminated quoted field, else 0. */
+  /** Closes the last record at the end of input; returns the line of an unterminated field's opening quote, else 0. */
   finish(): number {
-    if (this.state === QUOTED) return this.recordLine;
+    if (this.state === QUOTED) return this.quoteLine;
     if (this.recordLine !== 0) {
       this.fields.push(this.field);
       this.endRecord();
@@ -175,6 +187,15 @@ export async function* readCsvBatches(
   let carry = new Uint8Array(0);
 
   const drain = (): CsvRow[] => {
+    if (parser.stray && parser.strayOpened)
+      throw new UserError(
+        problem(
+          file,
+          parser.strayOpened,
+          `the quoted field opened here runs to line ${parser.stray}, where text follows its closing quote`,
+          `close the quote on line ${parser.strayOpened}, or double every quote inside the field ("")`,
+        ),
+      );
     if (parser.stray)
       throw new UserError(
         problem(
@@ -226,7 +247,12 @@ export async function* readCsvBatches(
   const unterminated = parser.finish();
   if (unterminated)
     throw new UserError(
-      problem(file, unterminated, 'unterminated quoted field', 'a field opened with " must close with "'),
+      problem(
+        file,
+        unterminated,
+        `unterminated quoted field: the quote opened here is still open at the end of the file (line ${parser.line})`,
+        'a field opened with " must close with "',
+      ),
     );
   const batch = drain();
   if (batch.length) yield batch;

@@ -40,7 +40,12 @@ export function firstLine(file: string): string | undefined {
   }
   try {
     const buf = Buffer.alloc(65536);
-    const n = readSync(fd, buf, 0, buf.length, 0);
+    let n: number;
+    try {
+      n = readSync(fd, buf, 0, buf.length, 0);
+    } catch {
+      return undefined; // a folder opens but cannot be read (EISDIR): the reader names it
+    }
     return buf
       .subarray(0, n)
       .toString('utf8')

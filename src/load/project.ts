@@ -199,9 +199,25 @@ function parametersAsWritten(text: string, i: number, run: RunConfigParsed): Run
   return { ...run, parameters };
 }
 
+/** The hint for a value of the wrong type or a missing one: where the project file format is described. */
+function schemaHint(at: PropertyKey[]): string {
+  const top = at.length ? String(at[0]) : '';
+  return top
+    ? `see "${top}" in an example project (concordat init writes one; demo-data/concordance.json)`
+    : 'a project file is one JSON object: concordat init writes an example';
+}
+
 /** Reads and validates a project file (design: "Project file"); throws UserError with every problem. */
 export function loadProjectFile(file: string): ProjectConfig {
   const { text, value: raw } = readJsonFile(file, 'project file', 'give the path to concordance.json');
+  return checkProject(file, text, raw);
+}
+
+/**
+ * Validates a parsed project file (`text` places problems on their lines); throws UserError with every problem, else
+ * returns the config with paths resolved against the file's folder.
+ */
+export function checkProject(file: string, text: string, raw: unknown): ProjectConfig {
   const problems = new ProblemList();
   const parsed = ProjectSchema.safeParse(raw);
   if (!parsed.success) {
@@ -224,7 +240,7 @@ export function loadProjectFile(file: string): ProjectConfig {
           line: lineOfPath(text, issue.path),
           field: jsonPath(issue.path),
           message: issue.message,
-          ...(hint ? { hint } : {}),
+          hint: hint ?? schemaHint(issue.path),
         });
       }
     }

@@ -1,8 +1,9 @@
 // Loaded model → the summary `concordat check` prints (per partner works and images, evidence, decisions, warnings).
 import type { Model } from '../model.js';
 import type { LoadStats } from './index.js';
-import { bounded, displayPath, formatProblem } from '../errors.js';
+import { bounded, displayPath } from '../errors.js';
 import { cut, visible } from '../shown.js';
+import { warningLines } from './warning-groups.js';
 
 export interface CheckSummary {
   project: string;
@@ -41,8 +42,11 @@ export function summarise(model: Model, stats: LoadStats): CheckSummary {
   };
 }
 
-/** The summary as aligned text for a terminal (values from the project cut and their control characters visible). */
-export function summaryText(s: CheckSummary): string {
+/**
+ * The summary as aligned text for a terminal (values from the project cut and their control characters visible);
+ * warnings summarised per kind unless `verbose`.
+ */
+export function summaryText(s: CheckSummary, verbose = false): string {
   const show = (v: string) => visible(cut(v));
   const lines = [
     `${show(s.title)}  (${show(s.project)})`,
@@ -56,6 +60,6 @@ export function summaryText(s: CheckSummary): string {
     `evidence: ${s.evidence.rows} rows in ${s.evidence.files} file(s), runs: ${show(s.evidence.runs.join(', ')) || 'none'}; ${s.evidence.matches} cross-record image matches`,
     `decisions: ${s.decisions}${s.decisionRowsWithoutVerdict ? ` (${s.decisionRowsWithoutVerdict} rows without a verdict skipped)` : ''}    gold pairs: ${s.goldPairs}    warnings: ${s.warnings.length}`,
   );
-  for (const w of s.warnings) lines.push('  warning: ' + formatProblem(w));
+  for (const w of warningLines(s.warnings, verbose)) lines.push('  warning: ' + w);
   return lines.join('\n') + '\n';
 }

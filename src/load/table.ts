@@ -27,7 +27,7 @@ export async function* readTable(
   let index = new Map<string, number>();
   let records = 0;
   for await (const batch of readCsvBatches(file, delimiter, onBytes))
-    for (const { fields, line } of batch) {
+    for (const { fields, line, last } of batch) {
       if (!header) {
         header = fields.map((h) => h.trim());
         const other = [';', '\t', ','].find(
@@ -82,11 +82,15 @@ export async function* readTable(
           file,
           line,
           field: '',
-          message: `row has ${fields.length} fields, the header has ${header.length}`,
+          message:
+            `row has ${fields.length} fields, the header has ${header.length}` +
+            (last > line ? `; it runs to line ${last} inside a quoted field` : ''),
           hint:
-            fields.length < header.length
-              ? 'a field is missing or a delimiter is lost'
-              : `a value holds the delimiter ${JSON.stringify(delimiter)} unquoted: quote it`,
+            last > line
+              ? `check that the quote opened on line ${line} is closed where the field ends`
+              : fields.length < header.length
+                ? 'a field is missing or a delimiter is lost'
+                : `a value holds the delimiter ${JSON.stringify(delimiter)} unquoted: quote it`,
         });
         continue;
       }

@@ -1,4 +1,5 @@
 // A project file + a catalogue export → a proposed partner block, and the project file with that block added.
+import { checkProject } from '../load/project.js';
 import path from 'node:path';
 import { UserError } from '../errors.js';
 import { readJsonObject, writeJsonFile } from '../io/json-file.js';
@@ -211,6 +212,8 @@ export function writePartner(p: PartnerProposal): void {
   const project = readJsonObject(p.projectFile);
   const partners = Array.isArray(project.partners) ? project.partners : [];
   project.partners = [...partners, p.block];
+  // never write a project file that check would refuse (a broken field elsewhere included)
+  checkProject(p.projectFile, JSON.stringify(project, null, 2), project);
   writeJsonFile(p.projectFile, project);
 }
 

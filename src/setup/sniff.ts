@@ -48,5 +48,13 @@ export async function sniffCatalogue(file: string, limit = 200, given?: string):
       message: 'the export is empty',
       hint: 'export the catalogue with a header row',
     });
+  if (rows.length === 0)
+    throw new UserError({
+      file,
+      line: 1,
+      field: '--catalogue',
+      message: 'the export has a header and no records',
+      hint: 'export the whole catalogue: its columns are recognised from their values too',
+    });
   return { delimiter, header, rows };
 }

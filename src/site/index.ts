@@ -1,5 +1,6 @@
 // Site stage: a release folder → a static site in which every IRI the release mints under its base has an HTML,
 // Turtle and JSON-LD document, plus pages to search, the dataset, the vocabulary and rules for web servers.
+import { verifyRelease } from '../store/complete.js';
 import {
   mkdirSync,
   writeFileSync,
@@ -142,7 +143,9 @@ const ntOf = (sts: readonly Statement[]) => sts.map((s) => s.nt).join('');
  * cluster, the shared provenance and one spool file at a time. Written to a temp folder renamed at the end.
  */
 export async function writeSite(release: string, out: string, opts: { previous?: string } = {}): Promise<SiteSummary> {
+  // the file it reads is checked whole; the others (hard-linked as downloads) are checked to be the ones listed
   const info = await readSiteInfo(release);
+  await verifyRelease(release, [RELEASE_FILES.nquads, RELEASE_FILES.dataset], { hashNeededOnly: true });
   const earlier = opts.previous ? readEarlierSite(opts.previous, info.base) : undefined;
   const nq = path.join(release, RELEASE_FILES.nquads);
   return writeFolderAtomically(out, async (dir) => {

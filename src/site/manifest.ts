@@ -1,8 +1,8 @@
 // site.json of a site folder: the base, the release version and dataset, the shard widths.
-import { existsSync, readFileSync } from 'node:fs';
+import { existsSync } from 'node:fs';
+import { readJsonFile } from '../io/json-file.js';
 import path from 'node:path';
 import { UserError } from '../errors.js';
-import { parseJson } from '../io/json-file.js';
 import type { ShardWidths } from './routes.js';
 
 export interface SiteManifest {
@@ -25,9 +25,25 @@ export function readManifest(site: string): SiteManifest {
       message: 'not a site folder (no site.json)',
       hint: 'name a folder written by concordat site',
     });
-  return parseJson(
-    readFileSync(f, 'utf8'),
-    f,
-    'site.json is damaged: write the site again with concordat site',
-  ) as SiteManifest;
+  const { value } = readJsonFile(f, 'site manifest', 'write the site again with concordat site');
+  const m = value as Partial<SiteManifest> | null;
+  const widths = m?.widths as unknown as Record<string, unknown> | undefined;
+  if (
+    !m ||
+    typeof m !== 'object' ||
+    typeof m.base !== 'string' ||
+    typeof m.version !== 'string' ||
+    typeof m.dataset !== 'string' ||
+    !widths ||
+    typeof widths !== 'object' ||
+    !Object.values(widths).every((w) => Number.isInteger(w))
+  )
+    throw new UserError({
+      file: f,
+      line: 0,
+      field: '',
+      message: 'is not the manifest concordat site writes (base, version, dataset, widths)',
+      hint: 'write the site again with concordat site',
+    });
+  return m as SiteManifest;
 }

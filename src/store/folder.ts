@@ -77,8 +77,18 @@ export async function readManifest(folder: string): Promise<Manifest> {
   try {
     text = await readFile(join(folder, MANIFEST), 'utf8');
   } catch (err) {
-    if ((err as NodeJS.ErrnoException).code === 'ENOENT') return { version: 1, graphs: {} };
-    throw err;
+    const code = (err as NodeJS.ErrnoException).code;
+    if (code === 'ENOENT') return { version: 1, graphs: {} };
+    throw new UserError(
+      {
+        file: join(folder, MANIFEST),
+        line: 0,
+        field: '',
+        message: `cannot be read (${code ?? (err as Error).message})`,
+        hint: 'a store folder holds the manifest.json concordat load wrote: load the release into a new folder',
+      },
+      EXIT.badInput,
+    );
   }
   const hint = 'the store folder is damaged; load the release into a new folder';
   const parsed = ManifestSchema.safeParse(parseJson(text, join(folder, MANIFEST), hint));

@@ -25,6 +25,13 @@ const usage = (field: string, message: string, hint: string): UserError =>
 
 /** Opens the chosen store; exactly one of a folder or a query URL must be given. */
 export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Promise<Store> {
+  checkStoreChoice(c);
+  if (c.store) return EmbeddedStore.open(c.store, { lock: !c.existing });
+  return new RemoteStore({ gsp: c.endpoint, update: c.update, query: c.query! }, remote);
+}
+
+/** Refuses a store choice that cannot work (both or neither kind, URLs that are not http(s) or carry a password). */
+export function checkStoreChoice(c: StoreChoice): void {
   const isRemote = Boolean(c.endpoint || c.update || c.query);
   if (c.store && isRemote)
     throw usage(
@@ -38,7 +45,7 @@ export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Pro
       `${c.store} holds no loaded release`,
       'load one first: concordat load <release> --store <folder>',
     );
-  if (c.store) return EmbeddedStore.open(c.store, { lock: !c.existing });
+  if (c.store) return;
   if (!c.query) throw usage('--store', 'no store given', 'give --store <folder>, or the remote endpoint URLs');
   for (const [field, url] of Object.entries({
     '--endpoint': c.endpoint,
@@ -54,7 +61,6 @@ export async function openStore(c: StoreChoice, remote: RemoteOptions = {}): Pro
         'remove it; credentials come from CONCORDAT_STORE_USER / CONCORDAT_STORE_PASSWORD or netrc',
       );
   }
-  return new RemoteStore({ gsp: c.endpoint, update: c.update, query: c.query }, remote);
 }
 
 /** Parses `key=value` parameters; the value may itself contain "=". */

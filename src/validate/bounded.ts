@@ -1,6 +1,7 @@
 // Triples pushed one by one + a shapes graph → the whole-graph SHACL outcome in bounded memory: small input validated
 // at
 // once, large input spilled into hashed buckets each carrying its focus nodes' footprint, batches on worker threads.
+import { removeOnSignal } from '../util/interrupt.js';
 import { rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import type { Quad } from '@rdfjs/types';
@@ -65,6 +66,7 @@ export class BoundedValidation {
   private readonly keys = new Set<string>();
   private ids: string[] = [];
   private spill: Spill | null = null;
+  private forgetSpill: (() => void) | null = null;
   private dir: string | null = null;
   private refused: UserError | null = null;
   private readonly removeOnExit = () => this.cleanup();
@@ -131,6 +133,7 @@ export class BoundedValidation {
   private startSpill(): void {
     this.dir = makeSpillDir(this.opts.tempParent ?? tmpdir());
     process.once('exit', this.removeOnExit);
+    this.forgetSpill = removeOnSignal(this.dir); // SIGINT/SIGTERM: removed and named in the one line printed
     this.spill = new Spill(this.dir, this.opts.buckets ?? 128, this.footprint);
     for (let i = 0; i < this.ids.length; i += 4) this.spill.add([this.ids[i], this.ids[i + 1], this.ids[i + 2]]);
     this.ids = [];
@@ -141,6 +144,8 @@ export class BoundedValidation {
   cleanup(): void {
     if (this.dir) rmSync(this.dir, { recursive: true, force: true });
     this.dir = null;
+    this.forgetSpill?.();
+    this.forgetSpill = null;
     process.removeListener('exit', this.removeOnExit);
   }
 
