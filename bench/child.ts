@@ -1,5 +1,8 @@
 // One measured job per process (build, whole-graph SHACL, load alone) → one JSON line on stdout with time and peak RSS.
 import { performance } from 'node:perf_hooks';
+import { createReadStream, createWriteStream } from 'node:fs';
+import { pipeline } from 'node:stream/promises';
+import { createGzip } from 'node:zlib';
 import { build } from '../src/pipeline.js';
 import { load } from '../src/load/index.js';
 import { UserError, EXIT } from '../src/errors.js';
@@ -11,8 +14,8 @@ type Job = (args: string[]) => Promise<Record<string, number>>;
 
 /** The jobs a benchmark child can run, by name. */
 const JOBS: Record<string, Job> = {
-  /** build <project> <outDir> <1|0 validate> */
-  async build([project, out, v]): Promise<Record<string, number>> {
+  /** build <project> <outDir> <1|0 validate> [1|0 gzip] */
+  async build([project, out, v, gz]): Promise<Record<string, number>> {
     const t = performance.now();
     // milliseconds spent in each stage the build announces (load, link and cluster, analyse, rdf + publish, …)
     const stages: Record<string, number> = {};
@@ -31,7 +34,7 @@ const JOBS: Record<string, Job> = {
     sampler.unref();
     let r;
     try {
-      r = await build(project, out, { validate: v !== '0', progress });
+      r = await build(project, out, { validate: v !== '0', progress, gzip: gz === '1' });
       progress('');
       clearInterval(sampler);
     } catch (e) {
@@ -48,7 +51,16 @@ const JOBS: Record<string, Job> = {
       links: r.links.links.length,
       clusters: r.clustering.clusters.length,
       violations: r.publish.validation.violations,
+      ...Object.fromEntries(Object.entries(r.publish.encodeMs ?? {}).map(([f, ms]) => [`encode:${f}`, ms])),
     };
+  },
+  /** gzip <file>: the file through zlib's gzip (default level, as the build's copies) into /dev/null, timed. */
+  async gzip([file]) {
+    const t = performance.now();
+    let bytes = 0;
+    const gz = createGzip({ chunkSize: 1 << 16 }).on('data', (c: Buffer) => (bytes += c.length));
+    await pipeline(createReadStream(file, { highWaterMark: 1 << 20 }), gz, createWriteStream('/dev/null'));
+    return { ms: performance.now() - t, bytes };
   },
   /** whole <file.nq> [engine]: the release in one N3.Store, validated at once with the shipped shapes (default engine:
    *  rdf-validate-shacl, the reference the targets are measured against). */

@@ -153,7 +153,13 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
     await writeReports(dir, model, links, clustering, analysis, view.namer);
     await writeChanges(dir, history);
     await writeChecksums(dir, dumps.hashes);
-    const publish: PublishResult = { triples: dumps.triples, claims: units.claims(), validation, hashes: dumps.hashes };
+    const publish: PublishResult = {
+      triples: dumps.triples,
+      claims: units.claims(),
+      validation,
+      hashes: dumps.hashes,
+      encodeMs: dumps.encodeMs,
+    };
     return {
       outDir: path.resolve(outDir),
       model,

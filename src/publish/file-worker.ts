@@ -1,8 +1,11 @@
 // Worker thread: runs of release text (one per unit and format) → the release's RDF files, fanned out to the whole
-// release and each partner slice, written in large blocks and SHA-256-hashed on the way (FIPS 180-4).
+// release and each partner slice, written in large blocks, SHA-256-hashed on the way (FIPS 180-4) and, when asked,
+// gzip-compressed in the same pass (RFC 1952).
 import { parentPort, workerData } from 'node:worker_threads';
 import { closeSync, openSync, writeSync } from 'node:fs';
+import { once } from 'node:events';
 import { createHash, type Hash } from 'node:crypto';
+import { createGzip, type Gzip } from 'node:zlib';
 
 /** One dump format as the worker writes it: extension, the text that opens and closes a file, the text between runs. */
 export interface DumpFile {
@@ -21,6 +24,8 @@ export interface FileWorkerInit {
   formats: DumpFile[];
   /** Shared blocks the main thread fills with unit text (see {@link SlabRecords}). */
   slabs: SharedArrayBuffer[];
+  /** Extension of a gzip-compressed copy written beside every file (`.gz`), or null for none. */
+  gzip: string | null;
 }
 
 /**
@@ -45,17 +50,62 @@ export type FileWorkerReply =
 
 const BLOCK = 1 << 20;
 
-/** One output file: a reused block buffer, written synchronously (this thread does nothing else) and hashed. */
-class BlockFile {
+/**
+ * A gzip-compressed copy of one file, fed the file's bytes as they are written. Node's zlib writes a header with no
+ * file name and MTIME 0 (RFC 1952 §2.3.1: "no time stamp is available"), and deflate's output depends on the bytes
+ * alone, not on how they are split into writes, so the copy is byte-identical to compressing the finished file.
+ * Compression runs on the libuv thread pool while this thread goes on writing.
+ */
+class GzipCopy {
   private readonly fd: number;
-  private readonly buf = Buffer.allocUnsafeSlow(BLOCK);
-  private pos = 0;
   private readonly hash: Hash = createHash('sha256');
+  private readonly gz: Gzip = createGzip({ chunkSize: 1 << 16 });
+  private failure: Error | null = null;
+  private readonly ended: Promise<unknown>;
   constructor(
     readonly rel: string,
     file: string,
   ) {
     this.fd = openSync(file, 'w');
+    this.gz.on('data', (c: Buffer) => {
+      this.hash.update(c);
+      for (let off = 0; off < c.length;) off += writeSync(this.fd, c, off, c.length - off);
+    });
+    this.gz.on('error', (e) => (this.failure ??= e));
+    this.ended = once(this.gz, 'end');
+  }
+  /** Takes a copy of `b` (the caller reuses its buffers). */
+  write(b: Buffer): void {
+    this.gz.write(Buffer.from(b));
+  }
+  /** Resolves once what was written so far is compressed (bounds the memory held by pending blocks). */
+  async drained(): Promise<void> {
+    if (this.failure) throw this.failure;
+    if (this.gz.writableNeedDrain) await once(this.gz, 'drain');
+  }
+  async close(): Promise<[string, string]> {
+    this.gz.end();
+    await this.ended;
+    if (this.failure) throw this.failure;
+    closeSync(this.fd);
+    return [this.rel, this.hash.digest('hex')];
+  }
+}
+
+/** One output file: a reused block buffer, written synchronously, hashed, and copied to its gzip stream if any. */
+class BlockFile {
+  private readonly fd: number;
+  private readonly buf = Buffer.allocUnsafeSlow(BLOCK);
+  private pos = 0;
+  private readonly hash: Hash = createHash('sha256');
+  readonly gz: GzipCopy | null;
+  constructor(
+    readonly rel: string,
+    file: string,
+    gzip: string | null,
+  ) {
+    this.fd = openSync(file, 'w');
+    this.gz = gzip === null ? null : new GzipCopy(rel + gzip, file + gzip);
   }
   put(b: Buffer): void {
     if (this.pos + b.length > BLOCK) this.flush();
@@ -65,15 +115,18 @@ class BlockFile {
   private out(b: Buffer): void {
     this.hash.update(b);
     for (let off = 0; off < b.length;) off += writeSync(this.fd, b, off, b.length - off);
+    this.gz?.write(b);
   }
   private flush(): void {
     if (this.pos) this.out(this.buf.subarray(0, this.pos));
     this.pos = 0;
   }
-  close(): [string, string] {
+  /** Closes the file and its gzip copy; their hashes (relative path → hex). */
+  async close(): Promise<[string, string][]> {
     this.flush();
     closeSync(this.fd);
-    return [this.rel, this.hash.digest('hex')];
+    const own: [string, string] = [this.rel, this.hash.digest('hex')];
+    return this.gz ? [own, await this.gz.close()] : [own];
   }
 }
 
@@ -91,7 +144,7 @@ const formats = init.formats.map((f) => ({
 }));
 const targets: Output[][] = init.targets.map(([rel, abs]) =>
   init.formats.map((f, i) => {
-    const file = new BlockFile(`${rel}${f.extension}`, `${abs}${f.extension}`);
+    const file = new BlockFile(`${rel}${f.extension}`, `${abs}${f.extension}`, init.gzip);
     if (formats[i].head.length) file.put(formats[i].head);
     return { file, first: true };
   }),
@@ -134,25 +187,32 @@ function writeBytes(texts: (Buffer | null)[], to: number[]): void {
   }
 }
 
-function close(): [string, string][] {
+async function close(): Promise<[string, string][]> {
   const hashes: [string, string][] = [];
   for (const t of targets)
-    t.forEach((out, f) => {
+    for (const [f, out] of t.entries()) {
       if (formats[f].tail.length) out.file.put(formats[f].tail);
-      hashes.push(out.file.close());
-    });
+      hashes.push(...(await out.file.close()));
+    }
   return hashes;
 }
 
-parentPort!.on('message', (m: FileWorkerMessage) => {
+/** Waits until every gzip copy has compressed what it was given (a no-op without gzip). */
+async function drained(): Promise<void> {
+  for (const t of targets) for (const out of t) await out.file.gz?.drained();
+}
+
+async function handle(m: FileWorkerMessage): Promise<void> {
   try {
     if ('units' in m) {
       for (const u of m.units) writeUnit(u);
+      await drained();
       parentPort!.postMessage({ ack: true } satisfies FileWorkerReply);
     } else if ('slab' in m) {
       writeSlab(m.slab, m.records);
       parentPort!.postMessage({ ack: true, slab: m.slab } satisfies FileWorkerReply);
-    } else parentPort!.postMessage({ hashes: close() } satisfies FileWorkerReply);
+      await drained();
+    } else parentPort!.postMessage({ hashes: await close() } satisfies FileWorkerReply);
   } catch (e) {
     const { code, syscall, path } = (e ?? {}) as NodeJS.ErrnoException; // an OS error keeps its errno for the message
     parentPort!.postMessage({
@@ -162,4 +222,10 @@ parentPort!.on('message', (m: FileWorkerMessage) => {
       path,
     } satisfies FileWorkerReply);
   }
+}
+
+// messages are handled one after the other: a later one waits until the gzip copies have taken the earlier one's bytes
+let queue = Promise.resolve();
+parentPort!.on('message', (m: FileWorkerMessage) => {
+  queue = queue.then(() => handle(m));
 });

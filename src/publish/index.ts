@@ -11,10 +11,10 @@ import { progress } from '../util/progress.js';
 import { writeQuads } from '../rdf/serialize.js';
 import type { ValidationOutcome } from '../validate/shacl.js';
 import { ReleaseWriter } from './rdf-files.js';
-import { gzipCopies } from './compress.js';
 import { nn, typed } from '../rdf/terms.js';
 import { iri } from '../namespaces.js';
 import { TEMP_MARKER } from '../io/atomic.js';
+import { DUMP_FORMATS, type FormatName } from '../rdf/formats.js';
 
 export interface PublishResult {
   triples: number;
@@ -23,18 +23,22 @@ export interface PublishResult {
   validation: ValidationOutcome;
   /** SHA-256 (hex) of the RDF files written, by path relative to the release folder (for {@link writeChecksums}). */
   hashes: Map<string, string>;
+  /** Milliseconds spent making each dump format's text (see {@link DumpsWritten}). */
+  encodeMs?: Partial<Record<FormatName, number>>;
 }
 
 /** What writing the dumps gives back: triples written, and SHA-256 (hex) of the RDF files by relative path. */
 export interface DumpsWritten {
   triples: number;
   hashes: Map<string, string>;
+  /** Milliseconds spent making each dump format's text on the main thread (the bench reports them). */
+  encodeMs: Partial<Record<FormatName, number>>;
 }
 
 /**
  * Writes concordance.{ttl,nq,jsonld}, partners/<key>.{ttl,nq,jsonld} (unless the project turns slices off) and
  * dataset.ttl (the last unit, the dataset description, with each file's dcat:byteSize) into `dir` (design, "Outputs"),
- * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it.
+ * one unit at a time; with `release.compress` "gzip", a `.gz` copy of every dump beside it, written in the same pass.
  * `size` is the number of units, for the progress bar named `label`.
  */
 export async function writeDumps(
@@ -47,6 +51,7 @@ export async function writeDumps(
   const writer = new ReleaseWriter(
     dir,
     model.project.release.partnerDumps === false ? null : model.project.partners.map((p) => p.key),
+    model.project.release.compress === 'gzip' ? 'gzip' : null,
   );
   const bar = progress(label, size, 'units');
   let done = 0;
@@ -65,13 +70,12 @@ export async function writeDumps(
   } finally {
     bar.stop();
   }
-  if (model.project.release.compress === 'gzip')
-    for (const [f, h] of await gzipCopies(dir, [...hashes.keys()].sort())) hashes.set(f, h);
   await writeQuads(path.join(dir, 'dataset.ttl'), 'turtle', [
     ...datasetQuads,
     ...(await byteSizes(dir, datasetQuads, [...hashes.keys()])),
   ]);
-  return { triples: writer.triples, hashes };
+  const encodeMs = Object.fromEntries(DUMP_FORMATS.map((f, i) => [f, writer.encodeMs[i]]));
+  return { triples: writer.triples, hashes, encodeMs };
 }
 
 /**

@@ -1,9 +1,18 @@
 // Units of quads → the release's RDF files (whole and per partner, Turtle / N-Quads / JSON-LD).
 import { mkdirSync } from 'node:fs';
 import { Worker } from 'node:worker_threads';
+import { performance } from 'node:perf_hooks';
 import path from 'node:path';
 import { TurtleEncoder, nquadsText, turtlePrefixes } from '../rdf/text.js';
-import { DUMP_FORMATS, FORMATS, prefixMap, type FormatInfo, type WriterKind } from '../rdf/formats.js';
+import {
+  COMPRESSIONS,
+  DUMP_FORMATS,
+  FORMATS,
+  prefixMap,
+  type Compression,
+  type FormatInfo,
+  type WriterKind,
+} from '../rdf/formats.js';
 import type { Unit } from '../rdf/index.js';
 import { JsonLdFile, unitText } from './jsonld.js';
 import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
@@ -40,7 +49,8 @@ const ENCODERS: Record<WriterKind, (info: FormatInfo, prefixes: Record<string, s
 /**
  * The release's RDF writers: `concordance.*` and `partners/<key>.*`. Each unit is turned into Turtle, N-Quads and
  * JSON-LD text once on this thread and its UTF-8 bytes put into a shared block; a worker thread (file-worker.ts)
- * copies them to the whole release and to the slice of every partner the unit touches, hashing each file as it goes.
+ * copies them to the whole release and to the slice of every partner the unit touches, hashing each file as it goes
+ * and, with a compression, writing each file's compressed copy in the same pass.
  */
 export class ReleaseWriter {
   private encoders: DumpEncoder[];
@@ -57,10 +67,20 @@ export class ReleaseWriter {
   private hashes: Map<string, string> | undefined;
   private readonly all: number[];
   triples = 0;
+  /** Milliseconds spent making each dump format's text (in {@link DUMP_FORMATS} order), for the bench. */
+  readonly encodeMs: number[] = DUMP_FORMATS.map(() => 0);
   /** Whether units are also copied to per-partner slices. */
   private readonly slices: boolean;
-  /** `partnerKeys` null: only the whole release is written (project setting release.partnerDumps false). */
-  constructor(dir: string, partnerKeys: string[] | null, prefixes: Record<string, string> = prefixMap()) {
+  /**
+   * `partnerKeys` null: only the whole release is written (project setting release.partnerDumps false);
+   * `compression`: also a compressed copy of every file (project setting release.compress).
+   */
+  constructor(
+    dir: string,
+    partnerKeys: string[] | null,
+    compression: Compression | null = null,
+    prefixes: Record<string, string> = prefixMap(),
+  ) {
     this.slices = partnerKeys !== null;
     if (partnerKeys) mkdirSync(path.join(dir, 'partners'), { recursive: true });
     this.encoders = DUMP_FORMATS.map((f) => ENCODERS[FORMATS[f].writer!](FORMATS[f], prefixes));
@@ -77,6 +97,7 @@ export class ReleaseWriter {
         separator: this.encoders[i].separator,
       })),
       slabs: shared,
+      gzip: compression === 'gzip' ? COMPRESSIONS.gzip.extension : null,
     };
     this.all = stems.map((_, i) => i);
     this.worker = new Worker(new URL('./file-worker.js', import.meta.url), { workerData: init });
@@ -125,7 +146,12 @@ export class ReleaseWriter {
   }
   async add(unit: Unit): Promise<void> {
     this.triples += unit.quads.length;
-    const texts = this.encoders.map((e) => e.encode(unit));
+    const texts = this.encoders.map((e, i) => {
+      const t0 = performance.now();
+      const text = e.encode(unit);
+      this.encodeMs[i] += performance.now() - t0;
+      return text;
+    });
     const to =
       unit.partners === 'all' || !this.slices
         ? this.all
