@@ -311,6 +311,18 @@ for (const row of rows)
     row.then?.(out, check);
   });
 
+test('hostile input: a reader that closes the pipe early (check | head) ends check without a stack trace', () => {
+  const { file } = project({
+    name: '',
+    status: 0,
+    files: { 'evidence/run-1.csv': (t) => t + 'a:p1,b:p1,0.9,1\n'.repeat(20_000) },
+  });
+  const r = spawnSync('/bin/sh', ['-c', '"$0" "$1" check "$2" | head -c 100 >/dev/null', process.execPath, cli, file], {
+    encoding: 'utf8',
+  });
+  assert.equal(r.stderr, '');
+});
+
 // Reported done elsewhere (test/refusals.test.ts, test/os-errors.test.ts); confirmed here on the tiny project.
 test('confirmed: validate --report refuses to overwrite the release’s own Turtle', () => {
   const { dir, file } = project({ name: '', status: 0 });

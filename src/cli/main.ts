@@ -19,6 +19,13 @@ const program = new Command('concordat')
   .exitOverride()
   .showHelpAfterError('(add --help for usage)');
 
+// A reader that stops early (`concordat check … | head`) closes the pipe: stop quietly, as shell tools do, not with a
+// stack trace.
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code !== 'EPIPE') throw e;
+  process.exit(process.exitCode ?? 0);
+});
+
 for (const register of commands) register(program);
 
 try {
