@@ -31,17 +31,22 @@ const removeNow = (paths: string[]): void => {
     }
 };
 
+/** Passes after the first, 50 ms apart (common practice, no source: time for a queued write on a busy machine). */
+const REMOVE_PASSES = 4;
+
 /**
- * Removes every registered path, newest first. Twice: a file write already queued in libuv's thread pool (or a worker
- * thread's) can create its file just after the first pass, so the main thread blocks ~50 ms (no JS of the command runs
- * meanwhile) and removes again.
+ * Removes every registered path, newest first, then again after each of {@link REMOVE_PASSES} short waits: a file write
+ * already queued in libuv's thread pool (or a worker thread's) can create its file just after a pass, later still on a
+ * loaded machine, so the main thread blocks (no JS of the command runs meanwhile) and removes again, ~200 ms in all.
  */
 export function removeStarted(): string[] {
   const paths = [...started.values()].reverse();
   started.clear();
   removeNow(paths);
-  Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 50);
-  removeNow(paths);
+  for (let pass = 0; pass < REMOVE_PASSES; pass++) {
+    Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 50);
+    removeNow(paths);
+  }
   return paths;
 }
 
