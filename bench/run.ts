@@ -93,11 +93,8 @@ function parseArgs(argv: string[]): {
   };
 }
 
-/** Benchmarks one scale and prints its figures; returns the build time without validation. */
-async function benchScale(works: number, whole: boolean, keep: boolean, partnerDumps: boolean): Promise<number> {
-  const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
-  const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
-  console.log(`\n== ${works.toLocaleString('en')} works (${dir})`);
+/** The scale's synthetic project (3 + 2·log10(works) partners, at most 25; one seed), timed and summarised. */
+async function generateTimed(dir: string, works: number, partnerDumps: boolean, say: (k: string, v: string) => void) {
   const tg = performance.now();
   const gen = await generateProject(path.join(dir, 'project'), {
     works,
@@ -109,6 +106,15 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
     'generate',
     `${s(performance.now() - tg)}: ${gen.images} images, ${gen.evidenceRows} evidence rows, ${gen.decisions} decisions`,
   );
+  return gen;
+}
+
+/** Benchmarks one scale and prints its figures; returns the build time without validation. */
+async function benchScale(works: number, whole: boolean, keep: boolean, partnerDumps: boolean): Promise<number> {
+  const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
+  const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
+  console.log(`\n== ${works.toLocaleString('en')} works (${dir})`);
+  const gen = await generateTimed(dir, works, partnerDumps, say);
 
   const nv = child('build', [gen.projectFile, path.join(dir, 'release-nv'), '0']);
   if (!nv.out) {
@@ -236,17 +242,7 @@ async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean
   const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
   const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
   console.log(`\n== ${works.toLocaleString('en')} works, build with the SHACL gate only (${dir})`);
-  const tg = performance.now();
-  const gen = await generateProject(path.join(dir, 'project'), {
-    works,
-    partners: Math.min(25, 3 + Math.floor(Math.log10(works) * 2)),
-    seed: 20261004,
-    partnerDumps,
-  });
-  say(
-    'generate',
-    `${s(performance.now() - tg)}: ${gen.images} images, ${gen.evidenceRows} evidence rows, ${gen.decisions} decisions`,
-  );
+  const gen = await generateTimed(dir, works, partnerDumps, say);
   const full = child('build', [gen.projectFile, path.join(dir, 'release'), '1']);
   if (!full.out) {
     say('build with SHACL', `FAILED after ${s(full.wallMs)} (peak ${mib(full.peakKiB)}): ${full.error}`);
