@@ -58,7 +58,7 @@ export function register(program: Command): void {
         const others = r.model.warnings.length - unfilled.length;
         if (others > 0)
           process.stderr.write(
-            `concordat: ${others} more warning(s) about the inputs; \`concordat check\` lists them\n`,
+            `concordat: ${others}${unfilled.length ? ' more' : ''} warning(s) about the inputs; \`concordat check\` lists them\n`,
           );
         const s = releaseSummary(r);
         process.stdout.write(
