@@ -46,12 +46,15 @@ export class SearchIndex {
     }
   }
 
-  /** Writes `search/<prefix>.json`: `{ token: [[id, title, archive, href], …] }`, tokens and records sorted. */
-  finish(dir: string): void {
+  /**
+   * Writes `search/<prefix>.json`: `{ token: [[id, title, archive, href], …] }`, tokens and records sorted; `read`
+   * gives a spool bucket's records (by default this index's own spool; the site joins the spools of all its parts).
+   */
+  finish(dir: string, read: (bucket: string) => string[][] = (b) => this.spool.read(b)): void {
     mkdirSync(path.join(dir, 'search'), { recursive: true });
     const keys: string[] = [];
     for (const first of '_0123456789abcdefghijklmnopqrstuvwxyz') {
-      const rows = this.spool.read(`search-${first}`) as string[][];
+      const rows = read(`search-${first}`);
       const shards = new Map<string, Map<string, string[][]>>();
       for (const [t, ...rest] of rows) {
         const key = shardOf(t);
