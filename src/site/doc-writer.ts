@@ -5,7 +5,7 @@ import { Worker } from 'node:worker_threads';
 import type { WriteMessage, WriteReply } from './write-worker.js';
 import type { JsonLd } from './jsonld.js';
 
-/** Characters of document text per batch handed to the writer thread, and batches in flight before reading waits. */
+/** Bytes of document text per batch handed to the writer thread, and batches in flight before reading waits. */
 const BATCH = 4 << 20;
 const IN_FLIGHT = 8;
 
@@ -15,7 +15,10 @@ const IN_FLIGHT = 8;
  */
 export class DocWriter {
   documents = 0;
-  private batch: [string, string][] = [];
+  private paths: string[] = [];
+  /** Each file's end in `bytes` (it starts where the one before ends). */
+  private ends: number[] = [];
+  private bytes = Buffer.allocUnsafeSlow(BATCH);
   private size = 0;
   private inFlight = 0;
   private failure: Error | null = null;
@@ -54,16 +57,33 @@ export class DocWriter {
   write(doc: string, nt: string, jsonNodes: string[], htmlText: string): void {
     const f = path.join(this.dir, ...doc.split('/'));
     const json = this.jsonld.document(jsonNodes);
-    this.batch.push([`${f}.ttl`, nt], [`${f}.jsonld`, json], [`${f}.html`, htmlText]);
-    this.size += nt.length + json.length + htmlText.length;
+    this.add(`${f}.ttl`, nt);
+    this.add(`${f}.jsonld`, json);
+    this.add(`${f}.html`, htmlText);
     this.documents++;
-    if (this.size >= BATCH) this.post();
+  }
+  /**
+   * A file's text encoded as UTF-8 into the batch's own buffer, which is then moved to the writer thread (transferred,
+   * not copied): no copy of the text in the message, no encoding on the writer's side.
+   */
+  private add(file: string, text: string) {
+    const worst = text.length * 3; // UTF-8 bytes per UTF-16 code unit, at most
+    if (this.size + worst > this.bytes.length) {
+      this.post();
+      if (worst > this.bytes.length) this.bytes = Buffer.allocUnsafeSlow(worst);
+    }
+    this.size += this.bytes.write(text, this.size);
+    this.paths.push(file);
+    this.ends.push(this.size);
   }
   private post() {
-    if (!this.batch.length) return;
-    this.worker.postMessage({ files: this.batch } satisfies WriteMessage);
+    if (!this.paths.length) return;
+    const { buffer } = this.bytes;
+    this.worker.postMessage({ paths: this.paths, ends: this.ends, bytes: buffer } satisfies WriteMessage, [buffer]);
     this.inFlight++;
-    this.batch = [];
+    this.paths = [];
+    this.ends = [];
+    this.bytes = Buffer.allocUnsafeSlow(BATCH);
     this.size = 0;
   }
   /** A promise while too many batches wait for the writer (the reader pauses), else undefined. */
