@@ -23,6 +23,7 @@ import { SiteContext, V } from './context.js';
 import { shardWidth, type ShardWidths } from './routes.js';
 import { serverRules } from './rules.js';
 import { readEarlierSite } from './carry.js';
+import { writeSearchPrefixes } from './search.js';
 import type { PartSetup } from './part.js';
 import type { PartMessage, PartReply } from './part-worker.js';
 
@@ -133,6 +134,7 @@ export async function writeSite(
       // every part reads the whole release before any writes shard documents from the spools of all
       await Promise.all(workers.map((w) => w.run('stream')));
       const documents = (await Promise.all(workers.map((w) => w.run('shards')))).reduce((a, b) => a + b, 0);
+      writeSearchPrefixes(dir);
       const downloads = path.join(dir, 'releases', info.version);
       for (const f of info.files) {
         if (!f.file) continue;

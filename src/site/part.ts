@@ -225,8 +225,8 @@ export class SitePart {
   }
 
   /**
-   * After every part has streamed: this part's share of the shard documents, read from the spools of all parts; part 0
-   * then writes search, carries over the earlier site's documents and writes the static pages.
+   * After every part has streamed: this part's share of the shard documents and of search, read from the spools of all
+   * parts; part 0 then carries over the earlier site's documents and writes the static pages.
    */
   async shards(): Promise<void> {
     const { info, docs } = this;
@@ -271,8 +271,8 @@ ${rs.map((r) => new Safe(r[3]))}`
       }
     }
     await docs.close();
+    this.search.finish(dir, read, part, parts);
     if (part === 0) {
-      this.search.finish(dir, read);
       if (this.earlier) carryDocuments(this.earlier, dir);
       writeStaticPages(this.ctx, dir, this.own);
     }
