@@ -27,7 +27,7 @@ import type { ShaclEngine } from './validate/shacl.js';
 export interface BuildOptions {
   shapesDir?: string;
   workers?: number;
-  /** Quads per SHACL batch (smaller = flatter memory; default 20 000). */
+  /** Own triples per SHACL batch, at most (smaller = flatter memory; default 100 000). */
   validationBatch?: number;
   /** SHACL engine (default: the built-in core engine). */
   shaclEngine?: ShaclEngine;
@@ -125,6 +125,7 @@ export async function build(projectFile: string, outDir: string, opts: BuildOpti
       validate: validating,
       workers: opts.workers,
       batchTriples: opts.validationBatch,
+      units: units.size,
       shapesLabel: 'shapes',
       engine: opts.shaclEngine,
     });

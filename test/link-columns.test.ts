@@ -13,6 +13,9 @@ type SameKeys = [keyof Link] extends [keyof LinkValues]
   : never;
 const sameKeys: SameKeys = true;
 
+/** Images of works 0…9 (coverages are a count of a work's images over these). */
+const images = Int32Array.from([3, 2, 2, 4, 1, 5, 2, 3, 1, 6]);
+
 const values: LinkValues[] = [
   {
     a: 0,
@@ -98,7 +101,7 @@ const values: LinkValues[] = [
 
 test('every field comes back as stored; equal run lists are shared', () => {
   assert.equal(sameKeys, true);
-  const c = linkColumns(values.length);
+  const c = linkColumns(values.length, images);
   values.forEach((v, i) => c.set(i, v));
   const links = c.records();
   assert.deepEqual(
@@ -112,7 +115,7 @@ test('every field comes back as stored; equal run lists are shared', () => {
 });
 
 test('status changes and holds are seen through the records', () => {
-  const c = linkColumns(values.length);
+  const c = linkColumns(values.length, images);
   values.forEach((v, i) => c.set(i, v));
   const links = c.records();
   c.setStatus(1, 'confirmed');
@@ -120,4 +123,15 @@ test('status changes and holds are seen through the records', () => {
   assert.equal(links[1].status, 'confirmed');
   assert.equal(c.statusOf(0), 'candidate');
   assert.deepEqual([links[0].status, links[0].held], ['candidate', 'indiscriminate']);
+});
+
+test('a coverage comes back as the very double it was stored as (k of n images, n up to 400)', () => {
+  const n = 400;
+  const counts = Int32Array.from({ length: n + 1 }, (_, w) => w);
+  for (let w = 1; w <= n; w++) {
+    const c = linkColumns(w + 1, counts);
+    for (let k = 0; k <= w; k++) c.set(k, { ...values[0], a: w, b: k === 0 ? 1 : k, coverageA: k / w, coverageB: 0 });
+    const links = c.records();
+    for (let k = 0; k <= w; k++) assert.ok(Object.is(links[k].coverageA, k / w), `${k}/${w}`);
+  }
 });

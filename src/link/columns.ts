@@ -80,6 +80,23 @@ const optionalOneOf = <T>(values: readonly T[]): Codec<T | undefined, Uint8Array
       return x === 0 ? undefined : values[x - 1];
     },
 });
+/**
+ * One end's share of its work's images (coverageA/B), stored as the number of images it was computed from (4 bytes,
+ * not 8): read back as that number over the work's image count, the very division that made it, so the same double.
+ */
+const share = (end: 'a' | 'b'): Codec<number, Int32ArrayConstructor> => ({
+  array: Int32Array,
+  writer: (col, name, c) => (i, v) => {
+    col[i] = Math.round((v[name] as number) * c.imageCount[v[end] as number]);
+  },
+  getter: (col, c) => {
+    const ends = c[end];
+    const images = c.imageCount;
+    return function () {
+      return col[this.i] / images[ends[this.i]];
+    };
+  },
+});
 /** A run list, stored as its index in the columns' shared `runLists`. */
 const runList: Codec<readonly number[], Int32ArrayConstructor> = {
   array: Int32Array,
@@ -107,8 +124,8 @@ const FIELDS = {
   confidence: float,
   setAside: int,
   held: optionalOneOf<HeldReason>(HELD_REASONS),
-  coverageA: float,
-  coverageB: float,
+  coverageA: share('a'),
+  coverageB: share('b'),
   runs: runList,
   decision: optional,
   matchStart: int,
@@ -126,9 +143,9 @@ type Columns = { readonly [K in Field]: InstanceType<Fields[K]['array']> };
 /** Fixed-size columns for `size` links: one typed array per field (see FIELDS), and what is shared between links. */
 export type LinkColumns = ColumnSet & Columns;
 
-/** Columns for `size` links, all zero. */
-export function linkColumns(size: number): LinkColumns {
-  const c = new ColumnSet(size) as ColumnSet & Record<Field, Stored>;
+/** Columns for `size` links, all zero; `imageCount[w]`: work w's images (see `share`). */
+export function linkColumns(size: number, imageCount: Int32Array): LinkColumns {
+  const c = new ColumnSet(size, imageCount) as ColumnSet & Record<Field, Stored>;
   for (const name of NAMES) c[name] = new FIELDS[name].array(size);
   return c as LinkColumns;
 }
@@ -142,7 +159,10 @@ class ColumnSet {
   private readonly runListIndex = new Map<string, number>();
   private writers: ((i: number, values: Record<string, unknown>) => void)[] | undefined;
 
-  constructor(readonly size: number) {}
+  constructor(
+    readonly size: number,
+    readonly imageCount: Int32Array,
+  ) {}
 
   /** Stores link `i`. */
   set(this: LinkColumns, i: number, v: LinkValues): void {

@@ -81,7 +81,10 @@ export function link(
   for (let g = 0; g < groups; g++) if (decided.has(groupKey(g))) evidenced.add(groupKey(g));
   const decisionOnly = [...decided.keys()].filter((k) => !evidenced.has(k)).sort((p, q) => p - q);
 
-  const columns = linkColumns(groups + decisionOnly.length);
+  const columns = linkColumns(
+    groups + decisionOnly.length,
+    Int32Array.from(model.works, (w) => w.imageCount),
+  );
   const scratch: Scratch = { discBest: new Float64Array(columns.size), photos: new Int32Array(columns.size) };
   const make = (a: number, b: number, start: number, count: number, decision: number | undefined) =>
     makeLink(model, policy, evidence.setAside, a, b, matchRows, start, count, decision, scratch, n);
@@ -122,8 +125,17 @@ export function link(
     duplicates,
     matchRows: matchRows.slice(0, kept),
     evidence,
-    hold: (i, reason) => columns.hold(i, reason),
+    hold: holder(columns),
   };
+}
+
+/**
+ * `LinkSet.hold` over the columns, made outside `link` on purpose: a closure made inside it would share the scope V8
+ * keeps for `link`'s other closures, holding the link stage's scratch arrays (row order, pair columns, the untrimmed
+ * row list: ≈ 40 bytes per evidence row) for as long as the link set lives.
+ */
+function holder(columns: LinkColumns): LinkSet['hold'] {
+  return (i, reason) => columns.hold(i, reason);
 }
 
 /**

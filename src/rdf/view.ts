@@ -8,10 +8,10 @@ import { Namer } from './index.js';
 
 export interface ClusterView {
   id: string;
-  /** Work numbers, sorted by reference. */
-  members: number[];
-  /** Indices into LinkSet.links of the links whose both ends are members. */
-  links: number[];
+  /** Work numbers, sorted by reference (the clustering's own array, shared: read only). */
+  members: Int32Array;
+  /** Indices into LinkSet.links of the links whose both ends are members (the clustering's array, read only). */
+  links: Int32Array;
   /** Link indices whose removal splits the cluster. */
   bridges: number[];
   implied: { a: number; b: number; throughThirdArchive: boolean }[];
@@ -57,15 +57,15 @@ export function releaseView(
 function clusterViews(clustering: Clustering, analysis?: Analysis): ClusterView[] {
   const views: ClusterView[] = clustering.clusters.map((c) => ({
     id: c.id,
-    members: Array.from(c.members),
-    links: Array.from(c.links),
+    members: c.members,
+    links: c.links,
     bridges: [],
     implied: [],
     conflicts: [],
     oversized: c.oversized,
   }));
   const bridgeSet = new Set(clustering.bridges);
-  for (const v of views) v.bridges = v.links.filter((l) => bridgeSet.has(l));
+  for (const v of views) for (const l of v.links) if (bridgeSet.has(l)) v.bridges.push(l);
   const im = clustering.implied;
   for (let i = 0; i < im.count; i++)
     views[im.cluster[i]].implied.push({ a: im.a[i], b: im.b[i], throughThirdArchive: im.throughThird[i] === 1 });

@@ -10,13 +10,23 @@ export interface ShaclGate {
   outcome(): Promise<ValidationOutcome>;
 }
 
+/** Options of the gate: bounded validation's, and `units`, how many units will pass (when known). */
+export interface GateOptions extends BoundedOptions {
+  validate?: boolean;
+  /**
+   * Units the stream will yield in all: with it, the spill is sized for the triples the whole stream will bring
+   * (triples per unit so far × units), see BoundedOptions.expectedTriples.
+   */
+  units?: number;
+}
+
 /**
  * Validates exactly the triples of the units that pass (the published release) with the shapes, with the outcome of
  * validating them as one graph (SHACL §3; see BoundedValidation); `validate: false` passes units on unvalidated and
  * gives an empty outcome. Triples are spilled as they pass, so memory stays bounded; validation runs once the stream
  * has ended. When the reader of `pass` stops early, the spill folder is removed.
  */
-export function shaclGate(shapes: Quad[], opts: BoundedOptions & { validate?: boolean } = {}): ShaclGate {
+export function shaclGate(shapes: Quad[], opts: GateOptions = {}): ShaclGate {
   if (opts.validate === false) {
     return {
       async *pass(units) {
@@ -25,12 +35,21 @@ export function shaclGate(shapes: Quad[], opts: BoundedOptions & { validate?: bo
       outcome: async () => outcomeOf([]),
     };
   }
-  const run = new BoundedValidation(shapes, { dataLabel: 'the release', ...opts });
+  let seenUnits = 0;
+  let seenTriples = 0;
+  const total = opts.units;
+  const expectedTriples =
+    opts.expectedTriples ??
+    (total === undefined ? undefined : () => (seenTriples / Math.max(1, seenUnits)) * Math.max(total, seenUnits));
+  const run = new BoundedValidation(shapes, { dataLabel: 'the release', ...opts, expectedTriples });
   let ended = false;
   return {
     async *pass(units) {
       try {
         for await (const unit of units) {
+          // counted before its triples go in, so the estimate made when spilling starts sees whole units
+          seenUnits++;
+          seenTriples += unit.quads.length;
           for (const q of unit.quads) run.add(q);
           yield unit;
         }

@@ -51,15 +51,35 @@ class Appender {
   }
 }
 
-/** Reads a JSON-lines file written by {@link Appender} (each line an array) into arrays; a missing file is empty.
- *  With `distinct`, repeated lines are read once. */
-export function readLines<T>(file: string, distinct = false): T[] {
-  if (!existsSync(file)) return [];
+/**
+ * Passes each line of a JSON-lines file written by {@link Appender} (each line an array) to `fn`, parsed, in file
+ * order; a missing file has none. With `distinct`, a repeated line is passed once. Lines are parsed one at a time, so
+ * besides the file's text only the current line's values are held (parsing the whole file as one array held the text
+ * three times over and every line's array at once).
+ */
+export function eachLine<T>(file: string, fn: (value: T) => void, distinct = false): void {
+  if (!existsSync(file)) return;
   const text = readFileSync(file, 'utf8');
-  if (text.length === 0) return [];
+  const seen = distinct ? new Set<string>() : null;
   // raw newlines only separate lines: JSON escapes those inside strings
-  const body = distinct ? [...new Set(text.slice(0, -1).split('\n'))].join(',') : text.slice(0, -1).replace(/\n/g, ',');
-  return JSON.parse(`[${body}]`) as T[];
+  for (let start = 0; start < text.length;) {
+    let end = text.indexOf('\n', start);
+    if (end < 0) end = text.length;
+    const line = text.slice(start, end);
+    start = end + 1;
+    if (seen) {
+      if (seen.has(line)) continue;
+      seen.add(line);
+    }
+    fn(JSON.parse(line) as T);
+  }
+}
+
+/** The lines of a JSON-lines file as an array (see {@link eachLine}). */
+export function readLines<T>(file: string, distinct = false): T[] {
+  const out: T[] = [];
+  eachLine<T>(file, (value) => out.push(value), distinct);
+  return out;
 }
 
 /** Requests remembered to skip repeats (common practice, no source: a bounded set, cleared when full). */
@@ -159,9 +179,8 @@ export class Spill {
         if (requests.length === 0) continue;
         const bySubject = new Map<string, Triple[]>();
         const byObject = new Map<string, Triple[]>();
-        for (const t of readLines<Triple>(this.file(this.deeperOut === 'all' ? 'own' : 'look', c)))
-          push(bySubject, t[0], t);
-        if (level.in.size > 0) for (const t of readLines<Triple>(this.file('inv', c))) push(byObject, t[2], t);
+        eachLine<Triple>(this.file(this.deeperOut === 'all' ? 'own' : 'look', c), (t) => push(bySubject, t[0], t));
+        if (level.in.size > 0) eachLine<Triple>(this.file('inv', c), (t) => push(byObject, t[2], t));
         const answered = new Set<string>();
         for (const [n, b] of requests) {
           const key = `${b} ${n}`;
