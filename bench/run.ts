@@ -77,6 +77,7 @@ function parseArgs(argv: string[]): {
   keep: boolean;
   partnerDumps: boolean;
   gateOnly: boolean;
+  withSite: boolean;
 } {
   // 16,500 works give a release of about 1M triples: the scale at which the SHACL target is compared with
   // rdf-validate-shacl over the whole graph (which needs ~2–3 GB per 1M triples and cannot take the larger releases)
@@ -90,6 +91,7 @@ function parseArgs(argv: string[]): {
     keep: argv.includes('--keep'),
     partnerDumps: !argv.includes('--no-partner-dumps'),
     gateOnly: argv.includes('--gate-only'),
+    withSite: argv.includes('--with-site'),
   };
 }
 
@@ -190,25 +192,7 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
       : `FAILED: ${v.error}`,
   );
 
-  // the release as a static site (target: written in no more than the build's own time, at most 1.5× its bytes)
-  const site = child('site', [path.join(dir, 'release'), path.join(dir, 'site')]);
-  if (site.out) {
-    const rel = Number(
-      spawnSync('du', ['-sb', '--apparent-size', path.join(dir, 'release')], { encoding: 'utf8' }).stdout.split(
-        '\t',
-      )[0],
-    );
-    say(
-      'site: time / peak RSS',
-      `${s(site.out.ms)} (CPU ${s(site.cpuMs)}) / ${mib(site.peakKiB)}: ${site.out.documents} documents, ${site.out.files} files`,
-    );
-    say('RATIO site time / build time (with SHACL)', `${(site.out.ms / fullMs).toFixed(2)}×  (target: ≤ 1×)`);
-    say(
-      'RATIO site bytes / release bytes',
-      `${(site.out.bytes / rel).toFixed(2)}× (${(site.out.bytes / 2 ** 30).toFixed(2)} GiB, downloads hard-linked and not counted)  (target: ≤ 1.5×)`,
-    );
-  } else say('site', `FAILED after ${s(site.wallMs)}: ${site.error}`);
-  if (!keep) rmSync(path.join(dir, 'site'), { recursive: true, force: true });
+  measureSite(dir, fullMs, full.cpuMs, say, keep);
 
   if (whole) {
     const w = child('whole', [nq, 'rdf-validate-shacl']);
@@ -235,10 +219,44 @@ async function benchScale(works: number, whole: boolean, keep: boolean, partnerD
 }
 
 /**
+ * The release in `<dir>/release` as a static site (`child.js site`, default threads), against the build with SHACL
+ * (target: written in no more than the build's own time, at most 1.5× the release's bytes).
+ */
+function measureSite(
+  dir: string,
+  buildMs: number,
+  buildCpuMs: number,
+  say: (k: string, v: string) => void,
+  keep: boolean,
+): void {
+  const site = child('site', [path.join(dir, 'release'), path.join(dir, 'site')]);
+  if (site.out) {
+    const rel = Number(
+      spawnSync('du', ['-sb', '--apparent-size', path.join(dir, 'release')], { encoding: 'utf8' }).stdout.split(
+        '\t',
+      )[0],
+    );
+    say(
+      'site: time / peak RSS',
+      `${s(site.out.ms)} (process ${s(site.wallMs)}, CPU ${s(site.cpuMs)}) / ${mib(site.peakKiB)}: ${site.out.documents} documents, ${site.out.files} files`,
+    );
+    say(
+      'RATIO site time / build time (with SHACL)',
+      `${(site.out.ms / buildMs).toFixed(2)}× wall, ${(site.cpuMs / buildCpuMs).toFixed(2)}× CPU  (target: ≤ 1×)`,
+    );
+    say(
+      'RATIO site bytes / release bytes',
+      `${(site.out.bytes / rel).toFixed(2)}× (${(site.out.bytes / 2 ** 30).toFixed(2)} GiB, downloads hard-linked and not counted)  (target: ≤ 1.5×)`,
+    );
+  } else say('site', `FAILED after ${s(site.wallMs)}: ${site.error}`);
+  if (!keep) rmSync(path.join(dir, 'site'), { recursive: true, force: true });
+}
+
+/**
  * `--gate-only`: only the build as `concordat build` runs it by default (SHACL gate on): time, CPU, peak RSS, stages
  * and sampled RSS per stage; returns its time. For the largest scales, where the other jobs would take as long again.
  */
-async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean): Promise<number> {
+async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean, withSite: boolean): Promise<number> {
   const dir = mkdtempSync(path.join(os.tmpdir(), `concordat-bench-${works}-`));
   const say = (k: string, v: string) => console.log(`  ${k.padEnd(40)} ${v}`);
   console.log(`\n== ${works.toLocaleString('en')} works, build with the SHACL gate only (${dir})`);
@@ -269,6 +287,7 @@ async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean
       .join(', '),
   );
   say('  output', `${o.triples} triples, ${o.evidenceRows} evidence rows`);
+  if (withSite) measureSite(dir, o.ms, full.cpuMs, say, keep);
   if (!keep) rmSync(dir, { recursive: true, force: true });
   return o.ms;
 }
@@ -276,7 +295,7 @@ async function gateOnlyScale(works: number, partnerDumps: boolean, keep: boolean
 /** Largest scale whose whole graph is validated at once for the reference (≈ 1.2M triples). */
 const WHOLE_GRAPH_MAX_WORKS = 20_000;
 
-const { scales, whole, keep, partnerDumps, gateOnly } = parseArgs(process.argv.slice(2));
+const { scales, whole, keep, partnerDumps, gateOnly, withSite } = parseArgs(process.argv.slice(2));
 console.log(
   `concordat bench: ${os.cpus().length} CPUs (${os.cpus()[0]?.model ?? '?'}), ${(os.totalmem() / 2 ** 30).toFixed(0)} GiB, node ${process.version}, load average ${os.loadavg()[0].toFixed(1)} at start`,
 );
@@ -287,7 +306,7 @@ for (const n of scales)
   times.set(
     n,
     gateOnly
-      ? await gateOnlyScale(n, partnerDumps, keep)
+      ? await gateOnlyScale(n, partnerDumps, keep, withSite)
       : await benchScale(n, whole && n <= WHOLE_GRAPH_MAX_WORKS, keep, partnerDumps),
   );
 if (times.has(100_000) && times.has(1_000_000))

@@ -136,6 +136,10 @@ test('revision: a proposed link confirmed in release 2 is a revision of its rele
   assert.deepEqual(objects(s2, l, P('prov', 'wasRevisionOf')), [`${l}/v/1`]);
   assert.deepEqual(objects(s2, `${l}/v/1`, P('cx', 'relation')), [iri('skos', 'closeMatch')]);
   assert.deepEqual(objects(s2, `${l}/v/1`, P('cx', 'status')), [iri('cx', 'Proposed')]);
+  // the earlier state keeps the confidence release 1 published for the link
+  const conf1 = objects(s1, l, P('cx', 'confidence'));
+  assert.equal(conf1.length, 1);
+  assert.deepEqual(objects(s2, `${l}/v/1`, P('cx', 'confidence')), conf1);
   assert.deepEqual(objects(s2, l, P('prov', 'wasInvalidatedBy')), []);
   const rejected = link('b:3', 'c:3');
   assert.deepEqual(objects(s2, rejected, P('cx', 'status')), [iri('cx', 'Rejected')]);

@@ -61,24 +61,30 @@ test('site: every statement of concordance.nq is in exactly one document (.ttl f
   assert.deepEqual([...got].sort(), [...want].sort());
 });
 
-test('site: same release → byte-identical site; an existing folder is never overwritten', async () => {
-  const d = await demoSitesOnce();
-  const again = path.join(d.tmp, 'site-again');
-  await writeSite(d.release2, again, { previous: d.site1 });
-  const digest = (dir: string) => {
-    const h = createHash('sha256');
-    const walk = (x: string) => {
-      for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
-        const p = path.join(x, e.name);
-        if (e.isDirectory()) walk(p);
-        else h.update(path.relative(dir, p) + '\0').update(readFileSync(p));
-      }
-    };
-    walk(dir);
-    return h.digest('hex');
+/** One digest of every file's path and bytes under a folder. */
+function digest(dir: string): string {
+  const h = createHash('sha256');
+  const walk = (x: string) => {
+    for (const e of readdirSync(x, { withFileTypes: true }).sort((a, b) => (a.name < b.name ? -1 : 1))) {
+      const p = path.join(x, e.name);
+      if (e.isDirectory()) walk(p);
+      else h.update(path.relative(dir, p) + '\0').update(readFileSync(p));
+    }
   };
-  assert.equal(digest(again), digest(d.site2));
-  await assert.rejects(writeSite(d.release2, again), /already exists/);
+  walk(dir);
+  return h.digest('hex');
+}
+
+test('site: same release → byte-identical site, written in 1, 2 or 3 threads; an existing folder is never overwritten', async () => {
+  const d = await demoSitesOnce();
+  const want = digest(d.site2);
+  for (const parts of [1, 2, 3]) {
+    const again = path.join(d.tmp, `site-again-${parts}`);
+    const s = await writeSite(d.release2, again, { previous: d.site1, parts });
+    assert.equal(digest(again), want, `${parts} thread(s)`);
+    assert.ok(s.documents > 100, `${s.documents} documents`);
+  }
+  await assert.rejects(writeSite(d.release2, path.join(d.tmp, 'site-again-1')), /already exists/);
 });
 
 function raw(
@@ -240,7 +246,11 @@ test('a link IRI from any earlier release resolves: release 3 no longer describe
   const release3 = path.join(d.tmp, 'releases', '2028.1');
   await build(p3, release3, { previous: d.release2 });
   const site3 = path.join(d.tmp, 'site', '2028.1');
-  await writeSite(release3, site3, { previous: d.site2 });
+  await writeSite(release3, site3, { previous: d.site2, parts: 2 });
+  // the same site in one thread: the claims kept from earlier sites do not depend on which part spooled what
+  const site3one = path.join(d.tmp, 'site', '2028.1-one');
+  await writeSite(release3, site3one, { previous: d.site2, parts: 1 });
+  assert.equal(digest(site3one), digest(site3));
   const linksOf = (release: string) =>
     new Set(
       [
@@ -267,6 +277,15 @@ test('a link IRI from any earlier release resolves: release 3 no longer describe
   for (const l of every) {
     for (const accept of ['text/html', 'text/turtle']) {
       const body = await resolve(new URL(l).pathname, accept);
+      // described once: an earlier site's record of a claim this release still describes is dropped (one section;
+      // no statement about the claim twice)
+      if (accept === 'text/html') {
+        const sections = body.split(`id="link/${l.replace(/^.*\//, '')}"`).length - 1;
+        assert.equal(sections, 1, `${l}: ${sections} sections`);
+      } else {
+        const own = body.split('\n').filter((x) => x.startsWith(`<${l}> `));
+        assert.equal(new Set(own).size, own.length, `${l}: a statement twice`);
+      }
       assert.ok(
         accept === 'text/html'
           ? body.includes(`id="link/${l.replace(/^.*\//, '')}"`)

@@ -1,5 +1,6 @@
 // `concordat site <release> --out <folder> [--json]`: a release as a static site in which every minted IRI resolves.
 import type { Command } from 'commander';
+import { numberIn } from './options.js';
 
 export function register(program: Command): void {
   program
@@ -13,14 +14,22 @@ export function register(program: Command): void {
       '--previous <site>',
       'the site of the previous release: its documents and claims this release no longer has are kept, so IRIs cited from earlier releases still resolve',
     )
+    .option(
+      '--threads <n>',
+      'worker threads writing the site (default: one per core, at most 4); the files are the same for any number',
+      numberIn(1, 64, { integer: true, example: '--threads 2' }),
+    )
     .option('--json', 'print what was written as JSON')
     .addHelpText(
       'after',
       '\nExample:\n  concordat site releases/2027.1 --out site/2027.1 --previous site/2026.1\n  concordat serve site/2027.1\n\nExit codes: 0 written, 2 bad usage or not a release folder.',
     )
-    .action(async (release: string, opts: { out: string; json?: boolean; previous?: string }) => {
+    .action(async (release: string, opts: { out: string; json?: boolean; previous?: string; threads?: number }) => {
       const { writeSite } = await import('../site/index.js');
-      const s = await writeSite(release, opts.out, { previous: opts.previous });
+      const s = await writeSite(release, opts.out, {
+        previous: opts.previous,
+        parts: opts.threads,
+      });
       if (opts.json) process.stdout.write(JSON.stringify(s, null, 2) + '\n');
       else
         process.stdout.write(

@@ -15,6 +15,7 @@ export const P = {
   kind: iri('cx', 'kind'),
   status: iri('cx', 'status'),
   score: iri('cx', 'score'),
+  confidence: iri('cx', 'confidence'),
   support: iri('cx', 'support'),
   partner: iri('cx', 'partner'),
   inDataset: iri('void', 'inDataset'),

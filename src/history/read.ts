@@ -132,6 +132,7 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
       else if (p === P.kind) l.kind = KIND_OF[o];
       else if (p === P.status) l.status = STATUS_OF[o];
       else if (p === P.score) l.score = Number(o);
+      else if (p === P.confidence) l.confidence = Number(o);
       else if (p === P.support) l.support = Number(o);
       else if (p === P.generatedBy) l.generatedBy.push(o);
       else if (p === P.attributedTo) l.attributedTo.push(o);
@@ -182,6 +183,7 @@ export async function readRelease(folder: string): Promise<PreviousRelease> {
       status: l.status,
       relation: l.relation,
       score: l.score,
+      ...(l.confidence !== undefined ? { confidence: l.confidence } : {}),
       support: l.support ?? 0,
       generatedBy: l.generatedBy.sort(),
       attributedTo: l.attributedTo.sort(),

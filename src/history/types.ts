@@ -15,6 +15,8 @@ export interface LinkState {
   /** Claim predicate IRI; absent for rejected links. */
   relation?: string;
   score?: number;
+  /** cx:confidence as the release published it (absent in releases written before it was published). */
+  confidence?: number;
   support: number;
   /** prov:wasGeneratedBy / prov:wasAttributedTo IRIs, sorted. */
   generatedBy: string[];

@@ -65,7 +65,7 @@ export function currentMatchIris(view: ReleaseView, namer: Namer, iris: Set<stri
  * Units for what changed since `previous` (PROV-O §3.2 expanded terms; standards digest §2 and §3):
  * - the release activity `{base}release/{version}` (prov:Activity, cx:Release), dated by the project's release date;
  * - for each link whose status or kind changed, or that is gone: its earlier state `{link}/v/{previous version}`
- * (a cx:LinkState, not a cx:Link, with the old status, relation, kind, score, image matches and provenance,
+ * (a cx:LinkState, not a cx:Link, with the old status, relation, kind, score, confidence, image matches and provenance,
  * `dcterms:isVersionOf` the
  *   link; matches this release no longer holds are copied from the previous one);
  *   the link `prov:wasRevisionOf` that state when it is still published;
@@ -137,6 +137,7 @@ export function historyUnits(
     p(E, term('cx', 'status'), STATUS[old.status]);
     p(E, term('cx', 'support'), int(old.support));
     if (old.score !== undefined) p(E, term('cx', 'score'), dec(old.score));
+    if (old.confidence !== undefined) p(E, term('cx', 'confidence'), dec(old.confidence));
     const matchQuads: Quad[] = [];
     for (const m of evidence.matches.get(old.iri) ?? []) {
       p(E, term('prov', 'wasDerivedFrom'), nn(m));

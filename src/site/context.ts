@@ -130,7 +130,8 @@ export class SiteContext {
       const tail = `${doc.split('/').map(encodeURIComponent).join('/')}.html${fragment ? `#${fragment.split('/').map(encodeURIComponent).join('/')}` : ''}`;
       at = { doc, fragment, has, tail };
     }
-    if (this.located.size >= 100_000) this.located.clear();
+    // kept small: the IRIs are slices of the release's text, and each one held keeps its whole chunk of the file alive
+    if (this.located.size >= 10_000) this.located.clear();
     this.located.set(x, at);
     return at;
   }

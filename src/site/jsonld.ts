@@ -23,10 +23,23 @@ const CANONICAL_INTEGER = /^(?:0|-?[1-9][0-9]{0,14})$/;
 const NAME = /^[A-Za-z_][A-Za-z0-9_-]*$/;
 
 /** An IRI as a compact IRI when a prefix covers it and the rest is a plain name, else the IRI itself. */
-function compact(p: string): string {
+function compactIri(p: string): string {
   for (const [name, ns] of BY_LENGTH)
     if (p.startsWith(ns) && NAME.test(p.slice(ns.length))) return `${name}:${p.slice(ns.length)}`;
   return p;
+}
+/** Predicates, classes and datatypes repeat: their compact forms, remembered (up to a few thousand). */
+const compacted = new Map<string, string>();
+function compact(p: string): string {
+  let c = compacted.get(p);
+  if (c === undefined) {
+    if (compacted.size >= 4096) compacted.clear();
+    // copies: `p` is a slice of the release's text (and its compact form built on one) and would keep its whole chunk
+    // of the file alive
+    const copy = (x: string) => JSON.parse(JSON.stringify(x)) as string;
+    compacted.set(copy(p), (c = copy(compactIri(p))));
+  }
+  return c;
 }
 
 /** Writes a site's JSON-LD: node objects of statements, and whole documents with the context. */

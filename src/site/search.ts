@@ -1,6 +1,6 @@
 // Search over record IDs and titles that stays small: postings spooled by the token's first letter, written as one
 // JSON file per two-letter prefix (`search/ab.json`), at most MAX_POSTINGS records per token.
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 import type { Statement } from './nquads.js';
 import type { Spool } from './spool.js';
@@ -46,12 +46,16 @@ export class SearchIndex {
     }
   }
 
-  /** Writes `search/<prefix>.json`: `{ token: [[id, title, archive, href], …] }`, tokens and records sorted. */
-  finish(dir: string): void {
+  /**
+   * Writes `search/<prefix>.json`: `{ token: [[id, title, archive, href], …] }`, tokens and records sorted; `read`
+   * gives a spool bucket's records (by default this index's own spool; the site joins the spools of all its parts).
+   * Part `part` of `parts` writes every `parts`-th first letter; `writeSearchPrefixes` then lists what all wrote.
+   */
+  finish(dir: string, read: (bucket: string) => string[][] = (b) => this.spool.read(b), part = 0, parts = 1): void {
     mkdirSync(path.join(dir, 'search'), { recursive: true });
-    const keys: string[] = [];
-    for (const first of '_0123456789abcdefghijklmnopqrstuvwxyz') {
-      const rows = this.spool.read(`search-${first}`) as string[][];
+    for (const [i, first] of [...'_0123456789abcdefghijklmnopqrstuvwxyz'].entries()) {
+      if (i % parts !== part) continue;
+      const rows = read(`search-${first}`);
       const shards = new Map<string, Map<string, string[][]>>();
       for (const [t, ...rest] of rows) {
         const key = shardOf(t);
@@ -68,10 +72,17 @@ export class SearchIndex {
           obj[t] = { n: list.length, r: list.slice(0, MAX_POSTINGS) };
         }
         writeFileSync(path.join(dir, 'search', `${key}.json`), JSON.stringify(obj));
-        keys.push(key);
       }
     }
-    // the prefix files that exist, so the browser asks for no other
-    writeFileSync(path.join(dir, 'search', 'prefixes.json'), JSON.stringify(keys.sort()));
   }
+}
+
+/** Writes `search/prefixes.json`: the prefix files that exist, sorted, so the browser asks for no other. */
+export function writeSearchPrefixes(dir: string): void {
+  const folder = path.join(dir, 'search');
+  const keys = readdirSync(folder)
+    .filter((f) => f.endsWith('.json') && f !== 'prefixes.json')
+    .map((f) => f.slice(0, -'.json'.length))
+    .sort();
+  writeFileSync(path.join(folder, 'prefixes.json'), JSON.stringify(keys));
 }

@@ -4,8 +4,8 @@ import { parentPort } from 'node:worker_threads';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import path from 'node:path';
 
-/** To the worker: files to write (absolute path, text), or the end. */
-export type WriteMessage = { files: [string, string][] } | { end: true };
+/** To the worker: files to write (absolute paths; file i is bytes ends[i - 1] (or 0) to ends[i]), or the end. */
+export type WriteMessage = { paths: string[]; ends: number[]; bytes: ArrayBuffer } | { end: true };
 /** From the worker: a batch written, everything written, or the first error (then nothing more is written). */
 export type WriteReply = { ack: true } | { done: true } | { error: string; code?: string; path?: string };
 
@@ -18,13 +18,15 @@ parentPort!.on('message', (m: WriteMessage) => {
   }
   if (failed) return;
   try {
-    for (const [file, text] of m.files) {
+    const bytes = new Uint8Array(m.bytes);
+    for (let i = 0; i < m.paths.length; i++) {
+      const file = m.paths[i];
       const dir = path.dirname(file);
       if (!made.has(dir)) {
         mkdirSync(dir, { recursive: true });
         made.add(dir);
       }
-      writeFileSync(file, text);
+      writeFileSync(file, bytes.subarray(i ? m.ends[i - 1] : 0, m.ends[i]));
     }
     parentPort!.postMessage({ ack: true } satisfies WriteReply);
   } catch (e) {
