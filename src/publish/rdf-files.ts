@@ -16,6 +16,7 @@ import {
 import type { Unit } from '../rdf/index.js';
 import { JsonLdFile, unitText } from './jsonld.js';
 import type { DumpFile, FileWorkerInit, FileWorkerMessage, FileWorkerReply, SlabRecords } from './file-worker.js';
+import { Replies } from '../util/replies.js';
 
 /**
  * Shared blocks the unit text is written into for the file worker: size and count (the count bounds what is in flight).
@@ -62,8 +63,7 @@ export class ReleaseWriter {
   private pos = 0;
   private records: SlabRecords = [];
   private inFlight = 0;
-  private failure: Error | null = null;
-  private waiting: (() => void) | null = null;
+  private readonly replies = new Replies();
   private hashes: Map<string, string> | undefined;
   private readonly all: number[];
   triples = 0;
@@ -107,30 +107,17 @@ export class ReleaseWriter {
         if (r.slab !== undefined) this.free.push(r.slab);
       } else if ('hashes' in r) this.hashes = new Map(r.hashes);
       else
-        this.fail(
+        this.replies.fail(
           Object.assign(new Error(`writing the release files: ${r.error}`), {
             code: r.code,
             syscall: r.syscall,
             path: r.path,
           }),
         );
-      this.wake();
+      this.replies.wake();
     });
-    this.worker.on('error', (e) => this.fail(e));
-    this.worker.on('exit', (code) => this.fail(new Error(`release file writer stopped (exit code ${code})`)));
-  }
-  private fail(e: Error) {
-    this.failure ??= e;
-    this.wake();
-  }
-  private wake() {
-    const w = this.waiting;
-    this.waiting = null;
-    w?.();
-  }
-  private async settle(until: () => boolean): Promise<void> {
-    while (!this.failure && !until()) await new Promise<void>((r) => (this.waiting = r));
-    if (this.failure) throw this.failure;
+    this.worker.on('error', (e) => this.replies.fail(e));
+    this.worker.on('exit', (code) => this.replies.fail(new Error(`release file writer stopped (exit code ${code})`)));
   }
   private send(m: FileWorkerMessage) {
     this.worker.postMessage(m);
@@ -162,10 +149,10 @@ export class ReleaseWriter {
     if (this.pos + bound > SLAB) this.post();
     if (bound > SLAB) {
       this.send({ units: [[texts, to]] });
-      return this.settle(() => this.inFlight < SLABS);
+      return this.replies.until(() => this.inFlight < SLABS);
     }
     if (this.cur < 0) {
-      await this.settle(() => this.free.length > 0);
+      await this.replies.until(() => this.free.length > 0);
       this.cur = this.free.shift()!;
     }
     const b = this.slabs[this.cur];
@@ -179,9 +166,9 @@ export class ReleaseWriter {
   /** Writes what is left, closes every file and returns their SHA-256 hashes (path relative to the release → hex). */
   async close(): Promise<Map<string, string>> {
     this.post();
-    await this.settle(() => this.inFlight === 0);
+    await this.replies.until(() => this.inFlight === 0);
     this.worker.postMessage({ end: true } satisfies FileWorkerMessage);
-    await this.settle(() => this.hashes !== undefined);
+    await this.replies.until(() => this.hashes !== undefined);
     await this.abort();
     return this.hashes!;
   }

@@ -4,6 +4,7 @@ import path from 'node:path';
 import { Worker } from 'node:worker_threads';
 import type { WriteMessage, WriteReply } from './write-worker.js';
 import type { JsonLd } from './jsonld.js';
+import { Replies } from '../util/replies.js';
 
 /** Bytes of document text per batch handed to the writer thread, and batches in flight before reading waits. */
 const BATCH = 4 << 20;
@@ -21,8 +22,7 @@ export class DocWriter {
   private bytes = Buffer.allocUnsafeSlow(BATCH);
   private size = 0;
   private inFlight = 0;
-  private failure: Error | null = null;
-  private waiting: (() => void) | null = null;
+  private readonly replies = new Replies();
   private finished = false;
   private readonly worker: Worker;
   constructor(
@@ -33,26 +33,13 @@ export class DocWriter {
     this.worker.on('message', (r: WriteReply) => {
       if ('ack' in r) this.inFlight--;
       else if ('done' in r) this.finished = true;
-      else this.fail(Object.assign(new Error(`writing the site: ${r.error}`), { code: r.code, path: r.path }));
-      this.wake();
+      else this.replies.fail(Object.assign(new Error(`writing the site: ${r.error}`), { code: r.code, path: r.path }));
+      this.replies.wake();
     });
-    this.worker.on('error', (e) => this.fail(e));
+    this.worker.on('error', (e) => this.replies.fail(e));
     this.worker.on('exit', (code) => {
-      if (!this.finished) this.fail(new Error(`site file writer stopped (exit code ${code})`));
+      if (!this.finished) this.replies.fail(new Error(`site file writer stopped (exit code ${code})`));
     });
-  }
-  private fail(e: Error) {
-    this.failure ??= e;
-    this.wake();
-  }
-  private wake() {
-    const w = this.waiting;
-    this.waiting = null;
-    w?.();
-  }
-  private async settle(until: () => boolean): Promise<void> {
-    while (!this.failure && !until()) await new Promise<void>((r) => (this.waiting = r));
-    if (this.failure) throw this.failure;
   }
   write(doc: string, nt: string, jsonNodes: string[], htmlText: string): void {
     const f = path.join(this.dir, ...doc.split('/'));
@@ -88,8 +75,8 @@ export class DocWriter {
   }
   /** A promise while too many batches wait for the writer (the reader pauses), else undefined. */
   backlog(): Promise<void> | undefined {
-    if (this.failure) return Promise.reject(this.failure);
-    return this.inFlight >= IN_FLIGHT ? this.settle(() => this.inFlight < IN_FLIGHT) : undefined;
+    if (this.replies.failure) return Promise.reject(this.replies.failure);
+    return this.inFlight >= IN_FLIGHT ? this.replies.until(() => this.inFlight < IN_FLIGHT) : undefined;
   }
   /** Stops the writer thread (after close, or when the site fails half-way). */
   async stop(): Promise<void> {
@@ -101,6 +88,6 @@ export class DocWriter {
   async close(): Promise<void> {
     this.post();
     this.worker.postMessage({ end: true } satisfies WriteMessage);
-    await this.settle(() => this.finished);
+    await this.replies.until(() => this.finished);
   }
 }
